@@ -1,0 +1,68 @@
+// loads: turns each load case of a Model into loads in member local axes.
+// Directions, projections and self weight are settled here, once, so the
+// solver and the result functions only ever see local, per-length loads.
+#pragma once
+
+#include <cstdint>
+#include <span>
+#include <vector>
+
+#include "model.hpp"
+
+namespace firn {
+
+/// Length and direction cosines of a member (local x from start to end node).
+struct MemberGeometry {
+    double length = 0.0;
+    double c = 1.0;  ///< cos of the angle from global x to local x
+    double s = 0.0;  ///< sin of that angle
+};
+MemberGeometry member_geometry(const Model& model, MemberId member);
+
+/// A distributed load in member local axes, per unit length of the member,
+/// varying linearly from (qx_a, qy_a) at `a` to (qx_b, qy_b) at `b`
+/// (distances along the member from its start node, 0 <= a < b <= length).
+/// qx acts along local x (start to end), qy along local y (x turned 90 degrees
+/// counterclockwise).
+struct LocalDistributed {
+    double a = 0.0, b = 0.0;
+    double qx_a = 0.0, qx_b = 0.0;
+    double qy_a = 0.0, qy_b = 0.0;
+};
+
+/// A concentrated action on a member at `a` along it: local forces px, py and a
+/// counterclockwise moment mz.
+struct LocalPoint {
+    double a = 0.0;
+    double px = 0.0, py = 0.0, mz = 0.0;
+};
+
+/// The loads of one case. Member loads are grouped by member (compressed rows:
+/// the loads on member m are [first_x[m], first_x[m + 1])).
+struct CaseLoads {
+    std::vector<double> nodal;  ///< 3 per node (Dof order), global, N and N*m
+    std::vector<std::uint32_t> first_distributed;
+    std::vector<LocalDistributed> distributed;
+    std::vector<std::uint32_t> first_point;
+    std::vector<LocalPoint> points;
+
+    std::span<const LocalDistributed> distributed_on(MemberId m) const {
+        return {distributed.data() + first_distributed[at(m)],
+                distributed.data() + first_distributed[at(m) + 1]};
+    }
+    std::span<const LocalPoint> points_on(MemberId m) const {
+        return {points.data() + first_point[at(m)], points.data() + first_point[at(m) + 1]};
+    }
+};
+
+/// Loads for every case of the model, in the model's case order.
+struct LoadSet {
+    std::vector<CaseLoads> cases;
+};
+
+/// Derives local member loads for every case. The model is already checked by
+/// `resolve`; problems found here (a projected load on a vertical member) are
+/// reported as warnings.
+LoadSet derive_loads(const Model& model, Diagnostics& diagnostics);
+
+}  // namespace firn

@@ -1,0 +1,174 @@
+// model: the resolved structure. Names are bound, units are gone (SI: N, m,
+// rad), and every entity keeps the source range it came from, so later
+// stages can still point at the line that caused a problem.
+#pragma once
+
+#include <array>
+#include <cstdint>
+#include <string>
+#include <vector>
+
+#include "diag.hpp"
+#include "units.hpp"
+
+namespace firn {
+
+/// Typed indices into the Model's vectors; entities keep declaration order.
+enum class NodeId : std::uint32_t {};
+enum class MaterialId : std::uint32_t {};
+enum class SectionId : std::uint32_t {};
+enum class MemberId : std::uint32_t {};
+enum class CaseId : std::uint32_t {};
+
+template <typename Id>
+constexpr std::size_t at(Id id) {
+    return static_cast<std::size_t>(id);
+}
+template <typename Id>
+constexpr Id make_id(std::size_t index) {
+    return static_cast<Id>(static_cast<std::uint32_t>(index));
+}
+
+/// A named grid line: a column line (x = position) or a level (y = position).
+struct GridLine {
+    std::string name;
+    double position = 0.0;
+    SourceRange where;
+};
+
+struct Node {
+    std::string name;
+    double x = 0.0;
+    double y = 0.0;
+    SourceRange where;
+};
+
+struct Material {
+    std::string name;
+    double elastic_modulus = 0.0;  ///< E, Pa
+    double unit_weight = 0.0;      ///< weight per volume, N/m^3 (0 when not given)
+    SourceRange where;
+};
+
+struct Section {
+    enum class Shape { given, rectangle, ishape };
+    std::string name;
+    MaterialId material{};
+    Shape shape = Shape::given;
+    double area = 0.0;     ///< A, m^2
+    double inertia = 0.0;  ///< I about the bending axis, m^4
+    SourceRange where;
+};
+
+struct Member {
+    std::string name;
+    NodeId start{};
+    NodeId end{};
+    SectionId section{};
+    bool hinge_start = false;  ///< moment released where the member meets its start node
+    bool hinge_end = false;
+    SourceRange where;
+};
+
+/// Node degrees of freedom, in this order everywhere (ORDER DOF).
+enum Dof : std::size_t { dof_x = 0, dof_y = 1, dof_rotation = 2 };
+
+struct Restraint {
+    enum class Kind { free, fixed, spring };
+    Kind kind = Kind::free;
+    double stiffness = 0.0;  ///< N/m for x and y, N*m/rad for rotation (springs only)
+};
+
+struct Support {
+    enum class Kind { fixed, pinned, roller_free_x, roller_free_y, spring };
+    NodeId node{};
+    Kind kind = Kind::fixed;
+    std::array<Restraint, 3> restraint;  ///< indexed by Dof
+    SourceRange where;
+};
+
+/// Load directions. Global x and y are the model axes (y up); `down` is -y.
+/// Local axial runs from start to end node; local transverse is axial turned
+/// 90 degrees counterclockwise.
+enum class LoadDirection { global_x, global_y, down, axial, transverse };
+
+struct NodalLoad {
+    NodeId node{};
+    double fx = 0.0;  ///< N, global
+    double fy = 0.0;
+    double moment = 0.0;  ///< N*m, counterclockwise positive
+    SourceRange where;
+};
+
+/// A distributed load varying linearly from w_start at `start` to w_end at `end`.
+/// Positions are distances from the member's start node along the member,
+/// except for projected loads, where positions and intensities refer to the
+/// horizontal projection (as roof snow and roof live loads are given).
+struct DistributedLoad {
+    MemberId member{};
+    LoadDirection direction = LoadDirection::down;
+    bool projected = false;
+    double start = 0.0;  ///< m
+    double end = 0.0;    ///< m
+    double w_start = 0.0;  ///< N/m
+    double w_end = 0.0;
+    SourceRange where;
+};
+
+/// A concentrated force on a member at `position` (m from the start node, along the member).
+struct PointLoad {
+    MemberId member{};
+    LoadDirection direction = LoadDirection::down;
+    double position = 0.0;
+    double force = 0.0;  ///< N
+    SourceRange where;
+};
+
+/// A concentrated moment on a member, counterclockwise positive.
+struct PointMoment {
+    MemberId member{};
+    double position = 0.0;
+    double moment = 0.0;  ///< N*m
+    SourceRange where;
+};
+
+/// Self weight (unit weight x area, acting down) on the listed members, or on all.
+struct SelfWeight {
+    std::vector<MemberId> members;  ///< empty: every member
+    bool all_members = true;
+    SourceRange where;
+};
+
+enum class CaseKind { dead, live, roof_live, snow, wind, other };
+
+struct LoadCase {
+    std::string name;
+    CaseKind kind = CaseKind::other;
+    std::vector<NodalLoad> nodal;
+    std::vector<DistributedLoad> distributed;
+    std::vector<PointLoad> points;
+    std::vector<PointMoment> moments;
+    std::vector<SelfWeight> self_weight;
+    SourceRange where;
+};
+
+/// The whole resolved model. Vectors keep declaration order.
+struct Model {
+    std::string title;
+    std::string source_name;  ///< the model file as named on the command line
+    DisplayUnits units;
+    std::vector<GridLine> grid_x;  ///< column lines
+    std::vector<GridLine> grid_y;  ///< levels
+    std::vector<Node> nodes;
+    std::vector<Material> materials;
+    std::vector<Section> sections;
+    std::vector<Member> members;
+    std::vector<Support> supports;
+    std::vector<LoadCase> cases;
+};
+
+/// Human words for enums, used by the report and in messages.
+const char* case_kind_name(CaseKind kind);
+const char* support_kind_name(Support::Kind kind);
+
+}  // namespace firn

@@ -1,0 +1,179 @@
+// units: the unit table (exact conversion factors) and display unit choices.
+#include "units.hpp"
+
+#include <array>
+#include <cmath>
+#include <fmt/format.h>
+#include <numbers>
+
+namespace firn {
+
+Dimension operator*(Dimension a, Dimension b) {
+    return Dimension{static_cast<std::int8_t>(a.force + b.force),
+                     static_cast<std::int8_t>(a.length + b.length)};
+}
+
+Dimension operator/(Dimension a, Dimension b) {
+    return Dimension{static_cast<std::int8_t>(a.force - b.force),
+                     static_cast<std::int8_t>(a.length - b.length)};
+}
+
+Dimension power(Dimension a, int exponent) {
+    return Dimension{static_cast<std::int8_t>(a.force * exponent),
+                     static_cast<std::int8_t>(a.length * exponent)};
+}
+
+std::string describe(Dimension d) {
+    struct Named {
+        Dimension dimension;
+        const char* phrase;
+    };
+    static constexpr std::array<Named, 9> names{{
+        {dim::number, "a plain number"},
+        {dim::length, "a length"},
+        {dim::force, "a force"},
+        {dim::moment, "a moment"},
+        {dim::force_per_length, "a force per length"},
+        {dim::pressure, "a pressure"},
+        {dim::area, "an area"},
+        {dim::inertia, "a second moment of area"},
+        {dim::unit_weight, "a unit weight"},
+    }};
+    for (const Named& n : names) {
+        if (n.dimension == d) return n.phrase;
+    }
+    auto part = [](const char* base, int e) {
+        if (e == 0) return std::string();
+        return e == 1 ? std::string(base) : fmt::format("{}^{}", base, e);
+    };
+    std::string top = part("force", std::max(0, int{d.force})) + 
+                      ((d.force > 0 && d.length > 0) ? "*" : "") + part("length", std::max(0, int{d.length}));
+    std::string bottom = part("force", std::max(0, -int{d.force})) +
+                         ((d.force < 0 && d.length < 0) ? "*" : "") + part("length", std::max(0, -int{d.length}));
+    if (top.empty()) top = "1";
+    return "a quantity of dimension " + (bottom.empty() ? top : top + "/" + bottom);
+}
+
+namespace {
+
+// Exact definitions: 1 ft = 0.3048 m and 1 lb = 0.45359237 kg x 9.80665 m/s^2
+// (the international foot and pound, and standard gravity).
+constexpr double kFoot = 0.3048;
+constexpr double kInch = 0.0254;
+constexpr double kPound = 0.45359237 * 9.80665;
+constexpr double kKip = 1000.0 * kPound;
+
+// ORDER UNITS: editor-support highlighters take their unit lists from unit_names().
+constexpr std::array<Unit, 25> kUnits{{
+    {"m", 1.0, dim::length},
+    {"mm", 1e-3, dim::length},
+    {"cm", 1e-2, dim::length},
+    {"ft", kFoot, dim::length},
+    {"in", kInch, dim::length},
+    {"N", 1.0, dim::force},
+    {"kN", 1e3, dim::force},
+    {"MN", 1e6, dim::force},
+    {"lb", kPound, dim::force},
+    {"lbf", kPound, dim::force},
+    {"kip", kKip, dim::force},
+    {"Pa", 1.0, dim::pressure},
+    {"kPa", 1e3, dim::pressure},
+    {"MPa", 1e6, dim::pressure},
+    {"GPa", 1e9, dim::pressure},
+    {"psf", kPound / (kFoot * kFoot), dim::pressure},
+    {"ksf", kKip / (kFoot * kFoot), dim::pressure},
+    {"psi", kPound / (kInch * kInch), dim::pressure},
+    {"ksi", kKip / (kInch * kInch), dim::pressure},
+    {"pcf", kPound / (kFoot * kFoot * kFoot), dim::unit_weight},
+    {"kcf", kKip / (kFoot * kFoot * kFoot), dim::unit_weight},
+    {"plf", kPound / kFoot, dim::force_per_length},
+    {"klf", kKip / kFoot, dim::force_per_length},
+    {"rad", 1.0, dim::number},
+    {"deg", std::numbers::pi / 180.0, dim::number},
+}};
+
+// Sizes of compound display units come from the table, so they can never
+// disagree with what the language reads.
+double size_of(std::string_view compound) {
+    double size = 1.0;
+    int sign = 1;
+    std::size_t start = 0;
+    for (std::size_t i = 0; i <= compound.size(); ++i) {
+        if (i < compound.size() && compound[i] != '*' && compound[i] != '/') continue;
+        std::string_view atom = compound.substr(start, i - start);
+        int exponent = 1;
+        if (auto caret = atom.find('^'); caret != std::string_view::npos) {
+            exponent = atom[caret + 1] - '0';
+            atom = atom.substr(0, caret);
+        }
+        double factor = atom == "rad" ? 1.0 : 0.0;
+        for (const Unit& u : kUnits) {
+            if (u.name == atom) factor = u.to_si;
+        }
+        size *= std::pow(factor, sign * exponent);
+        if (i < compound.size()) sign = compound[i] == '/' ? -1 : 1;
+        start = i + 1;
+    }
+    return size;
+}
+
+DisplayUnit unit(std::string name, int decimals) {
+    double size = size_of(name);
+    return DisplayUnit{std::move(name), size, decimals};
+}
+
+int decimals_for_moment(std::string_view force, std::string_view length) {
+    bool big_force = force == "kip" || force == "kN";
+    bool big_length = length == "ft" || length == "m";
+    if (big_force) return big_length ? 3 : 1;
+    return big_length ? 1 : 0;
+}
+
+int decimals_for_displacement(std::string_view name) {
+    if (name == "in") return 4;
+    if (name == "mm") return 2;
+    if (name == "cm") return 3;
+    return 5;  // ft, m
+}
+
+}  // namespace
+
+bool make_display_units(std::string_view force, std::string_view length,
+                        std::string_view displacement, DisplayUnits& out) {
+    int force_decimals = force == "kip" || force == "kN" ? 3 : (force == "lb" || force == "N" ? 1 : -1);
+    int length_decimals = length == "mm" ? 1 : (length == "ft" || length == "in" || length == "m" ? 3 : -1);
+    if (force_decimals < 0 || length_decimals < 0) return false;
+    bool customary = length == "ft" || length == "in";
+    if (displacement.empty()) displacement = customary ? "in" : "mm";
+    const Unit* d = find_unit(displacement);
+    if (d == nullptr || !(d->dimension == dim::length)) return false;
+    std::string f(force), l(length);
+    out.force = unit(f, force_decimals);
+    out.length = unit(l, length_decimals);
+    out.moment = unit(f + "*" + l, decimals_for_moment(f, l));
+    out.displacement = unit(std::string(displacement), decimals_for_displacement(displacement));
+    out.rotation = unit("rad", 6);
+    out.force_per_length = unit(f + "/" + l, force_decimals + 1);
+    out.area = customary ? unit("in^2", 3) : unit("mm^2", 0);
+    out.inertia = customary ? unit("in^4", 2) : unit("mm^4", 0);
+    out.modulus = customary ? unit("ksi", 0) : unit("MPa", 0);
+    out.unit_weight = customary ? unit("pcf", 1) : unit("kN/m^3", 2);
+    out.stiffness = customary ? unit(f + "/in", 3) : unit(f + "/mm", 3);
+    out.rotational_stiffness = unit(f + "*" + l + "/rad", 1);
+    return true;
+}
+
+const Unit* find_unit(std::string_view name) {
+    for (const Unit& u : kUnits) {
+        if (u.name == name) return &u;
+    }
+    return nullptr;
+}
+
+std::vector<std::string> unit_names() {
+    std::vector<std::string> names;
+    for (const Unit& u : kUnits) names.emplace_back(u.name);
+    return names;
+}
+
+}  // namespace firn
