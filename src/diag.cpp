@@ -27,6 +27,13 @@ std::string_view SourceMap::line_text(FileId id, std::uint32_t line) const {
     return std::string_view(text).substr(begin, end - begin);
 }
 
+Position SourceMap::position(FileId id, std::uint32_t offset) const {
+    const auto& starts = line_starts_.at(id);
+    auto after = std::upper_bound(starts.begin(), starts.end(), offset);
+    auto line = static_cast<std::uint32_t>(after - starts.begin());
+    return Position{offset, line, offset - starts[line - 1] + 1};
+}
+
 Diagnostic& Diagnostics::error(const SourceRange& where, std::string message) {
     ++errors_;
     items_.push_back(Diagnostic{Severity::error, where, std::move(message), {}});
@@ -80,7 +87,11 @@ void quote_line(std::string& out, std::string_view line, const SourceRange& wher
     }
     std::size_t shown_col = col - first;
     width = std::max<std::size_t>(1, std::min(width, line.size() > shown_col ? line.size() - shown_col : 1));
-    out += "    " + prefix + std::string(line) + suffix + "\n    " + std::string(prefix.size(), ' ');
+    std::string shown(line);
+    for (char& c : shown) {
+        if (static_cast<unsigned char>(c) < 0x20 && c != '\t') c = '?';  // keep terminals sane
+    }
+    out += "    " + prefix + shown + suffix + "\n    " + std::string(prefix.size(), ' ');
     for (std::size_t i = 0; i < shown_col; ++i) out += line[i] == '\t' ? '\t' : ' ';
     out += '^';
     out += std::string(width - 1, '~');

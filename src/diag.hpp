@@ -40,6 +40,8 @@ public:
     const SourceFile& file(FileId id) const { return files_.at(id); }
     /// The text of the line `line` (1-based) of `id`, without its end of line.
     std::string_view line_text(FileId id, std::uint32_t line) const;
+    /// Line and column of the byte `offset` of `id`.
+    Position position(FileId id, std::uint32_t offset) const;
 
 private:
     std::vector<SourceFile> files_;

@@ -34,7 +34,7 @@ struct Expr {
     std::string literal;            ///< the number as written (kind == number)
     double value = 0.0;             ///< the literal's value (kind == number)
     std::vector<UnitFactor> unit;   ///< the unit written after the number, if any
-    std::string bad_unit;           ///< a word after the number that is no unit
+    std::optional<Name> bad_unit;   ///< a word after the number that is no unit
     std::unique_ptr<Expr> lhs, rhs; ///< operands (rhs only for negate and group)
     SourceRange where;
 };
@@ -126,7 +126,7 @@ struct SupportDecl {
 /// Where a load acts and how it is written; see grammar/REFERENCE.md.
 struct LoadDecl {
     enum class Form { uniform, linear, point, moment, self_weight };
-    enum class Direction { none, x, y, down, axial, transverse };
+    enum class Direction { none, x, y, up, down, axial, transverse };
     Form form = Form::uniform;
     std::optional<Expr> value;     ///< intensity, force or moment (start value for linear)
     std::optional<Expr> end_value; ///< linear: the value at the end of the loaded part

@@ -1,0 +1,83 @@
+// Messages for the grammar's error points. src/parse.cpp adds what was found
+// ("found 'x'") and a "did you mean" drawn from the keywords a message names.
+#pragma once
+
+#include "grammar/grammar.hpp"
+
+namespace firn::grammar {
+
+struct errors {
+    // Only must<> raises; a rule failing inside sor<> or opt<> is not an error.
+    template <typename Rule>
+    static constexpr bool raise_on_failure = false;
+
+    template <typename Rule>
+    static constexpr const char* message = nullptr;
+};
+
+// clang-format off
+#define FIRN_ERROR(rule, text) \
+    template <> inline constexpr const char* errors::message<rule> = text;
+
+FIRN_ERROR(unknown_statement, "expected a statement (model, report, grid, node, material, section, member, support or case)")
+FIRN_ERROR(end_of_statement, "expected the end of the statement (a new line or ';')")
+FIRN_ERROR(title, "expected the model title in double quotes, as in: model \"Frame on line 3\"")
+FIRN_ERROR(one<'"'>, "expected '\"' to close the title on this line")
+FIRN_ERROR(kw_units, "expected 'units', as in: report units kip, ft")
+FIRN_ERROR(report_item, "expected a unit such as kip or ft, or 'displacement' and a unit")
+FIRN_ERROR(grid_axis, "expected 'x' (column lines) or 'y' (levels) after 'grid'")
+FIRN_ERROR(grid_line, "expected a grid line such as A = 0 ft")
+FIRN_ERROR(equals, "expected '='")
+FIRN_ERROR(expr, "expected a value such as 12 ft")
+FIRN_ERROR(factor, "expected a number such as 12 ft, or '('")
+FIRN_ERROR(product, "expected a number such as 12 ft, or '('")
+FIRN_ERROR(paren_close, "expected ')' to close the '('")
+FIRN_ERROR(node_name, "expected a node name")
+FIRN_ERROR(kw_at, "expected 'at'")
+FIRN_ERROR(coordinate, "expected a coordinate (x = 12 ft, y = 0 ft) or a grid line name")
+FIRN_ERROR(material_name, "expected a material name")
+FIRN_ERROR(property, "expected a property such as E = 29000 ksi")
+FIRN_ERROR(property_list, "expected a property such as E = 29000 ksi")
+FIRN_ERROR(section_name, "expected a section name")
+FIRN_ERROR(section_material, "expected the name of the section's material")
+FIRN_ERROR(comma, "expected ',' after the material name")
+FIRN_ERROR(member_name, "expected a member name")
+FIRN_ERROR(kw_from, "expected 'from' and the member's start node")
+FIRN_ERROR(member_start, "expected the name of the member's start node")
+FIRN_ERROR(kw_to, "expected 'to'")
+FIRN_ERROR(member_end, "expected the name of the member's end node")
+FIRN_ERROR(kw_section, "expected 'section' and a section name")
+FIRN_ERROR(member_section, "expected a section name")
+FIRN_ERROR(hinge_node, "expected the name of a node at an end of this member")
+FIRN_ERROR(support_kind, "expected a support type (fixed, pinned, roller or spring)")
+FIRN_ERROR(roller_axis, "expected 'x' or 'y', the direction the roller is free to move in")
+FIRN_ERROR(support_node, "expected a node name")
+FIRN_ERROR(spring_item, "expected a spring such as x = 200 kip/in, y = fixed or rotation = 5000 kip*ft/rad")
+FIRN_ERROR(spring_value, "expected a stiffness such as 200 kip/in, or 'fixed'")
+FIRN_ERROR(case_name, "expected a load case name")
+FIRN_ERROR(case_kind, "expected the kind of load case (dead, live, roof live, snow, wind or other)")
+FIRN_ERROR(kw_live, "expected 'live' after 'roof'")
+FIRN_ERROR(block_open, "expected '{' to open the case's loads")
+FIRN_ERROR(block_close, "expected '}' to close the case block")
+FIRN_ERROR(unknown_load, "expected a load (uniform, linear, point, moment or self weight) or '}'")
+FIRN_ERROR(load_value, "expected the load's value, such as 0.5 kip/ft or 2 kip")
+FIRN_ERROR(load_end_value, "expected the value at the end of the loaded part, such as 0.5 kip/ft")
+FIRN_ERROR(direction, "expected a direction (x, y, up, down, axial or transverse)")
+FIRN_ERROR(spread_target, "expected 'on' and the members it loads")
+FIRN_ERROR(point_target, "expected 'on' and members followed by 'at' and a distance, or 'at' and nodes")
+FIRN_ERROR(member_list, "expected a member name")
+FIRN_ERROR(load_member, "expected a member name")
+FIRN_ERROR(node_list, "expected a node name")
+FIRN_ERROR(load_node, "expected a node name")
+FIRN_ERROR(load_from, "expected a distance along the member such as 4 ft")
+FIRN_ERROR(load_to, "expected a distance along the member such as 8 ft")
+FIRN_ERROR(load_at, "expected a distance along the member such as 4 ft")
+FIRN_ERROR(kw_weight, "expected 'weight' after 'self'")
+
+#undef FIRN_ERROR
+// clang-format on
+
+template <typename Rule>
+using control = must_if<errors, normal, false>::control<Rule>;
+
+}  // namespace firn::grammar

@@ -1,0 +1,419 @@
+// The firn grammar: PEGTL rules only (actions live in src/parse.cpp, messages in
+// grammar/errors.hpp). Each rule carries its production as a comment. Only
+// src/parse.cpp and the grammar tests include this header.
+//
+// Statements end at a line break or ';'. A line may break after ',', after an
+// operator and inside parentheses. '#' starts a comment that runs to the end of
+// the line. See grammar/REFERENCE.md for the language as a user reads it.
+#pragma once
+
+#include <cstddef>
+#include <string_view>
+#include <type_traits>
+#include <tao/pegtl.hpp>
+#include <tao/pegtl/contrib/analyze_traits.hpp>
+
+#include "grammar/keywords.hpp"
+#include "units.hpp"
+
+namespace firn::grammar {
+
+using namespace tao::pegtl;  // NOLINT: rules read as the grammar only with it
+
+// clang-format off
+
+// ---------------------------------------------------------------- lexical
+
+// comment   <- '#' (!eol .)*
+struct comment : seq<one<'#'>, star<not_one<'\n', '\r'>>> {};
+// sp        <- (' ' / '\t' / comment)*          spaces inside a line
+struct sp : star<sor<one<' ', '\t'>, comment>> {};
+// sp_nl     <- (' ' / '\t' / eol / comment)*    spaces and line breaks
+struct sp_nl : star<sor<one<' ', '\t', '\r', '\n'>, comment>> {};
+
+// word_char <- [A-Za-z0-9_]
+struct word_char : ranges<'a', 'z', 'A', 'Z', '0', '9', '_'> {};
+
+// ORDER KEYWORDS: one rule per word of grammar/keywords.hpp.
+struct kw_at : TAO_PEGTL_KEYWORD("at") {};
+struct kw_axial : TAO_PEGTL_KEYWORD("axial") {};
+struct kw_case : TAO_PEGTL_KEYWORD("case") {};
+struct kw_clockwise : TAO_PEGTL_KEYWORD("clockwise") {};
+struct kw_counterclockwise : TAO_PEGTL_KEYWORD("counterclockwise") {};
+struct kw_dead : TAO_PEGTL_KEYWORD("dead") {};
+struct kw_displacement : TAO_PEGTL_KEYWORD("displacement") {};
+struct kw_down : TAO_PEGTL_KEYWORD("down") {};
+struct kw_fixed : TAO_PEGTL_KEYWORD("fixed") {};
+struct kw_free : TAO_PEGTL_KEYWORD("free") {};
+struct kw_from : TAO_PEGTL_KEYWORD("from") {};
+struct kw_grid : TAO_PEGTL_KEYWORD("grid") {};
+struct kw_hinge : TAO_PEGTL_KEYWORD("hinge") {};
+struct kw_ishape : TAO_PEGTL_KEYWORD("ishape") {};
+struct kw_linear : TAO_PEGTL_KEYWORD("linear") {};
+struct kw_live : TAO_PEGTL_KEYWORD("live") {};
+struct kw_material : TAO_PEGTL_KEYWORD("material") {};
+struct kw_member : TAO_PEGTL_KEYWORD("member") {};
+struct kw_model : TAO_PEGTL_KEYWORD("model") {};
+struct kw_moment : TAO_PEGTL_KEYWORD("moment") {};
+struct kw_node : TAO_PEGTL_KEYWORD("node") {};
+struct kw_on : TAO_PEGTL_KEYWORD("on") {};
+struct kw_other : TAO_PEGTL_KEYWORD("other") {};
+struct kw_pinned : TAO_PEGTL_KEYWORD("pinned") {};
+struct kw_point : TAO_PEGTL_KEYWORD("point") {};
+struct kw_projected : TAO_PEGTL_KEYWORD("projected") {};
+struct kw_rectangle : TAO_PEGTL_KEYWORD("rectangle") {};
+struct kw_report : TAO_PEGTL_KEYWORD("report") {};
+struct kw_roller : TAO_PEGTL_KEYWORD("roller") {};
+struct kw_roof : TAO_PEGTL_KEYWORD("roof") {};
+struct kw_rotation : TAO_PEGTL_KEYWORD("rotation") {};
+struct kw_section : TAO_PEGTL_KEYWORD("section") {};
+struct kw_self : TAO_PEGTL_KEYWORD("self") {};
+struct kw_snow : TAO_PEGTL_KEYWORD("snow") {};
+struct kw_spring : TAO_PEGTL_KEYWORD("spring") {};
+struct kw_support : TAO_PEGTL_KEYWORD("support") {};
+struct kw_to : TAO_PEGTL_KEYWORD("to") {};
+struct kw_transverse : TAO_PEGTL_KEYWORD("transverse") {};
+struct kw_uniform : TAO_PEGTL_KEYWORD("uniform") {};
+struct kw_units : TAO_PEGTL_KEYWORD("units") {};
+struct kw_up : TAO_PEGTL_KEYWORD("up") {};
+struct kw_weight : TAO_PEGTL_KEYWORD("weight") {};
+struct kw_wind : TAO_PEGTL_KEYWORD("wind") {};
+struct kw_x : TAO_PEGTL_KEYWORD("x") {};
+struct kw_y : TAO_PEGTL_KEYWORD("y") {};
+
+/// Every keyword rule, so tests can check the list against keywords.hpp.
+template <typename... Words> struct keyword_list : sor<Words...> {
+    static constexpr std::size_t size = sizeof...(Words);
+};
+// reserved  <- any keyword
+struct reserved : keyword_list<
+    kw_at, kw_axial, kw_case, kw_clockwise, kw_counterclockwise, kw_dead, kw_displacement,
+    kw_down, kw_fixed, kw_free, kw_from, kw_grid, kw_hinge, kw_ishape, kw_linear, kw_live,
+    kw_material, kw_member, kw_model, kw_moment, kw_node, kw_on, kw_other, kw_pinned, kw_point,
+    kw_projected, kw_rectangle, kw_report, kw_roller, kw_roof, kw_rotation, kw_section, kw_self,
+    kw_snow, kw_spring, kw_support, kw_to, kw_transverse, kw_uniform, kw_units, kw_up,
+    kw_weight, kw_wind, kw_x, kw_y> {};
+static_assert(reserved::size == keywords.size(), "ORDER KEYWORDS: grammar and keywords.hpp disagree");
+
+// name      <- !(reserved !'.') name_part ('.' name_part)*      A1, eave.AB, 12, N_3
+struct name_part : plus<word_char> {};
+struct name : seq<not_at<reserved, not_at<one<'.'>>>, name_part, star<one<'.'>, name_part>> {};
+
+// list_sep  <- sp ',' sp_nl
+struct list_sep : seq<sp, one<','>, sp_nl> {};
+struct equals : one<'='> {};
+// end_of_statement <- eol / ';' / &'}' / eof       (after sp)
+struct end_of_statement : sor<eol, one<';'>, at<one<'}'>>, eof> {};
+
+// ---------------------------------------------------------------- numbers and units
+
+// number    <- ([0-9]+ ('.' [0-9]*)? / '.' [0-9]+) ([eE] [+-]? [0-9]+)?
+struct digits : plus<digit> {};
+struct exponent : seq<one<'e', 'E'>, opt<one<'+', '-'>>, digits> {};
+struct number : seq<sor<seq<digits, opt<one<'.'>, star<digit>>>, seq<one<'.'>, digits>>,
+                    opt<exponent>> {};
+
+/// unit_name <- a run of letters that is a unit of the table in src/units.cpp
+struct unit_name {
+    using rule_t = unit_name;
+    using subs_t = type_list<>;
+    template <apply_mode, rewind_mode, template <typename...> class Action,
+              template <typename...> class Control, typename ParseInput, typename... States>
+    static bool match(ParseInput& in, States&&...) {
+        std::size_t n = 0;
+        while (n < in.size(n + 1)) {
+            char c = in.peek_char(n);
+            if (!((c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z'))) break;
+            ++n;
+        }
+        if (n == 0 || firn::find_unit(std::string_view(in.current(), n)) == nullptr) return false;
+        in.bump_in_this_line(n);
+        return true;
+    }
+};
+// unit_atom <- unit_name ('^' '-'? digits / digits)? !word_char     kip, in4, in^4, ft^-1
+struct unit_exponent : sor<seq<one<'^'>, opt<one<'-'>>, digits>, digits> {};
+struct unit_atom : seq<unit_name, opt<unit_exponent>, not_at<word_char>> {};
+// unit      <- unit_atom (sp '*' sp unit_atom / '-' unit_atom / sp '/' sp unit_atom)*
+struct unit_lead : unit_atom {};
+struct unit_times : seq<sp, one<'*'>, sp, unit_atom> {};
+struct unit_hyphen : seq<one<'-'>, unit_atom> {};  // kip-ft, as engineers write it
+struct unit_per : seq<sp, one<'/'>, sp, unit_atom> {};
+struct unit : seq<unit_lead, star<sor<unit_times, unit_hyphen, unit_per>>> {};
+// bad_unit  <- a word after a number that is neither a unit nor a keyword
+struct bad_unit : seq<not_at<reserved>, ranges<'a', 'z', 'A', 'Z', '_'>, star<word_char>> {};
+
+// ---------------------------------------------------------------- expressions
+
+// quantity  <- number (sp unit / (sp bad_unit)?)
+struct quantity : seq<number, sor<seq<sp, unit>, opt<sp, bad_unit>>> {};
+struct expr;
+struct factor;
+// group     <- '(' sp_nl expr sp_nl ')'
+struct paren_open : one<'('> {};
+struct paren_close : one<')'> {};
+struct group : if_must<paren_open, sp_nl, expr, sp_nl, paren_close> {};
+// primary   <- quantity / group
+struct primary : sor<quantity, group> {};
+// factor    <- '-' sp factor / primary
+struct minus_sign : one<'-'> {};
+struct negation : if_must<minus_sign, sp, factor> {};
+struct factor : sor<negation, primary> {};
+// product   <- factor (sp [*/] sp_nl factor)*
+struct product_tail : if_must<seq<sp, one<'*', '/'>>, sp_nl, factor> {};
+struct product : seq<factor, star<product_tail>> {};
+// expr      <- product (sp [+-] sp_nl product)*
+struct sum_tail : if_must<seq<sp, one<'+', '-'>>, sp_nl, product> {};
+struct expr : seq<product, star<sum_tail>> {};
+
+// ---------------------------------------------------------------- statements
+
+// model_stmt  <- 'model' sp title
+struct title : if_must<one<'"'>, star<sor<seq<one<'\\'>, one<'"', '\\'>>, not_one<'"', '\\', '\n', '\r'>>>,
+                       one<'"'>> {};
+struct model_begin : kw_model {};
+struct model_stmt : if_must<model_begin, sp, title> {};
+
+// report_stmt <- 'report' sp 'units' sp report_item (list_sep report_item)*
+// report_item <- ('displacement' sp)? unit
+struct displacement_role : kw_displacement {};
+struct report_item : seq<opt<displacement_role, sp>, unit> {};
+struct report_begin : kw_report {};
+struct report_stmt : if_must<report_begin, sp, kw_units, sp, report_item,
+                             star<if_must<list_sep, report_item>>> {};
+
+// grid_stmt   <- 'grid' sp axis sp grid_line (list_sep grid_line)*
+// grid_line   <- name sp '=' sp expr
+struct grid_axis : sor<kw_x, kw_y> {};
+struct grid_line_name : name {};
+struct grid_line : if_must<grid_line_name, sp, equals, sp, expr> {};
+struct grid_begin : kw_grid {};
+struct grid_stmt : if_must<grid_begin, sp, grid_axis, sp, grid_line,
+                           star<if_must<list_sep, grid_line>>> {};
+
+// node_stmt   <- 'node' sp name sp 'at' sp coordinate (list_sep coordinate)*
+// coordinate  <- ('x' / 'y') sp '=' sp expr / name
+struct coordinate_axis : sor<kw_x, kw_y> {};
+struct axis_coordinate : if_must<coordinate_axis, sp, equals, sp, expr> {};
+struct grid_coordinate : name {};
+struct coordinate : sor<axis_coordinate, grid_coordinate> {};
+struct node_name : name {};
+struct node_begin : kw_node {};
+struct node_stmt : if_must<node_begin, sp, node_name, sp, kw_at, sp, coordinate,
+                           star<if_must<list_sep, coordinate>>> {};
+
+// property    <- name sp '=' sp expr
+struct property_key : name {};
+struct property : if_must<property_key, sp, equals, sp, expr> {};
+struct property_list : seq<property, star<if_must<list_sep, property>>> {};
+
+// material_stmt <- 'material' sp name sp property (list_sep property)*
+struct material_name : name {};
+struct material_begin : kw_material {};
+struct material_stmt : if_must<material_begin, sp, material_name, sp, property_list> {};
+
+// section_stmt <- 'section' sp name sp name sp ',' sp_nl (('rectangle' / 'ishape') sp)? property_list
+struct section_name : name {};
+struct section_material : name {};
+struct section_shape : sor<kw_rectangle, kw_ishape> {};
+struct comma : one<','> {};
+struct section_begin : kw_section {};
+struct section_stmt : if_must<section_begin, sp, section_name, sp, section_material, sp, comma,
+                              sp_nl, opt<section_shape, sp>, property_list> {};
+
+// member_stmt <- 'member' sp name sp 'from' sp name sp 'to' sp name sp 'section' sp name
+//                (sp 'hinge' sp 'at' sp name (list_sep name)*)?
+struct member_name : name {};
+struct member_start : name {};
+struct member_end : name {};
+struct member_section : name {};
+struct hinge_node : name {};
+struct hinges : if_must<kw_hinge, sp, kw_at, sp, hinge_node, star<if_must<list_sep, hinge_node>>> {};
+struct member_begin : kw_member {};
+struct member_stmt : if_must<member_begin, sp, member_name, sp, kw_from, sp, member_start, sp,
+                             kw_to, sp, member_end, sp, kw_section, sp, member_section,
+                             opt<sp, hinges>> {};
+
+// support_stmt <- 'support' sp support_kind sp 'at' sp name (list_sep name)* (sp spring_list)?
+// support_kind <- 'fixed' / 'pinned' / 'roller' (sp 'free' sp axis)? / 'spring'
+// spring_item  <- ('x' / 'y' / 'rotation') sp '=' sp ('fixed' / expr)
+struct support_fixed : kw_fixed {};
+struct support_pinned : kw_pinned {};
+struct roller_axis : sor<kw_x, kw_y> {};
+struct support_roller : seq<kw_roller, opt<sp, if_must<kw_free, sp, roller_axis>>> {};
+struct support_spring : kw_spring {};
+struct support_kind : sor<support_fixed, support_pinned, support_roller, support_spring> {};
+struct support_node : name {};
+struct spring_direction : sor<kw_x, kw_y, kw_rotation> {};
+struct spring_fixed : kw_fixed {};
+struct spring_value : sor<spring_fixed, expr> {};
+struct spring_item : if_must<spring_direction, sp, equals, sp, spring_value> {};
+struct spring_list : seq<spring_item, star<if_must<list_sep, spring_item>>> {};
+struct support_begin : kw_support {};
+struct support_stmt : if_must<support_begin, sp, support_kind, sp, kw_at, sp, support_node,
+                              star<if_must<list_sep, support_node>>, opt<sp, spring_list>> {};
+
+// ---------------------------------------------------------------- loads (inside a case block)
+
+// direction <- 'x' / 'y' / 'up' / 'down' / 'axial' / 'transverse'
+struct direction : sor<kw_x, kw_y, kw_up, kw_down, kw_axial, kw_transverse> {};
+struct projected : kw_projected {};
+struct load_value : expr {};
+struct load_end_value : expr {};
+struct load_member : name {};
+struct load_node : name {};
+struct load_from : expr {};
+struct load_to : expr {};
+struct load_at : expr {};
+struct member_list : seq<load_member, star<if_must<list_sep, load_member>>> {};
+struct node_list : seq<load_node, star<if_must<list_sep, load_node>>> {};
+// part        <- 'from' sp expr sp 'to' sp expr
+struct part : if_must<kw_from, sp, load_from, sp, kw_to, sp, load_to> {};
+// on_members  <- 'on' sp member_list (sp part)?
+struct on_members : if_must<kw_on, sp, member_list, opt<sp, part>> {};
+// on_member_at <- 'on' sp member_list sp 'at' sp expr
+struct on_member_at : if_must<kw_on, sp, member_list, sp, kw_at, sp, load_at> {};
+// at_nodes    <- 'at' sp node_list
+struct at_nodes : if_must<kw_at, sp, node_list> {};
+struct point_target : sor<on_member_at, at_nodes> {};
+struct spread_target : on_members {};
+
+// uniform     <- 'uniform' sp expr sp direction (sp 'projected')? sp on_members
+struct uniform_begin : kw_uniform {};
+struct uniform_load : if_must<uniform_begin, sp, load_value, sp, direction, opt<sp, projected>,
+                              sp, spread_target> {};
+// linear      <- 'linear' sp expr sp 'to' sp expr sp direction (sp 'projected')? sp on_members
+struct linear_begin : kw_linear {};
+struct linear_load : if_must<linear_begin, sp, load_value, sp, kw_to, sp, load_end_value, sp,
+                             direction, opt<sp, projected>, sp, spread_target> {};
+// point       <- 'point' sp expr sp direction sp (on_member_at / at_nodes)
+struct point_begin : kw_point {};
+struct point_load : if_must<point_begin, sp, load_value, sp, direction, sp, point_target> {};
+// moment      <- 'moment' sp expr (sp rotation_sense)? sp (on_member_at / at_nodes)
+struct rotation_sense : sor<kw_clockwise, kw_counterclockwise> {};
+struct moment_begin : kw_moment {};
+struct moment_load : if_must<moment_begin, sp, load_value, opt<sp, rotation_sense>, sp,
+                             point_target> {};
+// self_weight <- 'self' sp 'weight' (sp 'on' sp member_list)?
+struct self_weight_begin : kw_self {};
+struct self_weight_members : if_must<kw_on, sp, member_list> {};
+struct self_weight : if_must<self_weight_begin, sp, kw_weight, opt<sp, self_weight_members>> {};
+
+struct unknown_load : failure {};
+struct load_stmt : sor<uniform_load, linear_load, point_load, moment_load, self_weight,
+                       raise<unknown_load>> {};
+struct load_line : seq<load_stmt, sp, must<end_of_statement>> {};
+
+// ---------------------------------------------------------------- error recovery
+
+/// Skips the rest of a statement after an error inside a block: up to a line
+/// break, ';' or '}' (which is left for the block).
+struct skip_in_block {
+    using rule_t = skip_in_block;
+    using subs_t = type_list<>;
+    template <apply_mode, rewind_mode, template <typename...> class Action,
+              template <typename...> class Control, typename ParseInput, typename... States>
+    static bool match(ParseInput& in, States&&...) {
+        while (!in.empty() && in.peek_char() != '\n' && in.peek_char() != ';' &&
+               in.peek_char() != '}') {
+            in.bump_in_this_line(1);
+        }
+        if (!in.empty() && in.peek_char() != '}') in.bump(1);
+        return true;
+    }
+};
+
+/// Skips the rest of a top-level statement after an error: to the end of the
+/// line, and through a whole '{ ... }' block if one opens on it, so that a
+/// broken case header does not turn its loads into a cascade of errors.
+struct skip_statement {
+    using rule_t = skip_statement;
+    using subs_t = type_list<>;
+    template <apply_mode, rewind_mode, template <typename...> class Action,
+              template <typename...> class Control, typename ParseInput, typename... States>
+    static bool match(ParseInput& in, States&&...) {
+        std::size_t depth = 0;
+        while (!in.empty()) {
+            char c = in.peek_char();
+            in.bump(1);
+            if (c == '#') {
+                while (!in.empty() && in.peek_char() != '\n') in.bump(1);
+            } else if (c == '{') {
+                ++depth;
+            } else if (c == '}' && depth > 0) {
+                --depth;
+            } else if (c == '\n' && depth == 0) {
+                break;
+            }
+        }
+        return true;
+    }
+};
+
+/// recover<R, Skip>: matches R; if R raises a parse error, the error is handed
+/// to the state's `recover_from` (which records it), the input is moved to the
+/// error and Skip consumes the rest of the broken statement. Parsing then goes
+/// on, so independent errors in one file are all reported.
+template <typename R, typename Skip>
+struct recover {
+    using rule_t = recover;
+    using subs_t = type_list<R, Skip>;
+    template <apply_mode A, rewind_mode M, template <typename...> class Action,
+              template <typename...> class Control, typename ParseInput, typename State>
+    static bool match(ParseInput& in, State& state) {
+        const char* start = in.current();
+        try {
+            return Control<R>::template match<A, M, Action, Control>(in, state);
+        } catch (const parse_error& e) {
+            const char* error_at = in.begin() + e.positions().front().byte;
+            state.recover_from(e, error_at, std::is_same_v<Skip, skip_in_block>);
+            in.iterator() = error_at;
+            (void)Control<Skip>::template match<apply_mode::nothing, rewind_mode::dontcare, Action,
+                                                Control>(in, state);
+            if (in.current() == start && !in.empty()) in.bump(1);  // always make progress
+            return true;
+        }
+    }
+};
+
+// ---------------------------------------------------------------- blocks and file
+
+// case_stmt   <- 'case' sp name sp case_kind sp '{' sp_nl (load_line sp_nl)* '}'
+// case_kind   <- 'dead' / 'live' / 'roof' sp 'live' / 'snow' / 'wind' / 'other'
+struct kind_dead : kw_dead {};
+struct kind_live : kw_live {};
+struct kind_roof_live : if_must<kw_roof, sp, kw_live> {};
+struct kind_snow : kw_snow {};
+struct kind_wind : kw_wind {};
+struct kind_other : kw_other {};
+struct case_kind : sor<kind_dead, kind_live, kind_roof_live, kind_snow, kind_wind, kind_other> {};
+struct case_name : name {};
+struct block_open : one<'{'> {};
+struct block_close : one<'}'> {};
+struct block_item : seq<not_at<sor<block_close, eof>>, recover<load_line, skip_in_block>, sp_nl> {};
+struct case_begin : kw_case {};
+struct case_stmt : if_must<case_begin, sp, case_name, sp, case_kind, sp, block_open, sp_nl,
+                           star<block_item>, block_close> {};
+
+struct unknown_statement : failure {};
+struct statement : sor<model_stmt, report_stmt, grid_stmt, node_stmt, material_stmt, section_stmt,
+                       member_stmt, support_stmt, case_stmt, raise<unknown_statement>> {};
+struct statement_line : seq<statement, sp, must<end_of_statement>> {};
+struct top_item : seq<not_at<eof>, recover<statement_line, skip_statement>, sp_nl> {};
+// file        <- sp_nl top_item* eof
+struct file : seq<opt<utf8::bom>, sp_nl, star<top_item>, eof> {};
+
+// clang-format on
+
+}  // namespace firn::grammar
+
+namespace tao::pegtl {
+template <typename Name>
+struct analyze_traits<Name, firn::grammar::unit_name> : analyze_any_traits<> {};
+template <typename Name>
+struct analyze_traits<Name, firn::grammar::skip_in_block> : analyze_opt_traits<> {};
+template <typename Name>
+struct analyze_traits<Name, firn::grammar::skip_statement> : analyze_opt_traits<> {};
+template <typename Name, typename R, typename Skip>
+struct analyze_traits<Name, firn::grammar::recover<R, Skip>> : analyze_seq_traits<R> {};
+}  // namespace tao::pegtl

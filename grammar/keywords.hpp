@@ -1,0 +1,21 @@
+// The reserved words of the firn language, in one list (ORDER KEYWORDS).
+// A keyword cannot name a node, member, grid line or anything else the user
+// names. grammar.hpp defines one rule per word; a test checks that the two
+// agree, and issue-tracked editor highlighters are checked against this list.
+#pragma once
+
+#include <array>
+#include <string_view>
+
+namespace firn::grammar {
+
+// ORDER KEYWORDS
+inline constexpr std::array<std::string_view, 45> keywords{
+    "at", "axial", "case", "clockwise", "counterclockwise", "dead", "displacement", "down",
+    "fixed", "free", "from", "grid", "hinge", "ishape", "linear", "live", "material",
+    "member", "model", "moment", "node", "on", "other", "pinned", "point", "projected",
+    "rectangle", "report", "roller", "roof", "rotation", "section", "self", "snow", "spring",
+    "support", "to", "transverse", "uniform", "units", "up", "weight", "wind", "x", "y",
+};
+
+}  // namespace firn::grammar

@@ -1,0 +1,41 @@
+// number_format: fixed-precision numbers without locale or -0.
+#include "number_format.hpp"
+
+#include <array>
+#include <charconv>
+#include <cmath>
+#include <string_view>
+
+namespace firn {
+
+void append_fixed(std::string& out, double value, int decimals) {
+    std::array<char, 64> buffer;
+    auto [end, ec] = std::to_chars(buffer.data(), buffer.data() + buffer.size(), value,
+                                   std::chars_format::fixed, decimals);
+    if (ec != std::errc()) {  // only for absurd magnitudes; keep output readable
+        end = std::to_chars(buffer.data(), buffer.data() + buffer.size(), value).ptr;
+    }
+    std::string_view text(buffer.data(), static_cast<std::size_t>(end - buffer.data()));
+    if (text.front() == '-' && text.find_first_not_of("-0.") == std::string_view::npos) {
+        text.remove_prefix(1);  // a value that rounds to zero is shown unsigned
+    }
+    out.append(text);
+}
+
+double round_to(double value, int decimals) {
+    double scale = std::pow(10.0, decimals);
+    double r = std::round(value * scale) / scale;
+    return r == 0.0 ? 0.0 : r;
+}
+
+void append_right(std::string& out, std::string_view text, std::size_t width) {
+    if (text.size() < width) out.append(width - text.size(), ' ');
+    out.append(text);
+}
+
+void append_left(std::string& out, std::string_view text, std::size_t width) {
+    out.append(text);
+    if (text.size() < width) out.append(width - text.size(), ' ');
+}
+
+}  // namespace firn

@@ -1,0 +1,859 @@
+// parse: PEGTL actions that build the syntax tree, and error recovery.
+//
+// Actions fill a draft of the statement being read; the draft is committed
+// when the statement matches, and thrown away when an error is raised inside
+// it. The grammar is written so that a rule with an action is never
+// backtracked over once it has matched (keywords are followed by must<>).
+#include "parse.hpp"
+
+#include <algorithm>
+#include <array>
+#include <charconv>
+#include <cmath>
+#include <fmt/format.h>
+#include <limits>
+
+#include "grammar/errors.hpp"
+#include "grammar/grammar.hpp"
+
+namespace firn {
+namespace {
+
+namespace g = grammar;
+namespace pegtl = tao::pegtl;
+using syntax::Expr;
+
+/// Expressions deeper than this are refused, so hostile input cannot
+/// exhaust the stack.
+constexpr int kMaxNesting = 100;
+/// After this many syntax errors the rest of the file is not read.
+constexpr std::size_t kMaxSyntaxErrors = 50;
+
+struct TooManyErrors {};
+
+bool is_keyword(std::string_view word) {
+    return std::find(g::keywords.begin(), g::keywords.end(), word) != g::keywords.end();
+}
+
+bool is_word_char(char c) {
+    return (c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z') || (c >= '0' && c <= '9') || c == '_';
+}
+
+/// Everything the actions build: the tree and the draft of the current statement.
+struct Builder {
+    Builder(const SourceMap& s, FileId f, Diagnostics& d)
+        : sources(s), file(f), base(s.file(f).text.data()), diagnostics(d) {
+        tree.file = f;
+    }
+
+    const SourceMap& sources;
+    FileId file;
+    const char* base;
+    Diagnostics& diagnostics;
+    syntax::Tree tree;
+
+    std::optional<syntax::Statement> statement;
+    std::optional<syntax::LoadDecl> load;
+    const char* load_begin = nullptr;
+    std::vector<Expr> exprs;
+    std::vector<syntax::UnitFactor> unit;
+    std::optional<syntax::Name> pending_name;
+    std::optional<syntax::Axis> pending_axis;
+    std::optional<syntax::Name> pending_role;
+    bool pending_spring_fixed = false;
+    int nesting = 0;
+    std::uint32_t block_line = 0;
+    std::size_t syntax_errors = 0;
+    std::uint32_t next_comment_offset = 0;
+
+    std::uint32_t offset(const char* p) const { return static_cast<std::uint32_t>(p - base); }
+    SourceRange range(const char* begin, const char* end) const {
+        return SourceRange{file, sources.position(file, offset(begin)),
+                           sources.position(file, offset(end))};
+    }
+    template <typename Input>
+    SourceRange range(const Input& in) const {
+        return range(in.begin(), in.end());
+    }
+    template <typename Input>
+    syntax::Name name(const Input& in) const {
+        return syntax::Name{in.string(), range(in)};
+    }
+    Expr pop_expr() {
+        Expr e = std::move(exprs.back());
+        exprs.pop_back();
+        return e;
+    }
+    template <typename T>
+    T& current() {
+        return std::get<T>(statement->node);
+    }
+    template <typename T, typename Input>
+    void begin(const Input& in) {
+        statement = syntax::Statement{T{}, range(in)};
+    }
+    template <typename Input>
+    void enter_nesting(const Input& in) {
+        if (++nesting > kMaxNesting) {
+            throw pegtl::parse_error(
+                fmt::format("expressions nest too deeply (more than {} levels)", kMaxNesting), in);
+        }
+    }
+
+    void recover_from(const pegtl::parse_error& e, const char* at, bool in_block);
+    std::string found_at(const char* at, std::size_t& width) const;
+};
+
+/// "found 'x'", "found the end of the line", ... for the text at `at`.
+std::string Builder::found_at(const char* at, std::size_t& width) const {
+    const char* end = sources.file(file).text.data() + sources.file(file).text.size();
+    width = 1;
+    if (at >= end) return "the end of the file";
+    if (*at == '\n' || *at == '\r') return "the end of the line";
+    if (is_word_char(*at)) {
+        const char* p = at;
+        while (p < end && p - at < 64 && (is_word_char(*p) || *p == '.')) ++p;
+        std::string word(at, p);
+        width = word.size();
+        return is_keyword(word) ? fmt::format("'{}' (a reserved word)", word)
+                                : fmt::format("'{}'", word);
+    }
+    unsigned char c = static_cast<unsigned char>(*at);
+    if (c < 0x20 || c >= 0x7f) return fmt::format("a character that is not allowed here (byte 0x{:02X})", c);
+    return fmt::format("'{}'", *at);
+}
+
+/// True if the text at `at` begins with a keyword that starts a top-level statement.
+bool starts_statement(const char* at, const char* end) {
+    static constexpr std::array<std::string_view, 9> words{
+        "model", "report", "grid", "node", "material", "section", "member", "support", "case"};
+    for (std::string_view w : words) {
+        if (static_cast<std::size_t>(end - at) < w.size()) continue;
+        bool word_ends = static_cast<std::size_t>(end - at) == w.size() || !is_word_char(at[w.size()]);
+        if (std::string_view(at, w.size()) == w && word_ends) return true;
+    }
+    return false;
+}
+
+/// Keywords a message names, for a "did you mean" on a misspelt keyword.
+std::vector<std::string> keywords_in(std::string_view message) {
+    std::vector<std::string> found;
+    std::size_t i = 0;
+    while (i < message.size()) {
+        std::size_t j = i;
+        while (j < message.size() && message[j] >= 'a' && message[j] <= 'z') ++j;
+        if (j > i && is_keyword(message.substr(i, j - i))) found.emplace_back(message.substr(i, j - i));
+        i = j + 1;
+    }
+    return found;
+}
+
+void Builder::recover_from(const pegtl::parse_error& e, const char* at, bool in_block) {
+    std::size_t width = 1;
+    std::string found = found_at(at, width);
+    std::string message(e.message());
+    if (message.rfind("parse error matching", 0) == 0) message = "this is not valid here";
+    if (message == g::errors::message<g::block_close> && block_line > 0) {
+        message += fmt::format(" opened at line {}", block_line);
+    }
+    message += ", found " + found;
+    if (found.front() == '\'' && found.find("reserved") == std::string::npos) {
+        message += did_you_mean(found.substr(1, width), keywords_in(e.message()));
+    }
+    if (in_block && block_line > 0 && starts_statement(at, base + sources.file(file).text.size())) {
+        message += fmt::format(" (is the '}}' of the case block opened at line {} missing?)", block_line);
+    }
+    const char* stop = std::min(at + width, base + sources.file(file).text.size());
+    diagnostics.error(range(at, stop), std::move(message));
+
+    exprs.clear();
+    unit.clear();
+    pending_name.reset();
+    pending_axis.reset();
+    pending_role.reset();
+    nesting = 0;
+    load.reset();
+    if (!in_block) statement.reset();
+    if (++syntax_errors >= kMaxSyntaxErrors) throw TooManyErrors{};
+}
+
+double number_value(std::string_view text) {
+    double value = 0.0;
+    auto [end, ec] = std::from_chars(text.data(), text.data() + text.size(), value);
+    if (ec == std::errc::result_out_of_range) {
+        // Too small rounds to zero; too large stays infinite and `resolve` says so.
+        bool tiny = text.find("e-") != std::string_view::npos || text.find("E-") != std::string_view::npos;
+        return tiny ? 0.0 : std::numeric_limits<double>::infinity();
+    }
+    return value;
+}
+
+/// One unit factor from the text of unit_lead/unit_times/unit_hyphen/unit_per.
+template <typename Input>
+syntax::UnitFactor unit_factor(const Input& in, const Builder& b, bool divides) {
+    const char* p = in.begin();
+    while (!((*p >= 'a' && *p <= 'z') || (*p >= 'A' && *p <= 'Z'))) ++p;
+    const char* name_end = p;
+    while (name_end < in.end() && ((*name_end >= 'a' && *name_end <= 'z') ||
+                                   (*name_end >= 'A' && *name_end <= 'Z'))) {
+        ++name_end;
+    }
+    syntax::UnitFactor f;
+    f.name.assign(p, name_end);
+    f.divides = divides;
+    const char* q = name_end;
+    if (q < in.end() && *q == '^') ++q;
+    if (q < in.end()) {
+        int exponent = 1;
+        std::from_chars(q, in.end(), exponent);
+        f.exponent = exponent;
+    }
+    f.where = b.range(p, in.end());
+    return f;
+}
+
+template <typename Rule>
+struct action : pegtl::nothing<Rule> {};
+
+// ---------------------------------------------------------------- comments, numbers, units
+
+template <>
+struct action<g::comment> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        // Backtracking can read a comment twice; keep each once.
+        if (b.offset(in.begin()) < b.next_comment_offset) return;
+        b.next_comment_offset = b.offset(in.end());
+        b.tree.comments.push_back(syntax::Comment{in.string(), b.range(in)});
+    }
+};
+
+template <>
+struct action<g::number> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        Expr e;
+        e.literal = in.string();
+        e.value = number_value(e.literal);
+        e.where = b.range(in);
+        b.exprs.push_back(std::move(e));
+    }
+};
+
+template <>
+struct action<g::unit_lead> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.unit.push_back(unit_factor(in, b, false));
+    }
+};
+template <>
+struct action<g::unit_times> : action<g::unit_lead> {};
+template <>
+struct action<g::unit_hyphen> : action<g::unit_lead> {};
+template <>
+struct action<g::unit_per> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.unit.push_back(unit_factor(in, b, true));
+    }
+};
+
+template <>
+struct action<g::quantity> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.exprs.back().unit = std::move(b.unit);
+        b.unit.clear();
+        b.exprs.back().where = b.range(in);
+    }
+};
+
+template <>
+struct action<g::bad_unit> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.exprs.back().bad_unit = b.name(in);
+    }
+};
+
+// ---------------------------------------------------------------- expressions
+
+template <>
+struct action<g::paren_open> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.enter_nesting(in);
+    }
+};
+template <>
+struct action<g::minus_sign> : action<g::paren_open> {};
+
+Expr unary(Expr::Kind kind, Expr operand, SourceRange where) {
+    Expr e;
+    e.kind = kind;
+    e.rhs = std::make_unique<Expr>(std::move(operand));
+    e.where = where;
+    return e;
+}
+
+template <>
+struct action<g::group> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.exprs.push_back(unary(Expr::Kind::group, b.pop_expr(), b.range(in)));
+        --b.nesting;
+    }
+};
+
+template <>
+struct action<g::negation> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.exprs.push_back(unary(Expr::Kind::negate, b.pop_expr(), b.range(in)));
+        --b.nesting;
+    }
+};
+
+/// Folds the two topmost expressions into one binary expression.
+template <typename Input>
+void fold_binary(const Input& in, Builder& b) {
+    std::string_view text(in.begin(), in.size());
+    char op = text[text.find_first_not_of(" \t")];
+    Expr rhs = b.pop_expr();
+    Expr lhs = b.pop_expr();
+    Expr e;
+    e.kind = op == '*'   ? Expr::Kind::multiply
+             : op == '/' ? Expr::Kind::divide
+             : op == '+' ? Expr::Kind::add
+                         : Expr::Kind::subtract;
+    e.where = SourceRange{lhs.where.file, lhs.where.begin, rhs.where.end};
+    e.lhs = std::make_unique<Expr>(std::move(lhs));
+    e.rhs = std::make_unique<Expr>(std::move(rhs));
+    b.exprs.push_back(std::move(e));
+}
+
+template <>
+struct action<g::product_tail> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        fold_binary(in, b);
+    }
+};
+template <>
+struct action<g::sum_tail> : action<g::product_tail> {};
+
+
+// ---------------------------------------------------------------- statements
+
+/// Commits the statement draft once the whole statement has matched.
+template <>
+struct action<g::statement> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        if (!b.statement) return;
+        b.statement->where = b.range(b.base + b.statement->where.begin.offset, in.end());
+        b.tree.statements.push_back(std::move(*b.statement));
+        b.statement.reset();
+    }
+};
+
+template <>
+struct action<g::model_begin> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.begin<syntax::ModelTitle>(in);
+    }
+};
+
+template <>
+struct action<g::title> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        std::string text;
+        for (const char* p = in.begin() + 1; p + 1 < in.end(); ++p) {
+            if (*p == '\\') ++p;
+            text += *p;
+        }
+        b.current<syntax::ModelTitle>().title = std::move(text);
+    }
+};
+
+template <>
+struct action<g::report_begin> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.begin<syntax::ReportUnits>(in);
+    }
+};
+
+template <>
+struct action<g::displacement_role> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.pending_role = b.name(in);
+    }
+};
+
+template <>
+struct action<g::report_item> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::ReportUnits>().items.push_back(
+            syntax::ReportUnits::Item{std::move(b.pending_role), std::move(b.unit), b.range(in)});
+        b.pending_role.reset();
+        b.unit.clear();
+    }
+};
+
+syntax::Axis axis_of(std::string_view text) {
+    return text == "x" ? syntax::Axis::x : syntax::Axis::y;
+}
+
+template <>
+struct action<g::grid_begin> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.begin<syntax::Grid>(in);
+    }
+};
+
+template <>
+struct action<g::grid_axis> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::Grid>().axis = axis_of(in.string_view());
+    }
+};
+
+template <>
+struct action<g::grid_line_name> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.pending_name = b.name(in);
+    }
+};
+template <>
+struct action<g::property_key> : action<g::grid_line_name> {};
+template <>
+struct action<g::spring_direction> : action<g::grid_line_name> {};
+
+template <>
+struct action<g::grid_line> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.current<syntax::Grid>().lines.push_back(
+            syntax::Grid::Line{std::move(*b.pending_name), b.pop_expr()});
+    }
+};
+
+template <>
+struct action<g::node_begin> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.begin<syntax::NodeDecl>(in);
+    }
+};
+
+template <>
+struct action<g::node_name> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::NodeDecl>().name = b.name(in);
+    }
+};
+
+template <>
+struct action<g::coordinate_axis> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.pending_axis = axis_of(in.string_view());
+    }
+};
+
+template <>
+struct action<g::axis_coordinate> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        syntax::NodeDecl::Coordinate c;
+        c.axis = b.pending_axis;
+        c.value = b.pop_expr();
+        c.where = b.range(in);
+        b.current<syntax::NodeDecl>().coordinates.push_back(std::move(c));
+    }
+};
+
+template <>
+struct action<g::grid_coordinate> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        syntax::NodeDecl::Coordinate c;
+        c.grid_line = b.name(in);
+        c.where = b.range(in);
+        b.current<syntax::NodeDecl>().coordinates.push_back(std::move(c));
+    }
+};
+
+template <>
+struct action<g::material_begin> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.begin<syntax::MaterialDecl>(in);
+    }
+};
+
+template <>
+struct action<g::material_name> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::MaterialDecl>().name = b.name(in);
+    }
+};
+
+template <>
+struct action<g::property> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        syntax::Property p{std::move(*b.pending_name), b.pop_expr()};
+        if (auto* m = std::get_if<syntax::MaterialDecl>(&b.statement->node)) {
+            m->properties.push_back(std::move(p));
+        } else {
+            b.current<syntax::SectionDecl>().properties.push_back(std::move(p));
+        }
+    }
+};
+
+template <>
+struct action<g::section_begin> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.begin<syntax::SectionDecl>(in);
+    }
+};
+
+template <>
+struct action<g::section_name> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::SectionDecl>().name = b.name(in);
+    }
+};
+
+template <>
+struct action<g::section_material> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::SectionDecl>().material = b.name(in);
+    }
+};
+
+template <>
+struct action<g::section_shape> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        auto& s = b.current<syntax::SectionDecl>();
+        s.shape = in.string_view() == "rectangle" ? syntax::SectionDecl::Shape::rectangle
+                                                  : syntax::SectionDecl::Shape::ishape;
+        s.shape_where = b.range(in);
+    }
+};
+
+template <>
+struct action<g::member_begin> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.begin<syntax::MemberDecl>(in);
+    }
+};
+
+template <>
+struct action<g::member_name> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::MemberDecl>().name = b.name(in);
+    }
+};
+
+template <>
+struct action<g::member_start> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::MemberDecl>().start = b.name(in);
+    }
+};
+
+template <>
+struct action<g::member_end> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::MemberDecl>().end = b.name(in);
+    }
+};
+
+template <>
+struct action<g::member_section> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::MemberDecl>().section = b.name(in);
+    }
+};
+
+template <>
+struct action<g::hinge_node> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::MemberDecl>().hinges.push_back(b.name(in));
+    }
+};
+
+template <>
+struct action<g::support_begin> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.begin<syntax::SupportDecl>(in);
+    }
+};
+
+template <syntax::SupportDecl::Kind Kind>
+struct set_support_kind {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.current<syntax::SupportDecl>().kind = Kind;
+    }
+};
+template <>
+struct action<g::support_fixed> : set_support_kind<syntax::SupportDecl::Kind::fixed> {};
+template <>
+struct action<g::support_pinned> : set_support_kind<syntax::SupportDecl::Kind::pinned> {};
+template <>
+struct action<g::support_roller> : set_support_kind<syntax::SupportDecl::Kind::roller> {};
+template <>
+struct action<g::support_spring> : set_support_kind<syntax::SupportDecl::Kind::spring> {};
+
+template <>
+struct action<g::roller_axis> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::SupportDecl>().roller_free = axis_of(in.string_view());
+    }
+};
+
+template <>
+struct action<g::support_node> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::SupportDecl>().nodes.push_back(b.name(in));
+    }
+};
+
+template <>
+struct action<g::spring_fixed> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.pending_spring_fixed = true;
+    }
+};
+
+template <>
+struct action<g::spring_item> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        syntax::SupportDecl::Spring spring{std::move(*b.pending_name), std::nullopt};
+        if (!b.pending_spring_fixed) spring.stiffness = b.pop_expr();
+        b.pending_spring_fixed = false;
+        b.current<syntax::SupportDecl>().springs.push_back(std::move(spring));
+    }
+};
+
+// ---------------------------------------------------------------- load cases
+
+template <>
+struct action<g::case_begin> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.begin<syntax::CaseDecl>(in);
+    }
+};
+
+template <>
+struct action<g::case_name> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::CaseDecl>().name = b.name(in);
+    }
+};
+
+template <syntax::CaseDecl::Kind Kind>
+struct set_case_kind {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.current<syntax::CaseDecl>().kind = Kind;
+    }
+};
+template <>
+struct action<g::kind_dead> : set_case_kind<syntax::CaseDecl::Kind::dead> {};
+template <>
+struct action<g::kind_live> : set_case_kind<syntax::CaseDecl::Kind::live> {};
+template <>
+struct action<g::kind_roof_live> : set_case_kind<syntax::CaseDecl::Kind::roof_live> {};
+template <>
+struct action<g::kind_snow> : set_case_kind<syntax::CaseDecl::Kind::snow> {};
+template <>
+struct action<g::kind_wind> : set_case_kind<syntax::CaseDecl::Kind::wind> {};
+template <>
+struct action<g::kind_other> : set_case_kind<syntax::CaseDecl::Kind::other> {};
+
+template <>
+struct action<g::block_open> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.block_line = b.range(in).begin.line;
+    }
+};
+
+template <>
+struct action<g::block_close> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.block_line = 0;
+    }
+};
+
+template <syntax::LoadDecl::Form Form>
+struct begin_load {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.load = syntax::LoadDecl{};
+        b.load->form = Form;
+        b.load_begin = in.begin();
+    }
+};
+template <>
+struct action<g::uniform_begin> : begin_load<syntax::LoadDecl::Form::uniform> {};
+template <>
+struct action<g::linear_begin> : begin_load<syntax::LoadDecl::Form::linear> {};
+template <>
+struct action<g::point_begin> : begin_load<syntax::LoadDecl::Form::point> {};
+template <>
+struct action<g::moment_begin> : begin_load<syntax::LoadDecl::Form::moment> {};
+template <>
+struct action<g::self_weight_begin> : begin_load<syntax::LoadDecl::Form::self_weight> {};
+
+template <>
+struct action<g::load_value> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.load->value = b.pop_expr();
+    }
+};
+
+template <>
+struct action<g::load_end_value> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.load->end_value = b.pop_expr();
+    }
+};
+
+template <>
+struct action<g::load_from> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.load->from = b.pop_expr();
+    }
+};
+
+template <>
+struct action<g::load_to> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.load->to = b.pop_expr();
+    }
+};
+
+template <>
+struct action<g::load_at> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.load->at = b.pop_expr();
+    }
+};
+
+template <>
+struct action<g::direction> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        using D = syntax::LoadDecl::Direction;
+        std::string_view w = in.string_view();
+        b.load->direction = w == "x"      ? D::x
+                            : w == "y"    ? D::y
+                            : w == "up"   ? D::up
+                            : w == "down" ? D::down
+                            : w == "axial" ? D::axial
+                                           : D::transverse;
+        b.load->direction_where = b.range(in);
+    }
+};
+
+template <>
+struct action<g::projected> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.load->projected = true;
+    }
+};
+
+template <>
+struct action<g::rotation_sense> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.load->clockwise = in.string_view() == "clockwise";
+    }
+};
+
+template <>
+struct action<g::at_nodes> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.load->on_members = false;
+    }
+};
+
+template <>
+struct action<g::load_member> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.load->targets.push_back(b.name(in));
+    }
+};
+template <>
+struct action<g::load_node> : action<g::load_member> {};
+
+template <>
+struct action<g::load_stmt> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        auto& c = b.current<syntax::CaseDecl>();
+        c.loads.push_back(std::move(*b.load));
+        c.load_where.push_back(b.range(b.load_begin, in.end()));
+        b.load.reset();
+    }
+};
+
+}  // namespace
+
+syntax::Tree parse(const SourceMap& sources, FileId file, Diagnostics& diagnostics) {
+    const SourceFile& source = sources.file(file);
+    Builder b(sources, file, diagnostics);
+    pegtl::memory_input<pegtl::tracking_mode::lazy, pegtl::eol::lf_crlf> in(
+        source.text.data(), source.text.data() + source.text.size(), source.name);
+    try {
+        pegtl::parse<g::file, action, g::control>(in, b);
+    } catch (const TooManyErrors&) {
+        diagnostics.error_without_place(fmt::format(
+            "{}: too many syntax errors; the rest of the file was not read", source.name));
+    }
+    return std::move(b.tree);
+}
+
+}  // namespace firn
