@@ -8,18 +8,21 @@
 
 namespace firn {
 
-void append_fixed(std::string& out, double value, int decimals) {
-    std::array<char, 64> buffer;
-    auto [end, ec] = std::to_chars(buffer.data(), buffer.data() + buffer.size(), value,
-                                   std::chars_format::fixed, decimals);
+std::string_view format_fixed(char* buffer, double value, int decimals) {
+    auto [end, ec] = std::to_chars(buffer, buffer + kNumberBuffer, value, std::chars_format::fixed, decimals);
     if (ec != std::errc()) {  // only for absurd magnitudes; keep output readable
-        end = std::to_chars(buffer.data(), buffer.data() + buffer.size(), value).ptr;
+        end = std::to_chars(buffer, buffer + kNumberBuffer, value).ptr;
     }
-    std::string_view text(buffer.data(), static_cast<std::size_t>(end - buffer.data()));
+    std::string_view text(buffer, static_cast<std::size_t>(end - buffer));
     if (text.front() == '-' && text.find_first_not_of("-0.") == std::string_view::npos) {
         text.remove_prefix(1);  // a value that rounds to zero is shown unsigned
     }
-    out.append(text);
+    return text;
+}
+
+void append_fixed(std::string& out, double value, int decimals) {
+    std::array<char, kNumberBuffer> buffer;
+    out.append(format_fixed(buffer.data(), value, decimals));
 }
 
 double round_to(double value, int decimals) {

@@ -1,9 +1,18 @@
 // number_format: fast, locale-free, fixed-precision numbers for reports.
 #pragma once
 
+#include <cstddef>
 #include <string>
+#include <string_view>
 
 namespace firn {
+
+/// Room for any number format_fixed writes.
+inline constexpr std::size_t kNumberBuffer = 64;
+
+/// Writes `value` with exactly `decimals` decimals into `buffer` (kNumberBuffer
+/// chars) and returns its text ("-0.000" is written "0.000").
+std::string_view format_fixed(char* buffer, double value, int decimals);
 
 /// Appends `value` with exactly `decimals` decimals ("-0.000" is written "0.000").
 /// Uses std::to_chars: independent of locale and faster than printf-style formatting.

@@ -2,6 +2,7 @@
 // sections, members, supports). Load cases are in resolve_loads.cpp.
 #include "resolve.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <fmt/format.h>
 #include <map>

@@ -1,5 +1,6 @@
 // resolve_loads: load cases and their loads, checked against the members
 // and nodes they act on.
+#include <algorithm>
 #include <cmath>
 #include <fmt/format.h>
 

@@ -1,0 +1,21 @@
+// commands: the subcommands of the firn executable, one file each (cmd_*.cpp).
+#pragma once
+
+namespace CLI {
+class App;
+}
+
+namespace firn {
+
+/// Exit statuses of the firn executable.
+enum ExitStatus : int {
+    exit_ok = 0,
+    exit_check_failed = 1,  ///< an expectation or baseline comparison failed
+    exit_model_error = 2,   ///< the model (or the command line) has errors
+    exit_internal = 3,      ///< a bug in firn
+};
+
+/// `firn run MODEL`: analyse a model and print its report. Sets `status` when run.
+void add_run_command(CLI::App& app, int& status);
+
+}  // namespace firn

@@ -1,0 +1,74 @@
+// driver: parse -> resolve -> loads -> solve -> results.
+#include "driver.hpp"
+
+#include <chrono>
+
+#include "file_io.hpp"
+#include "parse.hpp"
+#include "resolve.hpp"
+
+namespace firn {
+namespace {
+
+class Stopwatch {
+public:
+    double lap() {
+        auto now = std::chrono::steady_clock::now();
+        double seconds = std::chrono::duration<double>(now - last_).count();
+        last_ = now;
+        return seconds;
+    }
+
+private:
+    std::chrono::steady_clock::time_point last_ = std::chrono::steady_clock::now();
+};
+
+}  // namespace
+
+Analysis analyse_text(std::string name, std::string text, PhaseTimes* times) {
+    PhaseTimes local;
+    PhaseTimes& t = times != nullptr ? *times : local;
+    Analysis a;
+    Stopwatch clock;
+    a.model.source_name = name;
+    FileId file = a.sources.add(std::move(name), std::move(text));
+    std::vector<syntax::Tree> trees;
+    trees.push_back(parse(a.sources, file, a.diagnostics));
+    t.parse = clock.lap();
+    if (a.diagnostics.has_errors()) return a;
+
+    std::string source_name = std::move(a.model.source_name);
+    a.model = resolve(trees, a.diagnostics);
+    a.model.source_name = std::move(source_name);
+    t.resolve = clock.lap();
+    if (a.diagnostics.has_errors()) return a;
+
+    a.loads = derive_loads(a.model, a.diagnostics);
+    t.loads = clock.lap();
+    if (a.diagnostics.has_errors()) return a;
+
+    SolveTimings st;
+    a.solution = solve(a.model, a.loads, a.diagnostics, &st);
+    t.assemble = st.assemble;
+    t.factor = st.factor;
+    t.solve = st.solve;
+    clock.lap();
+    if (a.diagnostics.has_errors() || !a.solution.ok) return a;
+
+    a.results = compute_results(a.model, a.loads, a.solution);
+    t.results = clock.lap();
+    a.ok = true;
+    return a;
+}
+
+Analysis analyse_file(const std::string& path, PhaseTimes* times) {
+    std::string text, error;
+    if (!read_file(path, text, error)) {
+        Analysis a;
+        a.diagnostics.error_without_place(error);
+        return a;
+    }
+    return analyse_text(path, std::move(text), times);
+}
+
+}  // namespace firn

@@ -1,0 +1,40 @@
+// driver: runs the stages in order and stops after a stage that reported
+// errors. The subcommands and the tests call this; it knows nothing of argv.
+#pragma once
+
+#include <string>
+
+#include "diag.hpp"
+#include "loads.hpp"
+#include "model.hpp"
+#include "results.hpp"
+#include "solve.hpp"
+
+namespace firn {
+
+/// Wall-clock seconds per phase, for the bench target (never in reports).
+struct PhaseTimes {
+    double parse = 0.0, resolve = 0.0, loads = 0.0;
+    double assemble = 0.0, factor = 0.0, solve = 0.0;
+    double results = 0.0;
+};
+
+/// Everything one run of the pipeline produced. `ok` is false when a stage
+/// reported errors; the stages after it did not run.
+struct Analysis {
+    SourceMap sources;
+    Diagnostics diagnostics;
+    Model model;
+    LoadSet loads;
+    Solution solution;
+    Results results;
+    bool ok = false;
+};
+
+/// Parses, resolves and analyses a model held in memory, named `name` in messages.
+Analysis analyse_text(std::string name, std::string text, PhaseTimes* times = nullptr);
+
+/// The same for a model file; a file that cannot be read is reported as an error.
+Analysis analyse_file(const std::string& path, PhaseTimes* times = nullptr);
+
+}  // namespace firn

@@ -1,0 +1,130 @@
+// report_json: the machine-readable twin of the text report. Values are in the
+// display units named under "units", rounded two decimals finer than the text
+// report so that output is stable across machines yet loses nothing a reader needs.
+#include <nlohmann/json.hpp>
+
+#include "number_format.hpp"
+#include "report.hpp"
+
+namespace firn {
+namespace {
+
+using Json = nlohmann::ordered_json;
+
+/// Bumped whenever a key changes meaning or goes away.
+constexpr int kJsonFormat = 1;
+
+double shown(double si_value, const DisplayUnit& unit) {
+    return round_to(unit.from_si(si_value), unit.decimals + 2);
+}
+
+Json units_json(const DisplayUnits& u) {
+    return Json{{"force", u.force.name},   {"length", u.length.name},
+                {"moment", u.moment.name}, {"displacement", u.displacement.name},
+                {"rotation", u.rotation.name}, {"area", u.area.name},
+                {"inertia", u.inertia.name}, {"modulus", u.modulus.name},
+                {"unit_weight", u.unit_weight.name}};
+}
+
+Json model_json(const Model& model) {
+    const DisplayUnits& u = model.units;
+    Json nodes = Json::array(), members = Json::array(), sections = Json::array(), supports = Json::array();
+    for (const Node& n : model.nodes) {
+        nodes.push_back({{"name", n.name}, {"x", shown(n.x, u.length)}, {"y", shown(n.y, u.length)}});
+    }
+    for (const Section& s : model.sections) {
+        const Material& m = model.materials[at(s.material)];
+        sections.push_back({{"name", s.name}, {"material", m.name}, {"A", shown(s.area, u.area)},
+                            {"I", shown(s.inertia, u.inertia)}, {"E", shown(m.elastic_modulus, u.modulus)},
+                            {"density", shown(m.unit_weight, u.unit_weight)}});
+    }
+    for (const Member& m : model.members) {
+        members.push_back({{"name", m.name}, {"start", model.nodes[at(m.start)].name},
+                           {"end", model.nodes[at(m.end)].name}, {"section", model.sections[at(m.section)].name},
+                           {"hinge_start", m.hinge_start}, {"hinge_end", m.hinge_end}});
+    }
+    for (const Support& s : model.supports) {
+        supports.push_back({{"node", model.nodes[at(s.node)].name}, {"kind", support_kind_name(s.kind)}});
+    }
+    return Json{{"nodes", nodes}, {"sections", sections}, {"members", members}, {"supports", supports}};
+}
+
+Json triple(const std::array<double, 3>& v, const DisplayUnit& force, const DisplayUnit& moment,
+            const char* a, const char* b, const char* c) {
+    return Json{{a, shown(v[0], force)}, {b, shown(v[1], force)}, {c, shown(v[2], moment)}};
+}
+
+Json extreme(const Extreme& e, const DisplayUnit& unit, const DisplayUnit& length) {
+    return Json{{"value", shown(e.value, unit)}, {"at", shown(e.position, length)}};
+}
+
+Json member_json(const Model& model, std::size_t i, const MemberSummary& s) {
+    const DisplayUnits& u = model.units;
+    return Json{{"member", model.members[i].name},
+                {"start", triple(s.start, u.force, u.moment, "N", "V", "M")},
+                {"end", triple(s.end, u.force, u.moment, "N", "V", "M")},
+                {"moment_max", extreme(s.moment_max, u.moment, u.length)},
+                {"moment_min", extreme(s.moment_min, u.moment, u.length)},
+                {"shear_max", extreme(s.shear_max, u.force, u.length)},
+                {"tension_max", extreme(s.axial_max, u.force, u.length)},
+                {"compression_max", extreme(s.axial_min, u.force, u.length)},
+                {"deflection_max", extreme(s.deflection_max, u.displacement, u.length)}};
+}
+
+Json stations_json(const Model& model, const Stations& stations, std::size_t c, std::size_t m) {
+    const DisplayUnits& u = model.units;
+    Json out = Json::array();
+    const Station* s = stations.of(c, m);
+    for (std::size_t k = 0; k < stations.per_member; ++k) {
+        out.push_back({{"x", shown(s[k].position, u.length)}, {"N", shown(s[k].axial, u.force)},
+                       {"V", shown(s[k].shear, u.force)}, {"M", shown(s[k].moment, u.moment)},
+                       {"deflection", shown(s[k].deflection, u.displacement)}});
+    }
+    return out;
+}
+
+Json case_json(const Model& model, const Results& results, std::size_t c, const ReportOptions& options) {
+    const DisplayUnits& u = model.units;
+    const CaseResults& r = results.cases[c];
+    Json reactions = Json::array(), displacements = Json::array(), members = Json::array();
+    for (std::size_t i = 0; i < model.supports.size(); ++i) {
+        Json row = triple(r.reactions[i], u.force, u.moment, "Rx", "Ry", "M");
+        row.insert(row.begin(), {"node", model.nodes[at(model.supports[i].node)].name});
+        reactions.push_back(std::move(row));
+    }
+    for (std::size_t i = 0; i < model.nodes.size(); ++i) {
+        bool free = !results.rotation_free.empty() && results.rotation_free[i];
+        displacements.push_back({{"node", model.nodes[i].name}, {"dx", shown(r.displacements[i][0], u.displacement)},
+                                 {"dy", shown(r.displacements[i][1], u.displacement)},
+                                 {"rotation", free ? Json(nullptr) : Json(shown(r.displacements[i][2], u.rotation))}});
+    }
+    for (std::size_t i = 0; i < model.members.size(); ++i) {
+        Json m = member_json(model, i, r.members[i]);
+        if (options.stations != nullptr) m["stations"] = stations_json(model, *options.stations, c, i);
+        members.push_back(std::move(m));
+    }
+    const Equilibrium& e = r.equilibrium;
+    return Json{{"name", model.cases[c].name},
+                {"kind", case_kind_name(model.cases[c].kind)},
+                {"equilibrium", {{"applied", triple(e.applied, u.force, u.moment, "Fx", "Fy", "M")},
+                                 {"reactions", triple(e.reactions, u.force, u.moment, "Fx", "Fy", "M")}}},
+                {"reactions", reactions},
+                {"displacements", displacements},
+                {"members", members}};
+}
+
+}  // namespace
+
+std::string json_report(const Model& model, const Results& results, const ReportOptions& options) {
+    Json cases = Json::array();
+    for (std::size_t c = 0; c < model.cases.size(); ++c) cases.push_back(case_json(model, results, c, options));
+    Json root{{"format", kJsonFormat},
+              {"title", model.title},
+              {"caution", kCaution},
+              {"units", units_json(model.units)},
+              {"model", model_json(model)},
+              {"cases", cases}};
+    return root.dump(1) + "\n";
+}
+
+}  // namespace firn

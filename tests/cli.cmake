@@ -1,0 +1,24 @@
+# Runs one command-line case: tests/cli/NAME.args holds the arguments (one per
+# line, paths relative to the repository); NAME.stdout, NAME.stderr and
+# NAME.status hold what firn must print and its exit status.
+# Invoked by CTest:  cmake -DFIRN=<firn> -DCASE=tests/cli/NAME -P tests/cli.cmake
+file(STRINGS "${CASE}.args" args)
+execute_process(COMMAND ${FIRN} ${args}
+                OUTPUT_VARIABLE out ERROR_VARIABLE err RESULT_VARIABLE status)
+file(READ "${CASE}.status" expected_status)
+string(STRIP "${expected_status}" expected_status)
+if(NOT status STREQUAL expected_status)
+  message(FATAL_ERROR "${CASE}: exit status ${status}, expected ${expected_status}\n${out}${err}")
+endif()
+foreach(stream stdout stderr)
+  if(stream STREQUAL "stdout")
+    set(actual "${out}")
+  else()
+    set(actual "${err}")
+  endif()
+  file(READ "${CASE}.${stream}" expected)
+  if(NOT actual STREQUAL expected)
+    file(WRITE "${CASE}.${stream}.actual" "${actual}")
+    message(FATAL_ERROR "${CASE}: ${stream} differs; compare with ${CASE}.${stream}.actual")
+  endif()
+endforeach()
