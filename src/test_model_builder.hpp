@@ -4,6 +4,7 @@
 
 #include <catch2/catch.hpp>
 #include <cmath>
+#include <fmt/format.h>
 #include <string>
 
 #include "diag.hpp"
@@ -28,13 +29,13 @@ struct ModelBuilder {
         return r;
     }
     MaterialId material(double elastic_modulus, double unit_weight = 0.0) {
-        model.materials.push_back({"mat" + std::to_string(model.materials.size()), elastic_modulus,
+        model.materials.push_back({fmt::format("mat{}", model.materials.size()), elastic_modulus,
                                    unit_weight, place()});
         return make_id<MaterialId>(model.materials.size() - 1);
     }
     SectionId section(MaterialId m, double area, double inertia) {
         Section s;
-        s.name = "sec" + std::to_string(model.sections.size());
+        s.name = fmt::format("sec{}", model.sections.size());
         s.material = m;
         s.area = area;
         s.inertia = inertia;
