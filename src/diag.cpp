@@ -64,6 +64,9 @@ const char* severity_word(Severity s) {
     return "error";
 }
 
+// More diagnostics than this help nobody; the rest are counted, not shown.
+constexpr std::size_t kMaxShown = 100;
+
 // Lines longer than this are shown as a window around the caret, so a
 // pathological input cannot flood the terminal.
 constexpr std::size_t kShownWidth = 100;
@@ -137,7 +140,9 @@ std::string render(const Diagnostics& diagnostics, const SourceMap& sources) {
     for (const Diagnostic& d : diagnostics.all()) sorted.push_back(&d);
     std::stable_sort(sorted.begin(), sorted.end(),
                      [](const Diagnostic* a, const Diagnostic* b) { return comes_before(*a, *b); });
-    for (const Diagnostic* d : sorted) render_one(out, *d, sources);
+    std::size_t shown = std::min(sorted.size(), kMaxShown);
+    for (std::size_t i = 0; i < shown; ++i) render_one(out, *sorted[i], sources);
+    if (sorted.size() > shown) out += fmt::format("firn: {} more diagnostics not shown\n", sorted.size() - shown);
     return out;
 }
 

@@ -26,27 +26,53 @@ std::string shown_source(const std::string& name) {
     return name.substr(name.find_last_of('/') + 1);
 }
 
-/// Appends "  " and a number right-aligned in the standard width.
-void cell(std::string& out, double si_value, const DisplayUnit& unit) {
-    std::array<char, kNumberBuffer> buffer;
-    out += "  ";
-    append_right(out, format_fixed(buffer.data(), unit.from_si(si_value), unit.decimals), kNumberWidth);
-}
+/// Writes one table: a header row whose cells fix each column's width (a
+/// number column is 12 wide, or as wide as its header), then rows that fill
+/// the columns in order. Trailing spaces are trimmed from every row.
+class Table {
+public:
+    explicit Table(std::string& out) : out_(out) {}
 
-void name_cell(std::string& out, std::string_view name, std::size_t width) {
-    out += "  ";
-    append_left(out, name, width);
-}
+    Table& name_column(std::string_view header, std::size_t width) {
+        widths_.push_back(std::max(width, header.size()));
+        out_ += "  ";
+        append_left(out_, header, widths_.back());
+        return *this;
+    }
+    Table& number_column(std::string_view title, const DisplayUnit& unit) {
+        std::string header = fmt::format("{} [{}]", title, unit.name);
+        widths_.push_back(std::max(kNumberWidth, header.size()));
+        out_ += "  ";
+        append_right(out_, header, widths_.back());
+        return *this;
+    }
+    Table& name(std::string_view text) {
+        out_ += "  ";
+        append_left(out_, text, next_width());
+        return *this;
+    }
+    Table& number(double si_value, const DisplayUnit& unit) {
+        std::array<char, kNumberBuffer> buffer;
+        return text(format_fixed(buffer.data(), unit.from_si(si_value), unit.decimals));
+    }
+    Table& text(std::string_view right_aligned) {
+        out_ += "  ";
+        append_right(out_, right_aligned, next_width());
+        return *this;
+    }
+    void end_row() {
+        while (!out_.empty() && out_.back() == ' ') out_.pop_back();
+        out_ += '\n';
+        column_ = 0;
+    }
 
-void header_cell(std::string& out, std::string_view title, const DisplayUnit& unit) {
-    out += "  ";
-    append_right(out, fmt::format("{} [{}]", title, unit.name), kNumberWidth);
-}
+private:
+    std::size_t next_width() { return column_ < widths_.size() ? widths_[column_++] : kNumberWidth; }
 
-void end_row(std::string& out) {
-    while (!out.empty() && out.back() == ' ') out.pop_back();
-    out += '\n';
-}
+    std::string& out_;
+    std::vector<std::size_t> widths_;
+    std::size_t column_ = 0;
+};
 
 template <typename T>
 std::size_t name_width(const std::vector<T>& items, std::string_view header) {
@@ -96,22 +122,19 @@ const char* shape_name(Section::Shape shape) {
 }
 
 void write_nodes(std::string& out, const Model& model) {
-    std::size_t w = name_width(model.nodes, "node");
     std::vector<const Support*> support(model.nodes.size(), nullptr);
     for (const Support& s : model.supports) support[at(s.node)] = &s;
     out += "Nodes\n";
-    name_cell(out, "node", w);
-    header_cell(out, "x", model.units.length);
-    header_cell(out, "y", model.units.length);
-    out += "  support";
-    end_row(out);
+    Table t(out);
+    t.name_column("node", name_width(model.nodes, "node"))
+        .number_column("x", model.units.length)
+        .number_column("y", model.units.length)
+        .name_column("support", 0)
+        .end_row();
     for (std::size_t i = 0; i < model.nodes.size(); ++i) {
         const Node& n = model.nodes[i];
-        name_cell(out, n.name, w);
-        cell(out, n.x, model.units.length);
-        cell(out, n.y, model.units.length);
-        if (support[i] != nullptr) out += "  " + std::string(support_kind_name(support[i]->kind));
-        end_row(out);
+        t.name(n.name).number(n.x, model.units.length).number(n.y, model.units.length);
+        t.name(support[i] != nullptr ? support_kind_name(support[i]->kind) : "").end_row();
     }
     out += '\n';
 }
@@ -120,98 +143,81 @@ void write_springs(std::string& out, const Model& model) {
     bool any = std::any_of(model.supports.begin(), model.supports.end(),
                            [](const Support& s) { return s.kind == Support::Kind::spring; });
     if (!any) return;
-    std::size_t w = name_width(model.nodes, "node");
+    const DisplayUnits& u = model.units;
     out += "Spring supports (fixed: rigid; blank: free)\n";
-    name_cell(out, "node", w);
-    header_cell(out, "kx", model.units.stiffness);
-    header_cell(out, "ky", model.units.stiffness);
-    header_cell(out, "kr", model.units.rotational_stiffness);
-    end_row(out);
+    Table t(out);
+    t.name_column("node", name_width(model.nodes, "node"))
+        .number_column("kx", u.stiffness)
+        .number_column("ky", u.stiffness)
+        .number_column("kr", u.rotational_stiffness)
+        .end_row();
     for (const Support& s : model.supports) {
         if (s.kind != Support::Kind::spring) continue;
-        name_cell(out, model.nodes[at(s.node)].name, w);
+        t.name(model.nodes[at(s.node)].name);
         for (std::size_t d = 0; d < 3; ++d) {
             const Restraint& r = s.restraint[d];
-            const DisplayUnit& unit = d == dof_rotation ? model.units.rotational_stiffness : model.units.stiffness;
             if (r.kind == Restraint::Kind::spring) {
-                cell(out, r.stiffness, unit);
+                t.number(r.stiffness, d == dof_rotation ? u.rotational_stiffness : u.stiffness);
             } else {
-                out += "  ";
-                append_right(out, r.kind == Restraint::Kind::fixed ? "fixed" : "", kNumberWidth);
+                t.text(r.kind == Restraint::Kind::fixed ? "fixed" : "");
             }
         }
-        end_row(out);
+        t.end_row();
     }
     out += '\n';
 }
 
+const char* hinge_words(const Member& m) {
+    if (m.hinge_start && m.hinge_end) return "both ends";
+    if (m.hinge_start) return "start";
+    return m.hinge_end ? "end" : "";
+}
+
 void write_members(std::string& out, const Model& model) {
-    std::size_t w = name_width(model.members, "member");
     std::size_t wn = name_width(model.nodes, "start");
-    std::size_t ws = name_width(model.sections, "section");
     out += "Members\n";
-    name_cell(out, "member", w);
-    name_cell(out, "start", wn);
-    name_cell(out, "end", wn);
-    name_cell(out, "section", ws);
-    header_cell(out, "length", model.units.length);
-    out += "  hinges";
-    end_row(out);
+    Table t(out);
+    t.name_column("member", name_width(model.members, "member"))
+        .name_column("start", wn)
+        .name_column("end", wn)
+        .name_column("section", name_width(model.sections, "section"))
+        .number_column("length", model.units.length)
+        .name_column("hinges", 0)
+        .end_row();
     for (const Member& m : model.members) {
         const Node& a = model.nodes[at(m.start)];
         const Node& b = model.nodes[at(m.end)];
-        name_cell(out, m.name, w);
-        name_cell(out, a.name, wn);
-        name_cell(out, b.name, wn);
-        name_cell(out, model.sections[at(m.section)].name, ws);
-        cell(out, std::hypot(b.x - a.x, b.y - a.y), model.units.length);
-        if (m.hinge_start || m.hinge_end) {
-            out += m.hinge_start && m.hinge_end ? "  both ends" : m.hinge_start ? "  start" : "  end";
-        }
-        end_row(out);
+        t.name(m.name).name(a.name).name(b.name).name(model.sections[at(m.section)].name);
+        t.number(std::hypot(b.x - a.x, b.y - a.y), model.units.length).name(hinge_words(m)).end_row();
     }
     out += '\n';
 }
 
 void write_sections(std::string& out, const Model& model) {
-    std::size_t w = name_width(model.sections, "section");
-    std::size_t wm = name_width(model.materials, "material");
     const DisplayUnits& u = model.units;
     out += "Sections\n";
-    name_cell(out, "section", w);
-    name_cell(out, "material", wm);
-    name_cell(out, "shape", 9);
-    header_cell(out, "A", u.area);
-    header_cell(out, "I", u.inertia);
-    header_cell(out, "E", u.modulus);
-    header_cell(out, "density", u.unit_weight);
-    end_row(out);
+    Table t(out);
+    t.name_column("section", name_width(model.sections, "section"))
+        .name_column("material", name_width(model.materials, "material"))
+        .name_column("shape", 9)
+        .number_column("A", u.area)
+        .number_column("I", u.inertia)
+        .number_column("E", u.modulus)
+        .number_column("density", u.unit_weight)
+        .end_row();
     for (const Section& s : model.sections) {
         const Material& m = model.materials[at(s.material)];
-        name_cell(out, s.name, w);
-        name_cell(out, m.name, wm);
-        name_cell(out, shape_name(s.shape), 9);
-        cell(out, s.area, u.area);
-        cell(out, s.inertia, u.inertia);
-        cell(out, m.elastic_modulus, u.modulus);
-        cell(out, m.unit_weight, u.unit_weight);
-        end_row(out);
+        t.name(s.name).name(m.name).name(shape_name(s.shape)).number(s.area, u.area).number(s.inertia, u.inertia);
+        t.number(m.elastic_modulus, u.modulus).number(m.unit_weight, u.unit_weight).end_row();
     }
     out += '\n';
 }
 
 void write_case_list(std::string& out, const Model& model) {
-    std::size_t w = name_width(model.cases, "case");
     out += "Load cases\n";
-    name_cell(out, "case", w);
-    out += "  kind";
-    end_row(out);
-    for (const LoadCase& lc : model.cases) {
-        name_cell(out, lc.name, w);
-        out += "  ";
-        out += case_kind_name(lc.kind);
-        end_row(out);
-    }
+    Table t(out);
+    t.name_column("case", name_width(model.cases, "case")).name_column("kind", 0).end_row();
+    for (const LoadCase& lc : model.cases) t.name(lc.name).name(case_kind_name(lc.kind)).end_row();
     out += '\n';
 }
 
@@ -220,147 +226,116 @@ void write_case_list(std::string& out, const Model& model) {
 void write_equilibrium(std::string& out, const Model& model, const Equilibrium& e) {
     const DisplayUnits& u = model.units;
     out += "Equilibrium (sums over the structure; M about the origin)\n";
-    name_cell(out, "", 13);
-    header_cell(out, "Fx", u.force);
-    header_cell(out, "Fy", u.force);
-    header_cell(out, "M", u.moment);
-    end_row(out);
+    Table t(out);
+    t.name_column("", 9).number_column("Fx", u.force).number_column("Fy", u.force).number_column("M", u.moment);
+    t.end_row();
     auto row = [&](const char* label, const std::array<double, 3>& v) {
-        name_cell(out, label, 13);
-        cell(out, v[0], u.force);
-        cell(out, v[1], u.force);
-        cell(out, v[2], u.moment);
-        end_row(out);
+        t.name(label).number(v[0], u.force).number(v[1], u.force).number(v[2], u.moment).end_row();
     };
     row("applied", e.applied);
     row("reactions", e.reactions);
-    row("residual", {e.applied[0] + e.reactions[0], e.applied[1] + e.reactions[1],
-                     e.applied[2] + e.reactions[2]});
+    row("residual", {e.applied[0] + e.reactions[0], e.applied[1] + e.reactions[1], e.applied[2] + e.reactions[2]});
     out += '\n';
 }
 
 void write_reactions(std::string& out, const Model& model, const CaseResults& r) {
-    if (model.supports.empty()) return;
-    std::size_t w = name_width(model.nodes, "node");
     const DisplayUnits& u = model.units;
     out += "Reactions\n";
-    name_cell(out, "node", w);
-    header_cell(out, "Rx", u.force);
-    header_cell(out, "Ry", u.force);
-    header_cell(out, "M", u.moment);
-    end_row(out);
+    Table t(out);
+    t.name_column("node", name_width(model.nodes, "node"))
+        .number_column("Rx", u.force)
+        .number_column("Ry", u.force)
+        .number_column("M", u.moment)
+        .end_row();
     for (std::size_t i = 0; i < model.supports.size(); ++i) {
-        name_cell(out, model.nodes[at(model.supports[i].node)].name, w);
-        cell(out, r.reactions[i][0], u.force);
-        cell(out, r.reactions[i][1], u.force);
-        cell(out, r.reactions[i][2], u.moment);
-        end_row(out);
+        t.name(model.nodes[at(model.supports[i].node)].name);
+        t.number(r.reactions[i][0], u.force).number(r.reactions[i][1], u.force).number(r.reactions[i][2], u.moment);
+        t.end_row();
     }
     out += '\n';
 }
 
 void write_displacements(std::string& out, const Model& model, const Results& results, const CaseResults& r) {
-    std::size_t w = name_width(model.nodes, "node");
     const DisplayUnits& u = model.units;
-    out += "Node displacements (rotation 'free': every member is hinged at the node)\n";
-    name_cell(out, "node", w);
-    header_cell(out, "dx", u.displacement);
-    header_cell(out, "dy", u.displacement);
-    header_cell(out, "rotation", u.rotation);
-    end_row(out);
+    bool any_free = std::any_of(results.rotation_free.begin(), results.rotation_free.end(), [](char f) { return f != 0; });
+    out += any_free ? "Node displacements (rotation 'free': every member is hinged at the node)\n"
+                    : "Node displacements\n";
+    Table t(out);
+    t.name_column("node", name_width(model.nodes, "node"))
+        .number_column("dx", u.displacement)
+        .number_column("dy", u.displacement)
+        .number_column("rotation", u.rotation)
+        .end_row();
     for (std::size_t i = 0; i < model.nodes.size(); ++i) {
-        name_cell(out, model.nodes[i].name, w);
-        cell(out, r.displacements[i][0], u.displacement);
-        cell(out, r.displacements[i][1], u.displacement);
-        if (!results.rotation_free.empty() && results.rotation_free[i]) {
-            out += "  ";
-            append_right(out, "free", kNumberWidth);
+        t.name(model.nodes[i].name).number(r.displacements[i][0], u.displacement);
+        t.number(r.displacements[i][1], u.displacement);
+        if (any_free && results.rotation_free[i]) {
+            t.text("free");
         } else {
-            cell(out, r.displacements[i][2], u.rotation);
+            t.number(r.displacements[i][2], u.rotation);
         }
-        end_row(out);
+        t.end_row();
     }
     out += '\n';
 }
 
 void write_end_forces(std::string& out, const Model& model, const CaseResults& r) {
-    std::size_t w = name_width(model.members, "member");
     const DisplayUnits& u = model.units;
     out += "Member end forces (internal N, V, M just inside each end)\n";
-    name_cell(out, "member", w);
-    for (const char* end : {"start", "end"}) {
-        header_cell(out, fmt::format("N {}", end), u.force);
-        header_cell(out, fmt::format("V {}", end), u.force);
-        header_cell(out, fmt::format("M {}", end), u.moment);
-    }
-    end_row(out);
+    Table t(out);
+    t.name_column("member", name_width(model.members, "member"));
+    t.number_column("N start", u.force).number_column("V start", u.force).number_column("M start", u.moment);
+    t.number_column("N end", u.force).number_column("V end", u.force).number_column("M end", u.moment);
+    t.end_row();
     for (std::size_t i = 0; i < model.members.size(); ++i) {
         const MemberSummary& s = r.members[i];
-        name_cell(out, model.members[i].name, w);
-        for (const auto* v : {&s.start, &s.end}) {
-            cell(out, (*v)[0], u.force);
-            cell(out, (*v)[1], u.force);
-            cell(out, (*v)[2], u.moment);
-        }
-        end_row(out);
+        t.name(model.members[i].name);
+        for (const auto* v : {&s.start, &s.end}) t.number((*v)[0], u.force).number((*v)[1], u.force).number((*v)[2], u.moment);
+        t.end_row();
     }
     out += '\n';
-}
-
-/// "value at position" columns of the extremes table.
-void extreme_cell(std::string& out, const Extreme& e, const DisplayUnit& unit, const DisplayUnit& length) {
-    cell(out, e.value, unit);
-    cell(out, e.position, length);
 }
 
 void write_extremes(std::string& out, const Model& model, const CaseResults& r) {
-    std::size_t w = name_width(model.members, "member");
     const DisplayUnits& u = model.units;
     out += "Member extremes (each value, then its position from the start node)\n";
-    name_cell(out, "member", w);
-    const std::array<std::pair<const char*, const DisplayUnit*>, 6> columns{{
-        {"M+", &u.moment}, {"M-", &u.moment}, {"V", &u.force},
-        {"N tension", &u.force}, {"N compr.", &u.force}, {"deflection", &u.displacement}}};
-    for (const auto& [title, unit] : columns) {
-        header_cell(out, title, *unit);
-        header_cell(out, "at", u.length);
-    }
-    end_row(out);
+    Table t(out);
+    t.name_column("member", name_width(model.members, "member"));
+    const std::array<std::pair<const char*, const DisplayUnit*>, 6> columns{
+        {{"M+", &u.moment}, {"M-", &u.moment}, {"V", &u.force}, {"N+", &u.force}, {"N-", &u.force},
+         {"defl.", &u.displacement}}};
+    for (const auto& [title, unit] : columns) t.number_column(title, *unit).number_column("at", u.length);
+    t.end_row();
     for (std::size_t i = 0; i < model.members.size(); ++i) {
         const MemberSummary& s = r.members[i];
-        name_cell(out, model.members[i].name, w);
-        extreme_cell(out, s.moment_max, u.moment, u.length);
-        extreme_cell(out, s.moment_min, u.moment, u.length);
-        extreme_cell(out, s.shear_max, u.force, u.length);
-        extreme_cell(out, s.axial_max, u.force, u.length);
-        extreme_cell(out, s.axial_min, u.force, u.length);
-        extreme_cell(out, s.deflection_max, u.displacement, u.length);
-        end_row(out);
+        t.name(model.members[i].name);
+        const std::array<const Extreme*, 6> values{&s.moment_max, &s.moment_min, &s.shear_max,
+                                                   &s.axial_max, &s.axial_min, &s.deflection_max};
+        for (std::size_t k = 0; k < values.size(); ++k) {
+            t.number(values[k]->value, *columns[k].second).number(values[k]->position, u.length);
+        }
+        t.end_row();
     }
-    out += '\n';
+    out += "  (N+ largest tension, N- largest compression, V largest in size; 0 where there is none)\n\n";
 }
 
 void write_stations(std::string& out, const Model& model, const Stations& stations, std::size_t c) {
-    std::size_t w = name_width(model.members, "member");
     const DisplayUnits& u = model.units;
     out += "Member stations\n";
-    name_cell(out, "member", w);
-    header_cell(out, "x", u.length);
-    header_cell(out, "N", u.force);
-    header_cell(out, "V", u.force);
-    header_cell(out, "M", u.moment);
-    header_cell(out, "deflection", u.displacement);
-    end_row(out);
+    Table t(out);
+    t.name_column("member", name_width(model.members, "member"))
+        .number_column("x", u.length)
+        .number_column("N", u.force)
+        .number_column("V", u.force)
+        .number_column("M", u.moment)
+        .number_column("defl.", u.displacement)
+        .end_row();
     for (std::size_t m = 0; m < model.members.size(); ++m) {
         const Station* s = stations.of(c, m);
         for (std::size_t k = 0; k < stations.per_member; ++k) {
-            name_cell(out, k == 0 ? std::string_view(model.members[m].name) : "", w);
-            cell(out, s[k].position, u.length);
-            cell(out, s[k].axial, u.force);
-            cell(out, s[k].shear, u.force);
-            cell(out, s[k].moment, u.moment);
-            cell(out, s[k].deflection, u.displacement);
-            end_row(out);
+            t.name(k == 0 ? std::string_view(model.members[m].name) : "").number(s[k].position, u.length);
+            t.number(s[k].axial, u.force).number(s[k].shear, u.force).number(s[k].moment, u.moment);
+            t.number(s[k].deflection, u.displacement).end_row();
         }
     }
     out += '\n';
@@ -372,7 +347,7 @@ void write_case(std::string& out, const Model& model, const Results& results, st
     const CaseResults& r = results.cases[c];
     out += fmt::format("== Load case {} ({}) ==\n\n", lc.name, case_kind_name(lc.kind));
     write_equilibrium(out, model, r.equilibrium);
-    write_reactions(out, model, r);
+    if (!model.supports.empty()) write_reactions(out, model, r);
     write_displacements(out, model, results, r);
     write_end_forces(out, model, r);
     write_extremes(out, model, r);

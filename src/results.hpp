@@ -67,6 +67,7 @@ struct Equilibrium {
 };
 
 struct CaseResults {
+    std::vector<std::array<double, 3>> displacements;  ///< per node, global dx, dy, rotation
     std::vector<std::array<double, 3>> reactions;  ///< per support, global Rx, Ry, M
     std::vector<MemberSummary> members;             ///< per member
     Equilibrium equilibrium;
@@ -74,6 +75,7 @@ struct CaseResults {
 
 struct Results {
     std::vector<CaseResults> cases;
+    std::vector<char> rotation_free;  ///< per node: rotation undetermined (see Solution)
 };
 
 /// Results for every case (cases are processed in parallel; output is the same).

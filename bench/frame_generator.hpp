@@ -1,0 +1,14 @@
+// frame_generator: model text for large rectangular frames, for the bench target.
+#pragma once
+
+#include <cstddef>
+#include <string>
+
+namespace firn::bench {
+
+/// A rectangular frame of `bays` x `storeys` with fixed bases, 24 ft bays and
+/// 12 ft storeys, and `cases` load cases: case k loads every beam of one
+/// storey (cycling through the storeys) and pushes every level sideways.
+std::string rectangular_frame(std::size_t bays, std::size_t storeys, std::size_t cases);
+
+}  // namespace firn::bench
