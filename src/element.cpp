@@ -22,16 +22,35 @@ namespace {
 
 constexpr std::size_t theta1 = 2, theta2 = 5;
 
-/// The stiffness of the member with both end rotations held by the nodes.
+/// The distinct entries of the stiffness with both end rotations held:
+/// EA/L, 12EI/L^3, 6EI/L^2, 4EI/L and 2EI/L.
+struct StiffnessTerms {
+    double axial, a, b, c, d;
+};
+
+StiffnessTerms stiffness_terms(const ElementProperties& e) {
+    double l = e.length, i = e.bending_rigidity / l;
+    return StiffnessTerms{e.axial_rigidity / l, 12.0 * i / (l * l), 6.0 * i / l, 4.0 * i, 2.0 * i};
+}
+
 ElementMatrix full_stiffness(const ElementProperties& e) {
-    double l = e.length, axial = e.axial_rigidity / l, i = e.bending_rigidity / l;
-    double a = 12.0 * i / (l * l), b = 6.0 * i / l, c = 4.0 * i, d = 2.0 * i;
+    auto [axial, a, b, c, d] = stiffness_terms(e);
     return ElementMatrix{{{axial, 0.0, 0.0, -axial, 0.0, 0.0},
                           {0.0, a, b, 0.0, -a, b},
                           {0.0, b, c, 0.0, -b, d},
                           {-axial, 0.0, 0.0, axial, 0.0, 0.0},
                           {0.0, -a, -b, 0.0, a, -b},
                           {0.0, b, d, 0.0, -b, c}}};
+}
+
+/// full_stiffness(e) times d, written out to skip the zeros: the result
+/// stage does this for every member in every case.
+ElementVector full_stiffness_times(const StiffnessTerms& k, const ElementVector& d) {
+    double stretch = k.axial * (d[0] - d[3]);
+    double drift = d[1] - d[4];
+    double shear = k.a * drift + k.b * (d[2] + d[5]);
+    return ElementVector{stretch, shear, k.b * drift + k.c * d[2] + k.d * d[5],
+                         -stretch, -shear, k.b * drift + k.d * d[2] + k.c * d[5]};
 }
 
 /// Eliminates the end rotation r from k (and f, if given) by static
@@ -119,39 +138,29 @@ ElementVector with_released_rotations(const ElementProperties& e, const ElementV
                                       const ElementVector& consistent) {
     ElementVector out = d;
     if (!e.hinge_start && !e.hinge_end) return out;
-    ElementMatrix k = full_stiffness(e);
+    StiffnessTerms k = stiffness_terms(e);
     if (e.hinge_start) out[theta1] = 0.0;
     if (e.hinge_end) out[theta2] = 0.0;
-    // The released moments must vanish: k_rr theta_r = f_r - k_rc d_c.
-    auto residual = [&](std::size_t r) {
-        double v = consistent[r];
-        for (std::size_t j = 0; j < 6; ++j) v -= k[r][j] * out[j];
-        return v;
-    };
-    double r1 = residual(theta1), r2 = residual(theta2);
+    // The released moments must vanish: k_rr theta_r = f_r - k_rc d_c, where
+    // k_rr is [4EI/L 2EI/L; 2EI/L 4EI/L] for both, or its diagonal for one.
+    ElementVector held = full_stiffness_times(k, out);
+    double r1 = consistent[theta1] - held[theta1], r2 = consistent[theta2] - held[theta2];
     if (e.hinge_start && e.hinge_end) {
-        double a = k[theta1][theta1], b = k[theta1][theta2], c = k[theta2][theta2];
-        double det = a * c - b * b;
-        out[theta1] = (c * r1 - b * r2) / det;
-        out[theta2] = (a * r2 - b * r1) / det;
+        double det = k.c * k.c - k.d * k.d;
+        out[theta1] = (k.c * r1 - k.d * r2) / det;
+        out[theta2] = (k.c * r2 - k.d * r1) / det;
     } else if (e.hinge_start) {
-        out[theta1] = r1 / k[theta1][theta1];
+        out[theta1] = r1 / k.c;
     } else {
-        out[theta2] = r2 / k[theta2][theta2];
+        out[theta2] = r2 / k.c;
     }
     return out;
 }
 
 ElementVector local_end_forces(const ElementProperties& e, const ElementVector& d,
                                const ElementVector& consistent) {
-    ElementVector full = with_released_rotations(e, d, consistent);
-    ElementMatrix k = full_stiffness(e);
-    ElementVector f{};
-    for (std::size_t i = 0; i < 6; ++i) {
-        double v = -consistent[i];
-        for (std::size_t j = 0; j < 6; ++j) v += k[i][j] * full[j];
-        f[i] = v;
-    }
+    ElementVector f = full_stiffness_times(stiffness_terms(e), with_released_rotations(e, d, consistent));
+    for (std::size_t i = 0; i < 6; ++i) f[i] -= consistent[i];
     return f;
 }
 

@@ -9,40 +9,30 @@
 
 namespace firn {
 
-int degree(const Polynomial& p) {
-    for (std::size_t i = p.c.size(); i-- > 0;) {
-        if (p.c[i] != 0.0) return static_cast<int>(i);
-    }
-    return -1;
-}
-
-Polynomial derivative(const Polynomial& p) {
-    Polynomial d;
-    for (std::size_t i = 1; i < p.c.size(); ++i) d.c[i - 1] = static_cast<double>(i) * p.c[i];
-    return d;
-}
-
-Polynomial antiderivative(const Polynomial& p) {
-    assert(p.c.back() == 0.0);
-    Polynomial a;
-    for (std::size_t i = 0; i + 1 < p.c.size(); ++i) a.c[i + 1] = p.c[i] / static_cast<double>(i + 1);
-    return a;
-}
-
 namespace {
 
 constexpr double eps = std::numeric_limits<double>::epsilon();
 
-/// A bound on the rounding error of evaluating p at t by Horner's rule
-/// (about 2n eps times the sum of the magnitudes of the terms, with margin).
-double evaluation_error(const Polynomial& p, double t) {
-    double sum = 0.0, at = std::abs(t);
-    for (std::size_t i = p.c.size(); i-- > 0;) sum = sum * at + std::abs(p.c[i]);
-    return 16.0 * eps * sum;
+/// p(t) by Horner's rule from the highest non-zero power `top`.
+double evaluate(const Polynomial& p, int top, double t) {
+    double v = 0.0;
+    for (int i = top; i >= 0; --i) v = v * t + p.c[static_cast<std::size_t>(i)];
+    return v;
 }
 
-bool is_zero_at(const Polynomial& p, double t) {
-    return std::abs(p(t)) <= evaluation_error(p, t);
+/// p(t), and whether it is zero within the rounding error of Horner's rule
+/// (about 2n eps times the sum of the magnitudes of the terms, with margin).
+struct Sample {
+    double value;
+    bool zero;
+};
+Sample sample(const Polynomial& p, int top, double t) {
+    double v = 0.0, bound = 0.0, at = std::abs(t);
+    for (int i = top; i >= 0; --i) {
+        v = v * t + p.c[static_cast<std::size_t>(i)];
+        bound = bound * at + std::abs(p.c[static_cast<std::size_t>(i)]);
+    }
+    return Sample{v, std::abs(v) <= 16.0 * eps * bound};
 }
 
 /// Appends x unless it repeats the last root (roots arrive in ascending order).
@@ -76,23 +66,28 @@ void quadratic_roots(const Polynomial& p, double lo, double hi, RealRoots& roots
     add_if_inside(roots, x2, lo, hi);
 }
 
-/// The root of p in (l, r), where p is monotone and p(l) has the sign of pl,
-/// p(r) the other: Newton steps, replaced by bisection whenever they leave
-/// the shrinking bracket.
-double refine_root(const Polynomial& p, const Polynomial& dp, double l, double r, double pl) {
-    double x = 0.5 * (l + r);
+/// The root of p in (l, r), where p is monotone and p(l) = pl, p(r) = pr
+/// differ in sign: Newton steps from the secant point, replaced by bisection
+/// whenever they leave the shrinking bracket. Newton converges quadratically,
+/// so once a step is below 1e-12 of the scale the next error is far below
+/// round-off and the step is the last one.
+double refine_root(const Polynomial& p, const Polynomial& dp, int top, double l, double r, double pl,
+                   double pr) {
+    double scale = std::max({std::abs(l), std::abs(r), r - l});
+    double x = l - pl * (r - l) / (pr - pl);
+    if (!(x > l && x < r)) x = 0.5 * (l + r);
     for (int i = 0; i < 200; ++i) {
-        double px = p(x);
+        double px = evaluate(p, top, x);
         if (px == 0.0) return x;
         if ((px < 0.0) == (pl < 0.0)) {
             l = x;
         } else {
             r = x;
         }
-        double slope = dp(x);
+        double slope = evaluate(dp, top - 1, x);
         double next = slope != 0.0 ? x - px / slope : 0.5 * (l + r);
         if (!(next > l && next < r)) next = 0.5 * (l + r);
-        bool converged = std::abs(next - x) <= 2.0 * eps * std::abs(x) ||
+        bool converged = std::abs(next - x) <= 1e-12 * scale ||
                          r - l <= 4.0 * eps * std::max(std::abs(l), std::abs(r));
         x = next;
         if (converged) break;
@@ -102,7 +97,7 @@ double refine_root(const Polynomial& p, const Polynomial& dp, double l, double r
 
 /// Degree 3 and up: between consecutive roots of p' (and the interval ends)
 /// p is monotone, so each such stretch holds at most one root.
-void isolated_roots(const Polynomial& p, double lo, double hi, RealRoots& roots) {
+void isolated_roots(const Polynomial& p, int top, double lo, double hi, RealRoots& roots) {
     Polynomial dp = derivative(p);
     RealRoots critical = real_roots(dp, lo, hi);
     std::array<double, 7> knots{};
@@ -112,23 +107,25 @@ void isolated_roots(const Polynomial& p, double lo, double hi, RealRoots& roots)
         if (critical.x[i] > knots[n - 1] && critical.x[i] < hi) knots[n++] = critical.x[i];
     }
     if (hi > knots[n - 1]) knots[n++] = hi;
+    Sample left = sample(p, top, knots[0]);
     for (std::size_t i = 0; i + 1 < n; ++i) {
-        double a = knots[i], b = knots[i + 1];
-        double pa = p(a), pb = p(b);
-        if (is_zero_at(p, a)) {
-            add_root(roots, a);
-        } else if (!is_zero_at(p, b) && (pa < 0.0) != (pb < 0.0)) {
-            add_root(roots, refine_root(p, dp, a, b, pa));
+        Sample right = sample(p, top, knots[i + 1]);
+        if (left.zero) {
+            add_root(roots, knots[i]);
+        } else if (!right.zero && (left.value < 0.0) != (right.value < 0.0)) {
+            add_root(roots, refine_root(p, dp, top, knots[i], knots[i + 1], left.value, right.value));
         }
+        left = right;
     }
-    if (is_zero_at(p, knots[n - 1])) add_root(roots, knots[n - 1]);
+    if (left.zero) add_root(roots, knots[n - 1]);
 }
 
 }  // namespace
 
 RealRoots real_roots(const Polynomial& p, double lo, double hi) {
     RealRoots roots;
-    switch (degree(p)) {
+    int top = degree(p);
+    switch (top) {
         case -1:
         case 0:
             break;
@@ -139,7 +136,7 @@ RealRoots real_roots(const Polynomial& p, double lo, double hi) {
             quadratic_roots(p, lo, hi, roots);
             break;
         default:
-            isolated_roots(p, lo, hi, roots);
+            isolated_roots(p, top, lo, hi, roots);
             break;
     }
     return roots;

@@ -3,20 +3,34 @@
 #pragma once
 
 #include <array>
+#include <cassert>
 #include <cstddef>
 
 #include "results.hpp"
 
 namespace firn {
 
+// The three below are inline: the result stage calls them for every member
+// in every case.
+
 /// Highest power with a non-zero coefficient; -1 for the zero polynomial.
-int degree(const Polynomial& p);
+inline int degree(const Polynomial& p) {
+    for (std::size_t i = p.c.size(); i-- > 0;) {
+        if (p.c[i] != 0.0) return static_cast<int>(i);
+    }
+    return -1;
+}
 
 /// dp/dt.
-Polynomial derivative(const Polynomial& p);
+inline Polynomial derivative(const Polynomial& p) {
+    return Polynomial{{p.c[1], 2.0 * p.c[2], 3.0 * p.c[3], 4.0 * p.c[4], 5.0 * p.c[5], 0.0}};
+}
 
 /// The antiderivative that is 0 at t = 0. The t^5 term of p must be zero.
-Polynomial antiderivative(const Polynomial& p);
+inline Polynomial antiderivative(const Polynomial& p) {
+    assert(p.c[5] == 0.0);
+    return Polynomial{{0.0, p.c[0], p.c[1] / 2.0, p.c[2] / 3.0, p.c[3] / 4.0, p.c[4] / 5.0}};
+}
 
 /// Real roots of a polynomial inside an interval, ascending, each listed once.
 struct RealRoots {

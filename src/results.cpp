@@ -54,9 +54,8 @@ ElementVector local_displacements(const Solution& s, CaseId c, const MemberInfo&
 /// with near-coincident positions (closer than `tolerance`) merged.
 void collect_breaks(double length, double tolerance, std::span<const LocalDistributed> spread,
                     std::span<const LocalPoint> points, std::vector<double>& breaks) {
-    breaks.clear();
-    breaks.push_back(0.0);
-    breaks.push_back(length);
+    breaks.assign({0.0, length});
+    if (spread.empty() && points.empty()) return;  // the usual case: one piece
     for (const LocalDistributed& q : spread) {
         breaks.push_back(std::clamp(q.a, 0.0, length));
         breaks.push_back(std::clamp(q.b, 0.0, length));
@@ -105,20 +104,18 @@ std::array<double, 4> load_on_piece(std::span<const LocalDistributed> spread, do
 /// One piece's exact polynomials from the values at its start and its load.
 FunctionPiece make_piece(double s0, double s1, const Carried& c, const std::array<double, 4>& q,
                          double bending_rigidity) {
-    FunctionPiece p;
-    p.a = s0;
-    p.b = s1;
-    p.axial.c = {c.n, -q[0], -0.5 * q[1], 0.0, 0.0, 0.0};
-    p.shear.c = {c.v, q[2], 0.5 * q[3], 0.0, 0.0, 0.0};
-    p.moment = antiderivative(p.shear);
-    p.moment.c[0] = c.m;
-    Polynomial curvature;
-    for (std::size_t i = 0; i < 4; ++i) curvature.c[i] = p.moment.c[i] / bending_rigidity;
+    Polynomial shear{{c.v, q[2], 0.5 * q[3], 0.0, 0.0, 0.0}};
+    Polynomial moment = antiderivative(shear);
+    moment.c[0] = c.m;
+    Polynomial curvature{{moment.c[0] / bending_rigidity, moment.c[1] / bending_rigidity,
+                          moment.c[2] / bending_rigidity, moment.c[3] / bending_rigidity, 0.0, 0.0}};
     Polynomial slope = antiderivative(curvature);
     slope.c[0] = c.slope;
-    p.deflection = antiderivative(slope);
-    p.deflection.c[0] = c.w;
-    return p;
+    Polynomial deflection = antiderivative(slope);
+    deflection.c[0] = c.w;
+    // Built whole rather than filled in: this runs for every member in every case.
+    return FunctionPiece{s0, s1, Polynomial{{c.n, -q[0], -0.5 * q[1], 0.0, 0.0, 0.0}}, shear, moment,
+                         deflection};
 }
 
 /// The exact functions of one member, into scratch.pieces. `forces` are the
@@ -148,7 +145,7 @@ void build_functions(const MemberInfo& m, std::span<const LocalDistributed> spre
 /// Calls visit(t, value) at both ends of [0, h] and wherever p' vanishes inside.
 template <typename Visit>
 void visit_stationary(const Polynomial& p, const Polynomial& dp, double h, Visit visit) {
-    visit(0.0, p(0.0));
+    visit(0.0, p.c[0]);
     RealRoots roots = real_roots(dp, 0.0, h);
     for (std::size_t i = 0; i < roots.count; ++i) {
         if (roots.x[i] > 0.0 && roots.x[i] < h) visit(roots.x[i], p(roots.x[i]));
@@ -171,7 +168,7 @@ MemberSummary summarize(const std::vector<FunctionPiece>& pieces) {
     const FunctionPiece& first = pieces.front();
     const FunctionPiece& last = pieces.back();
     double h_last = last.b - last.a;
-    s.start = {first.axial(0.0), first.shear(0.0), first.moment(0.0)};
+    s.start = {first.axial.c[0], first.shear.c[0], first.moment.c[0]};
     s.end = {last.axial(h_last), last.shear(h_last), last.moment(h_last)};
     for (const FunctionPiece& p : pieces) {
         double h = p.b - p.a;
