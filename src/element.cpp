@@ -49,7 +49,7 @@ ElementVector full_stiffness_times(const StiffnessTerms& k, const ElementVector&
     double stretch = k.axial * (d[0] - d[3]);
     double drift = d[1] - d[4];
     double shear = k.a * drift + k.b * (d[2] + d[5]);
-    return ElementVector{stretch, shear, k.b * drift + k.c * d[2] + k.d * d[5],
+    return ElementVector{stretch,  shear,  k.b * drift + k.c * d[2] + k.d * d[5],
                          -stretch, -shear, k.b * drift + k.d * d[2] + k.c * d[5]};
 }
 
@@ -58,18 +58,25 @@ ElementVector full_stiffness_times(const StiffnessTerms& k, const ElementVector&
 void condense(std::size_t r, ElementMatrix& k, ElementVector* f) {
     double pivot = k[r][r];
     for (std::size_t i = 0; i < 6; ++i) {
-        if (i == r || k[i][r] == 0.0) continue;
+        if (i == r || k[i][r] == 0.0)
+            continue;
         double ratio = k[i][r] / pivot;
-        for (std::size_t j = 0; j < 6; ++j) k[i][j] -= ratio * k[r][j];
-        if (f) (*f)[i] -= ratio * (*f)[r];
+        for (std::size_t j = 0; j < 6; ++j)
+            k[i][j] -= ratio * k[r][j];
+        if (f)
+            (*f)[i] -= ratio * (*f)[r];
     }
-    for (std::size_t j = 0; j < 6; ++j) k[r][j] = k[j][r] = 0.0;
-    if (f) (*f)[r] = 0.0;
+    for (std::size_t j = 0; j < 6; ++j)
+        k[r][j] = k[j][r] = 0.0;
+    if (f)
+        (*f)[r] = 0.0;
 }
 
 void condense_released(const ElementProperties& e, ElementMatrix& k, ElementVector* f) {
-    if (e.hinge_start) condense(theta1, k, f);
-    if (e.hinge_end) condense(theta2, k, f);
+    if (e.hinge_start)
+        condense(theta1, k, f);
+    if (e.hinge_end)
+        condense(theta2, k, f);
 }
 
 /// Adds the work-equivalent end values of local forces (qx, qy) acting at x.
@@ -118,17 +125,20 @@ ElementMatrix local_stiffness(const ElementProperties& e) {
 ElementVector consistent_loads(const ElementProperties& e, std::span<const LocalDistributed> spread,
                                std::span<const LocalPoint> points) {
     ElementVector f{};
-    for (const LocalDistributed& q : spread) add_distributed(e.length, q, f);
+    for (const LocalDistributed& q : spread)
+        add_distributed(e.length, q, f);
     for (const LocalPoint& p : points) {
         add_force_at(e.length, p.a, p.px, p.py, f);
-        if (p.mz != 0.0) add_moment_at(e.length, p.a, p.mz, f);
+        if (p.mz != 0.0)
+            add_moment_at(e.length, p.a, p.mz, f);
     }
     return f;
 }
 
 ElementVector condensed_loads(const ElementProperties& e, const ElementVector& consistent) {
     ElementVector f = consistent;
-    if (!e.hinge_start && !e.hinge_end) return f;
+    if (!e.hinge_start && !e.hinge_end)
+        return f;
     ElementMatrix k = full_stiffness(e);
     condense_released(e, k, &f);
     return f;
@@ -137,10 +147,13 @@ ElementVector condensed_loads(const ElementProperties& e, const ElementVector& c
 ElementVector with_released_rotations(const ElementProperties& e, const ElementVector& d,
                                       const ElementVector& consistent) {
     ElementVector out = d;
-    if (!e.hinge_start && !e.hinge_end) return out;
+    if (!e.hinge_start && !e.hinge_end)
+        return out;
     StiffnessTerms k = stiffness_terms(e);
-    if (e.hinge_start) out[theta1] = 0.0;
-    if (e.hinge_end) out[theta2] = 0.0;
+    if (e.hinge_start)
+        out[theta1] = 0.0;
+    if (e.hinge_end)
+        out[theta2] = 0.0;
     // The released moments must vanish: k_rr theta_r = f_r - k_rc d_c, where
     // k_rr is [4EI/L 2EI/L; 2EI/L 4EI/L] for both, or its diagonal for one.
     ElementVector held = full_stiffness_times(k, out);
@@ -159,8 +172,10 @@ ElementVector with_released_rotations(const ElementProperties& e, const ElementV
 
 ElementVector local_end_forces(const ElementProperties& e, const ElementVector& d,
                                const ElementVector& consistent) {
-    ElementVector f = full_stiffness_times(stiffness_terms(e), with_released_rotations(e, d, consistent));
-    for (std::size_t i = 0; i < 6; ++i) f[i] -= consistent[i];
+    ElementVector f =
+        full_stiffness_times(stiffness_terms(e), with_released_rotations(e, d, consistent));
+    for (std::size_t i = 0; i < 6; ++i)
+        f[i] -= consistent[i];
     return f;
 }
 
@@ -189,11 +204,14 @@ ElementMatrix to_global(const ElementMatrix& local, const MemberGeometry& g) {
     ElementMatrix half{}, out{};
     for (std::size_t j = 0; j < 6; ++j) {
         ElementVector column;
-        for (std::size_t i = 0; i < 6; ++i) column[i] = local[i][j];
+        for (std::size_t i = 0; i < 6; ++i)
+            column[i] = local[i][j];
         ElementVector rotated = to_global(column, g);
-        for (std::size_t i = 0; i < 6; ++i) half[i][j] = rotated[i];
+        for (std::size_t i = 0; i < 6; ++i)
+            half[i][j] = rotated[i];
     }
-    for (std::size_t i = 0; i < 6; ++i) out[i] = to_global(half[i], g);
+    for (std::size_t i = 0; i < 6; ++i)
+        out[i] = to_global(half[i], g);
     return out;
 }
 

@@ -16,7 +16,9 @@ ElementProperties beam(bool hinge_start = false, bool hinge_end = false) {
     return ElementProperties{L, E * A, E * I, hinge_start, hinge_end};
 }
 
-Approx same(double v, double scale) { return Approx(v).epsilon(1e-12).margin(1e-12 * scale); }
+Approx same(double v, double scale) {
+    return Approx(v).epsilon(1e-12).margin(1e-12 * scale);
+}
 
 TEST_CASE("local stiffness is the standard beam-column matrix", "[element]") {
     ElementMatrix k = local_stiffness(beam());
@@ -30,7 +32,8 @@ TEST_CASE("local stiffness is the standard beam-column matrix", "[element]") {
     CHECK(k[2][5] == same(2 * ei / L, 1.0));
     CHECK(k[4][5] == same(-6 * ei / (L * L), 1.0));
     for (std::size_t i = 0; i < 6; ++i) {
-        for (std::size_t j = 0; j < 6; ++j) CHECK(k[i][j] == same(k[j][i], k[i][i]));
+        for (std::size_t j = 0; j < 6; ++j)
+            CHECK(k[i][j] == same(k[j][i], k[i][i]));
     }
 }
 
@@ -42,11 +45,13 @@ TEST_CASE("a hinge condenses to the propped member stiffness", "[element]") {
     CHECK(k[1][5] == same(3 * ei / (L * L), k[1][5]));
     CHECK(k[5][5] == same(3 * ei / L, k[5][5]));
     CHECK(k[0][0] == same(E * A / L, 1.0));
-    for (std::size_t j = 0; j < 6; ++j) CHECK(k[2][j] == 0.0);
+    for (std::size_t j = 0; j < 6; ++j)
+        CHECK(k[2][j] == 0.0);
     // Both ends released: an axial bar, nothing left in bending.
     ElementMatrix bar = local_stiffness(beam(true, true));
     for (std::size_t i : {1u, 2u, 4u, 5u}) {
-        for (std::size_t j = 0; j < 6; ++j) CHECK(bar[i][j] == same(0.0, E * A / L));
+        for (std::size_t j = 0; j < 6; ++j)
+            CHECK(bar[i][j] == same(0.0, E * A / L));
     }
     CHECK(bar[3][3] == same(E * A / L, 1.0));
 }
@@ -91,8 +96,10 @@ TEST_CASE("linearly varying and axial loads", "[element]") {
     // Two halves of a uniform load add up to the whole (superposition).
     std::vector<LocalDistributed> halves{{0.0, 2.5, q, q, -w, -w}, {2.5, L, q, q, -w, -w}};
     std::vector<LocalDistributed> whole{{0.0, L, q, q, -w, -w}};
-    ElementVector fh = consistent_loads(beam(), halves, {}), fw = consistent_loads(beam(), whole, {});
-    for (std::size_t i = 0; i < 6; ++i) CHECK(fh[i] == same(fw[i], w * L * L));
+    ElementVector fh = consistent_loads(beam(), halves, {}),
+                  fw = consistent_loads(beam(), whole, {});
+    for (std::size_t i = 0; i < 6; ++i)
+        CHECK(fh[i] == same(fw[i], w * L * L));
     // Uniform axial load: half to each end (statics).
     CHECK(fw[0] == same(q * L / 2, q * L));
     CHECK(fw[3] == same(q * L / 2, q * L));
@@ -129,7 +136,8 @@ TEST_CASE("released rotations and end forces of a hinged member", "[element]") {
     CHECK(forces[2] == same(0.0, w * L * L));
     CHECK(forces[5] == same(0.0, w * L * L));
     ElementProperties propped = beam(false, true);
-    ElementVector dp = with_released_rotations(propped, ElementVector{}, consistent_loads(propped, udl, {}));
+    ElementVector dp =
+        with_released_rotations(propped, ElementVector{}, consistent_loads(propped, udl, {}));
     // Propped cantilever, pinned end slope wL^3/48EI (textbook).
     CHECK(dp[5] == same(w * L * L * L / (48 * ei), 1e-3));
 }
@@ -138,7 +146,8 @@ TEST_CASE("rotation to global axes", "[element]") {
     MemberGeometry g{5.0, 0.6, 0.8};
     ElementVector v{1.0, 2.0, 3.0, -4.0, 5.0, -6.0};
     ElementVector back = to_global(to_local(v, g), g);
-    for (std::size_t i = 0; i < 6; ++i) CHECK(back[i] == same(v[i], 1.0));
+    for (std::size_t i = 0; i < 6; ++i)
+        CHECK(back[i] == same(v[i], 1.0));
     // A vertical member: its axial stiffness acts in global y, bending in x.
     MemberGeometry up{L, 0.0, 1.0};
     ElementMatrix k = to_global(local_stiffness(beam()), up);

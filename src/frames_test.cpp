@@ -1,8 +1,8 @@
 // Whole structures against closed forms: continuous beams, a beam with
 // overhangs, and single-bay portals (shared/reference §12 and statics).
+#include <fmt/format.h>
 #include <catch2/catch.hpp>
 #include <cmath>
-#include <fmt/format.h>
 #include <vector>
 
 #include "test_model_builder.hpp"
@@ -78,7 +78,8 @@ TEST_CASE("three equal spans under a uniform load", "[frames]") {
     CHECK(centre.moment_max.position == exactly(0.5 * L));
     // Deflection 0.006884 wL^4/EI at 0.446L ([D] in the reference, given to 4
     // figures, hence the looser tolerance).
-    CHECK(end_span.deflection_max.value == Approx(-0.006884 * w * L * L * L * L / EI).epsilon(1e-4));
+    CHECK(end_span.deflection_max.value ==
+          Approx(-0.006884 * w * L * L * L * L / EI).epsilon(1e-4));
     CHECK(end_span.deflection_max.position == Approx(0.446 * L).epsilon(1e-3));
 }
 
@@ -94,7 +95,8 @@ TEST_CASE("simple span with two overhangs, loaded everywhere and on the span onl
     b.support(s1, Support::Kind::pinned);
     b.support(s2, Support::Kind::roller_free_x);
     CaseId all = b.load_case("everywhere"), bare = b.load_case("span only");
-    for (MemberId m : {left, span, right}) b.uniform(all, m, LoadDirection::down, w);
+    for (MemberId m : {left, span, right})
+        b.uniform(all, m, LoadDirection::down, w);
     b.uniform(bare, span, LoadDirection::down, w);
     auto a = testing::analyse(b.model);
     testing::require_solved(a);
@@ -118,7 +120,8 @@ struct Portal {
     NodeId na{}, nb{}, nc{}, nd{};
     MemberId left{}, beam{}, right{};
     double h, L, k;
-    Portal(double height, double span, double ic, double ib, Support::Kind base) : h(height), L(span) {
+    Portal(double height, double span, double ic, double ib, Support::Kind base)
+        : h(height), L(span) {
         MaterialId steel = b.material(E);
         SectionId column = b.section(steel, 1e6 * ic / (h * h), ic);
         SectionId girder = b.section(steel, 1e6 * ib / (h * h), ib);
@@ -137,7 +140,9 @@ struct Portal {
 
 /// The closed forms ignore axial shortening; with A = 1e6 I/h^2 the error is
 /// below 0.01% (shared/reference §12), so these checks allow 1e-4.
-Approx portal(double v) { return Approx(v).epsilon(1e-4); }
+Approx portal(double v) {
+    return Approx(v).epsilon(1e-4);
+}
 
 TEST_CASE("fixed-base portal under a beam load and an eave load", "[frames]") {
     Portal p(4.0, 10.0, 8e-5, 1.6e-4, Support::Kind::fixed);
@@ -156,7 +161,8 @@ TEST_CASE("fixed-base portal under a beam load and an eave load", "[frames]") {
     CHECK(a.member(gravity, p.left).end[2] == portal(knee));
     CHECK(a.member(gravity, p.right).start[2] == portal(-base));
     CHECK(a.member(gravity, p.beam).start[2] == portal(knee));
-    CHECK(a.member(gravity, p.beam).moment_max.value == portal(w * L * L * (3 * k + 2) / (24 * (k + 2))));
+    CHECK(a.member(gravity, p.beam).moment_max.value ==
+          portal(w * L * L * (3 * k + 2) / (24 * (k + 2))));
     CHECK(a.member(gravity, p.beam).moment_max.position == portal(L / 2));
     CHECK(a.reaction(gravity, 0)[0] == portal(w * L * L / (4 * h * (k + 2))));
     CHECK(a.reaction(gravity, 1)[0] == portal(-w * L * L / (4 * h * (k + 2))));
@@ -164,7 +170,8 @@ TEST_CASE("fixed-base portal under a beam load and an eave load", "[frames]") {
     // Lateral P at the eave ([D] in the reference): base Ph(3k+1)/(2(6k+1)),
     // knee 3kPh/(2(6k+1)), shears P/2, axial +-3kPh/(L(6k+1)) (the windward
     // column in tension), sway Ph^3(3k+2)/(12 E Ic (6k+1)).
-    double base_l = P * h * (3 * k + 1) / (2 * (6 * k + 1)), knee_l = 3 * k * P * h / (2 * (6 * k + 1));
+    double base_l = P * h * (3 * k + 1) / (2 * (6 * k + 1)),
+           knee_l = 3 * k * P * h / (2 * (6 * k + 1));
     double axial = 3 * k * P * h / (L * (6 * k + 1));
     for (MemberId column : {p.left, p.right}) {
         CHECK(a.member(lateral, column).start[2] == portal(-base_l));
@@ -193,14 +200,16 @@ TEST_CASE("pinned-base portal under a beam load and an eave load", "[frames]") {
     CHECK(a.member(gravity, p.left).end[2] == portal(knee));
     CHECK(a.member(gravity, p.left).start[2] == exactly(0.0, w * L * L));
     CHECK(a.reaction(gravity, 0)[0] == portal(w * L * L / (4 * h * (2 * k + 3))));
-    // Lateral P at the eave [D]: knee Ph/2, H = P/2 each, axial +-Ph/L, sway Ph^3(2k+1)/(12 E Ic k).
+    // Lateral P at the eave [D]: knee Ph/2, H = P/2 each, axial +-Ph/L, sway Ph^3(2k+1)/(12 E Ic
+    // k).
     CHECK(a.member(lateral, p.left).end[2] == portal(P * h / 2));
     CHECK(a.member(lateral, p.right).end[2] == portal(P * h / 2));
     CHECK(a.reaction(lateral, 0)[0] == portal(-P / 2));
     CHECK(a.reaction(lateral, 1)[0] == portal(-P / 2));
     CHECK(a.member(lateral, p.left).start[0] == portal(P * h / L));
     CHECK(a.reaction(lateral, 1)[1] == portal(P * h / L));
-    CHECK(a.displacement(lateral, p.nb, dof_x) == portal(P * h * h * h * (2 * k + 1) / (12 * E * 1e-4 * k)));
+    CHECK(a.displacement(lateral, p.nb, dof_x) ==
+          portal(P * h * h * h * (2 * k + 1) / (12 * E * 1e-4 * k)));
 }
 
 TEST_CASE("very stiff axial members are not mistaken for a mechanism", "[frames]") {

@@ -47,7 +47,8 @@ TEST_CASE("a load per horizontal projection on a sloped member", "[loads]") {
     CHECK(q.qy_b == exactly(-4e3 * 0.8 * 0.8));
     CHECK(q.qx_a == exactly(-2e3 * 0.8 * 0.6));
     // The total vertical load is still the average intensity times the run (statics).
-    double vertical = 0.5 * (q.qy_a + q.qy_b) * (q.b - q.a) * 0.8 + 0.5 * (q.qx_a + q.qx_b) * (q.b - q.a) * 0.6;
+    double vertical =
+        0.5 * (q.qy_a + q.qy_b) * (q.b - q.a) * 0.8 + 0.5 * (q.qx_a + q.qx_b) * (q.b - q.a) * 0.6;
     CHECK(vertical == exactly(-3e3 * 2.0));
     CHECK(set.cases[0].distributed_on(f.column).empty());
 }

@@ -16,7 +16,8 @@ void for_each_chunk(std::size_t count, Work work) {
     std::size_t threads = std::max<std::size_t>(1, std::thread::hardware_concurrency());
     threads = std::min(threads, count);
     if (threads <= 1) {
-        if (count > 0) work(std::size_t{0}, count);
+        if (count > 0)
+            work(std::size_t{0}, count);
         return;
     }
     std::vector<std::thread> pool;
@@ -25,7 +26,8 @@ void for_each_chunk(std::size_t count, Work work) {
         pool.emplace_back(work, count * t / threads, count * (t + 1) / threads);
     }
     work(std::size_t{0}, count / threads);
-    for (std::thread& th : pool) th.join();
+    for (std::thread& th : pool)
+        th.join();
 }
 
 }  // namespace firn

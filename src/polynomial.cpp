@@ -16,7 +16,8 @@ constexpr double eps = std::numeric_limits<double>::epsilon();
 /// p(t) by Horner's rule from the highest non-zero power `top`.
 double evaluate(const Polynomial& p, int top, double t) {
     double v = 0.0;
-    for (int i = top; i >= 0; --i) v = v * t + p.c[static_cast<std::size_t>(i)];
+    for (int i = top; i >= 0; --i)
+        v = v * t + p.c[static_cast<std::size_t>(i)];
     return v;
 }
 
@@ -37,14 +38,17 @@ Sample sample(const Polynomial& p, int top, double t) {
 
 /// Appends x unless it repeats the last root (roots arrive in ascending order).
 void add_root(RealRoots& roots, double x) {
-    if (roots.count > 0 && x <= roots.x[roots.count - 1]) return;
-    if (roots.count < roots.x.size()) roots.x[roots.count++] = x;
+    if (roots.count > 0 && x <= roots.x[roots.count - 1])
+        return;
+    if (roots.count < roots.x.size())
+        roots.x[roots.count++] = x;
 }
 
 /// Adds x if it lies in [lo, hi], pulling in values that round-off put just outside.
 void add_if_inside(RealRoots& roots, double x, double lo, double hi) {
     double tolerance = 8.0 * eps * std::max(std::abs(lo), std::abs(hi));
-    if (x < lo - tolerance || x > hi + tolerance) return;
+    if (x < lo - tolerance || x > hi + tolerance)
+        return;
     add_root(roots, std::clamp(x, lo, hi));
 }
 
@@ -61,7 +65,8 @@ void quadratic_roots(const Polynomial& p, double lo, double hi, RealRoots& roots
     // The stable form: never subtract nearly equal numbers.
     double q = -0.5 * (b + std::copysign(std::sqrt(disc), b));
     double x1 = q / a, x2 = q != 0.0 ? c / q : x1;
-    if (x1 > x2) std::swap(x1, x2);
+    if (x1 > x2)
+        std::swap(x1, x2);
     add_if_inside(roots, x1, lo, hi);
     add_if_inside(roots, x2, lo, hi);
 }
@@ -71,14 +76,16 @@ void quadratic_roots(const Polynomial& p, double lo, double hi, RealRoots& roots
 /// whenever they leave the shrinking bracket. Newton converges quadratically,
 /// so once a step is below 1e-12 of the scale the next error is far below
 /// round-off and the step is the last one.
-double refine_root(const Polynomial& p, const Polynomial& dp, int top, double l, double r, double pl,
-                   double pr) {
+double refine_root(const Polynomial& p, const Polynomial& dp, int top, double l, double r,
+                   double pl, double pr) {
     double scale = std::max({std::abs(l), std::abs(r), r - l});
     double x = l - pl * (r - l) / (pr - pl);
-    if (!(x > l && x < r)) x = 0.5 * (l + r);
+    if (!(x > l && x < r))
+        x = 0.5 * (l + r);
     for (int i = 0; i < 200; ++i) {
         double px = evaluate(p, top, x);
-        if (px == 0.0) return x;
+        if (px == 0.0)
+            return x;
         if ((px < 0.0) == (pl < 0.0)) {
             l = x;
         } else {
@@ -86,11 +93,13 @@ double refine_root(const Polynomial& p, const Polynomial& dp, int top, double l,
         }
         double slope = evaluate(dp, top - 1, x);
         double next = slope != 0.0 ? x - px / slope : 0.5 * (l + r);
-        if (!(next > l && next < r)) next = 0.5 * (l + r);
+        if (!(next > l && next < r))
+            next = 0.5 * (l + r);
         bool converged = std::abs(next - x) <= 1e-12 * scale ||
                          r - l <= 4.0 * eps * std::max(std::abs(l), std::abs(r));
         x = next;
-        if (converged) break;
+        if (converged)
+            break;
     }
     return x;
 }
@@ -104,20 +113,24 @@ void isolated_roots(const Polynomial& p, int top, double lo, double hi, RealRoot
     std::size_t n = 0;
     knots[n++] = lo;
     for (std::size_t i = 0; i < critical.count; ++i) {
-        if (critical.x[i] > knots[n - 1] && critical.x[i] < hi) knots[n++] = critical.x[i];
+        if (critical.x[i] > knots[n - 1] && critical.x[i] < hi)
+            knots[n++] = critical.x[i];
     }
-    if (hi > knots[n - 1]) knots[n++] = hi;
+    if (hi > knots[n - 1])
+        knots[n++] = hi;
     Sample left = sample(p, top, knots[0]);
     for (std::size_t i = 0; i + 1 < n; ++i) {
         Sample right = sample(p, top, knots[i + 1]);
         if (left.zero) {
             add_root(roots, knots[i]);
         } else if (!right.zero && (left.value < 0.0) != (right.value < 0.0)) {
-            add_root(roots, refine_root(p, dp, top, knots[i], knots[i + 1], left.value, right.value));
+            add_root(roots,
+                     refine_root(p, dp, top, knots[i], knots[i + 1], left.value, right.value));
         }
         left = right;
     }
-    if (left.zero) add_root(roots, knots[n - 1]);
+    if (left.zero)
+        add_root(roots, knots[n - 1]);
 }
 
 }  // namespace

@@ -16,7 +16,8 @@ namespace firn {
 /// Highest power with a non-zero coefficient; -1 for the zero polynomial.
 inline int degree(const Polynomial& p) {
     for (std::size_t i = p.c.size(); i-- > 0;) {
-        if (p.c[i] != 0.0) return static_cast<int>(i);
+        if (p.c[i] != 0.0)
+            return static_cast<int>(i);
     }
     return -1;
 }

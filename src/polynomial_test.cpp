@@ -15,7 +15,8 @@ Polynomial from_roots(const std::vector<double>& roots, double lead = 1.0) {
     Polynomial p;
     p.c[0] = lead;
     for (double r : roots) {  // multiply by (t - r)
-        for (std::size_t i = p.c.size() - 1; i > 0; --i) p.c[i] = p.c[i - 1] - r * p.c[i];
+        for (std::size_t i = p.c.size() - 1; i > 0; --i)
+            p.c[i] = p.c[i - 1] - r * p.c[i];
         p.c[0] = -r * p.c[0];
     }
     return p;
@@ -37,7 +38,8 @@ TEST_CASE("degree, derivative and antiderivative follow the power rule", "[polyn
     CHECK(d.c[3] == 0.0);
     Polynomial a = antiderivative(p);  // t + t^2 + t^3 + t^4 (power rule)
     CHECK(a.c[0] == 0.0);
-    for (std::size_t i = 1; i <= 4; ++i) CHECK(a.c[i] == 1.0);
+    for (std::size_t i = 1; i <= 4; ++i)
+        CHECK(a.c[i] == 1.0);
     CHECK(a(2.0) == 2.0 + 4.0 + 8.0 + 16.0);
 }
 
@@ -53,7 +55,7 @@ TEST_CASE("linear and quadratic roots", "[polynomial]") {
     REQUIRE(small.size() == 1);
     CHECK(small[0] == Approx(1e-8).epsilon(1e-14));
     CHECK(roots_of(Polynomial{{1.0, 0.0, 1.0}}, -10.0, 10.0).empty());  // t^2 + 1
-    auto touching = roots_of(from_roots({0.3, 0.3}), 0.0, 1.0);       // (t - 0.3)^2
+    auto touching = roots_of(from_roots({0.3, 0.3}), 0.0, 1.0);         // (t - 0.3)^2
     REQUIRE(touching.size() == 1);
     CHECK(touching[0] == Approx(0.3).epsilon(1e-7));
 }
@@ -67,7 +69,8 @@ TEST_CASE("cubic and quintic roots are isolated and refined to round-off", "[pol
     std::vector<double> five{0.1, 0.2, 0.5, 0.7, 0.9};
     auto q = roots_of(from_roots(five, -3.5), 0.0, 1.0);
     REQUIRE(q.size() == 5);
-    for (std::size_t i = 0; i < 5; ++i) CHECK(q[i] == Approx(five[i]).epsilon(1e-12));
+    for (std::size_t i = 0; i < 5; ++i)
+        CHECK(q[i] == Approx(five[i]).epsilon(1e-12));
     // Only the roots inside the interval, and roots sitting on its ends.
     auto inside = roots_of(from_roots(five), 0.2, 0.7);
     REQUIRE(inside.size() == 3);

@@ -27,12 +27,14 @@ struct MemberInfo {
 
 MemberInfo member_info(const Model& model, MemberId id) {
     const Member& m = model.members[at(id)];
-    return MemberInfo{element_properties(model, id), member_geometry(model, id), at(m.start), at(m.end)};
+    return MemberInfo{element_properties(model, id), member_geometry(model, id), at(m.start),
+                      at(m.end)};
 }
 
 std::vector<MemberInfo> member_infos(const Model& model) {
     std::vector<MemberInfo> out(model.members.size());
-    for (std::size_t i = 0; i < model.members.size(); ++i) out[i] = member_info(model, make_id<MemberId>(i));
+    for (std::size_t i = 0; i < model.members.size(); ++i)
+        out[i] = member_info(model, make_id<MemberId>(i));
     return out;
 }
 
@@ -55,12 +57,14 @@ ElementVector local_displacements(const Solution& s, CaseId c, const MemberInfo&
 void collect_breaks(double length, double tolerance, std::span<const LocalDistributed> spread,
                     std::span<const LocalPoint> points, std::vector<double>& breaks) {
     breaks.assign({0.0, length});
-    if (spread.empty() && points.empty()) return;  // the usual case: one piece
+    if (spread.empty() && points.empty())
+        return;  // the usual case: one piece
     for (const LocalDistributed& q : spread) {
         breaks.push_back(std::clamp(q.a, 0.0, length));
         breaks.push_back(std::clamp(q.b, 0.0, length));
     }
-    for (const LocalPoint& p : points) breaks.push_back(std::clamp(p.a, 0.0, length));
+    for (const LocalPoint& p : points)
+        breaks.push_back(std::clamp(p.a, 0.0, length));
     std::sort(breaks.begin(), breaks.end());
     auto close = [tolerance](double a, double b) { return b - a <= tolerance; };
     breaks.erase(std::unique(breaks.begin(), breaks.end(), close), breaks.end());
@@ -78,7 +82,8 @@ void apply_points(std::span<const LocalPoint> points, double s0, bool first, dou
                   Carried& at_start) {
     for (const LocalPoint& p : points) {
         bool here = first ? p.a <= s0 + tolerance : std::abs(p.a - s0) <= tolerance;
-        if (!here) continue;
+        if (!here)
+            continue;
         at_start.n -= p.px;
         at_start.v += p.py;
         at_start.m -= p.mz;
@@ -90,7 +95,8 @@ std::array<double, 4> load_on_piece(std::span<const LocalDistributed> spread, do
                                     double tolerance) {
     std::array<double, 4> q{};
     for (const LocalDistributed& d : spread) {
-        if (d.a > s0 + tolerance || d.b < s1 - tolerance || d.b <= d.a) continue;
+        if (d.a > s0 + tolerance || d.b < s1 - tolerance || d.b <= d.a)
+            continue;
         double run = d.b - d.a;
         double sx = (d.qx_b - d.qx_a) / run, sy = (d.qy_b - d.qy_a) / run;
         q[0] += d.qx_a + sx * (s0 - d.a);
@@ -108,14 +114,15 @@ FunctionPiece make_piece(double s0, double s1, const Carried& c, const std::arra
     Polynomial moment = antiderivative(shear);
     moment.c[0] = c.m;
     Polynomial curvature{{moment.c[0] / bending_rigidity, moment.c[1] / bending_rigidity,
-                          moment.c[2] / bending_rigidity, moment.c[3] / bending_rigidity, 0.0, 0.0}};
+                          moment.c[2] / bending_rigidity, moment.c[3] / bending_rigidity, 0.0,
+                          0.0}};
     Polynomial slope = antiderivative(curvature);
     slope.c[0] = c.slope;
     Polynomial deflection = antiderivative(slope);
     deflection.c[0] = c.w;
     // Built whole rather than filled in: this runs for every member in every case.
-    return FunctionPiece{s0, s1, Polynomial{{c.n, -q[0], -0.5 * q[1], 0.0, 0.0, 0.0}}, shear, moment,
-                         deflection};
+    return FunctionPiece{s0,    s1,     Polynomial{{c.n, -q[0], -0.5 * q[1], 0.0, 0.0, 0.0}},
+                         shear, moment, deflection};
 }
 
 /// The exact functions of one member, into scratch.pieces. `forces` are the
@@ -131,7 +138,8 @@ void build_functions(const MemberInfo& m, std::span<const LocalDistributed> spre
         apply_points(points, s0, i == 0, tolerance, c);
         FunctionPiece p = make_piece(s0, s1, c, load_on_piece(spread, s0, s1, tolerance),
                                      m.properties.bending_rigidity);
-        c = Carried{p.axial(h), p.shear(h), p.moment(h), p.deflection(h), derivative(p.deflection)(h)};
+        c = Carried{p.axial(h), p.shear(h), p.moment(h), p.deflection(h),
+                    derivative(p.deflection)(h)};
         s.pieces.push_back(p);
     }
     // Measure the deflection from the chord through the displaced ends.
@@ -148,19 +156,23 @@ void visit_stationary(const Polynomial& p, const Polynomial& dp, double h, Visit
     visit(0.0, p.c[0]);
     RealRoots roots = real_roots(dp, 0.0, h);
     for (std::size_t i = 0; i < roots.count; ++i) {
-        if (roots.x[i] > 0.0 && roots.x[i] < h) visit(roots.x[i], p(roots.x[i]));
+        if (roots.x[i] > 0.0 && roots.x[i] < h)
+            visit(roots.x[i], p(roots.x[i]));
     }
     visit(h, p(h));
 }
 
 void keep_largest(Extreme& e, double value, double position) {
-    if (value > e.value) e = Extreme{value, position};
+    if (value > e.value)
+        e = Extreme{value, position};
 }
 void keep_smallest(Extreme& e, double value, double position) {
-    if (value < e.value) e = Extreme{value, position};
+    if (value < e.value)
+        e = Extreme{value, position};
 }
 void keep_largest_magnitude(Extreme& e, double value, double position) {
-    if (std::abs(value) > std::abs(e.value)) e = Extreme{value, position};
+    if (std::abs(value) > std::abs(e.value))
+        e = Extreme{value, position};
 }
 
 MemberSummary summarize(const std::vector<FunctionPiece>& pieces) {
@@ -176,14 +188,16 @@ MemberSummary summarize(const std::vector<FunctionPiece>& pieces) {
             keep_largest(s.moment_max, v, p.a + t);
             keep_smallest(s.moment_min, v, p.a + t);
         });
-        visit_stationary(p.shear, derivative(p.shear), h,
-                         [&](double t, double v) { keep_largest_magnitude(s.shear_max, v, p.a + t); });
+        visit_stationary(p.shear, derivative(p.shear), h, [&](double t, double v) {
+            keep_largest_magnitude(s.shear_max, v, p.a + t);
+        });
         visit_stationary(p.axial, derivative(p.axial), h, [&](double t, double v) {
             keep_largest(s.axial_max, v, p.a + t);
             keep_smallest(s.axial_min, v, p.a + t);
         });
-        visit_stationary(p.deflection, derivative(p.deflection), h,
-                         [&](double t, double v) { keep_largest_magnitude(s.deflection_max, v, p.a + t); });
+        visit_stationary(p.deflection, derivative(p.deflection), h, [&](double t, double v) {
+            keep_largest_magnitude(s.deflection_max, v, p.a + t);
+        });
     }
     return s;
 }
@@ -210,15 +224,18 @@ void add_member_ends(const Context& x, const MemberInfo& m, const ElementVector&
     ElementVector g = to_global(local_forces, m.geometry);
     for (std::size_t end = 0; end < 2; ++end) {
         std::ptrdiff_t support = x.support_at[end == 0 ? m.start : m.end];
-        if (support < 0) continue;
+        if (support < 0)
+            continue;
         auto& sum = node_sums[static_cast<std::size_t>(support)];
-        for (std::size_t d = 0; d < 3; ++d) sum[d] += g[end * 3 + d];
+        for (std::size_t d = 0; d < 3; ++d)
+            sum[d] += g[end * 3 + d];
     }
 }
 
 /// The force each support applies to the structure: what the members need at
 /// the node less what is applied there (fixed), or -k u (spring), or 0 (free).
-void support_reactions(const Context& x, CaseId c, const std::vector<std::array<double, 3>>& node_sums,
+void support_reactions(const Context& x, CaseId c,
+                       const std::vector<std::array<double, 3>>& node_sums,
                        std::vector<std::array<double, 3>>& reactions) {
     const CaseLoads& cl = x.loads.cases[at(c)];
     reactions.assign(x.model.supports.size(), {0.0, 0.0, 0.0});
@@ -230,7 +247,8 @@ void support_reactions(const Context& x, CaseId c, const std::vector<std::array<
             if (r.kind == Restraint::Kind::fixed) {
                 reactions[i][d] = node_sums[i][d] - cl.nodal[node * 3 + d];
             } else if (r.kind == Restraint::Kind::spring) {
-                reactions[i][d] = -r.stiffness * x.solution.displacement(c, s.node, static_cast<Dof>(d));
+                reactions[i][d] =
+                    -r.stiffness * x.solution.displacement(c, s.node, static_cast<Dof>(d));
             }
         }
     }
@@ -254,8 +272,9 @@ struct Totals {
 
 /// Adds a member's loads, turned back to global: each distributed load as
 /// its resultant at its start node plus the couple of its first moment.
-void add_member_loads(const Model& model, const MemberInfo& m, std::span<const LocalDistributed> spread,
-                      std::span<const LocalPoint> points, Totals& t) {
+void add_member_loads(const Model& model, const MemberInfo& m,
+                      std::span<const LocalDistributed> spread, std::span<const LocalPoint> points,
+                      Totals& t) {
     const Node& start = model.nodes[m.start];
     double c = m.geometry.c, s = m.geometry.s;
     for (const LocalDistributed& q : spread) {
@@ -270,7 +289,8 @@ void add_member_loads(const Model& model, const MemberInfo& m, std::span<const L
     }
 }
 
-Equilibrium check_equilibrium(const Context& x, CaseId c, const std::vector<std::array<double, 3>>& reactions) {
+Equilibrium check_equilibrium(const Context& x, CaseId c,
+                              const std::vector<std::array<double, 3>>& reactions) {
     const CaseLoads& cl = x.loads.cases[at(c)];
     Totals applied, resisting;
     for (std::size_t n = 0; n < x.model.nodes.size(); ++n) {
@@ -291,7 +311,8 @@ Equilibrium check_equilibrium(const Context& x, CaseId c, const std::vector<std:
     for (std::size_t d = 0; d < 3; ++d) {
         double scale = d < 2 ? force_scale : moment_scale;
         double residual = std::abs(e.applied[d] + e.reactions[d]);
-        if (scale > 0.0) e.relative_residual = std::max(e.relative_residual, residual / scale);
+        if (scale > 0.0)
+            e.relative_residual = std::max(e.relative_residual, residual / scale);
     }
     return e;
 }
@@ -313,7 +334,8 @@ CaseResults case_results(const Context& x, CaseId c, Scratch& scratch,
     out.displacements.resize(x.model.nodes.size());
     for (std::size_t n = 0; n < x.model.nodes.size(); ++n) {
         for (std::size_t d = 0; d < 3; ++d) {
-            out.displacements[n][d] = x.solution.displacement(c, make_id<NodeId>(n), static_cast<Dof>(d));
+            out.displacements[n][d] =
+                x.solution.displacement(c, make_id<NodeId>(n), static_cast<Dof>(d));
         }
     }
     out.equilibrium = check_equilibrium(x, c, out.reactions);
@@ -333,7 +355,8 @@ std::vector<std::ptrdiff_t> supports_by_node(const Model& model) {
 
 Results compute_results(const Model& model, const LoadSet& loads, const Solution& solution) {
     Results results;
-    if (!solution.ok) return results;  // an unstable structure has no results to show
+    if (!solution.ok)
+        return results;  // an unstable structure has no results to show
     Context x{model, loads, solution, member_infos(model), supports_by_node(model)};
     results.cases.resize(loads.cases.size());
     results.rotation_free = solution.rotation_free;
@@ -347,8 +370,8 @@ Results compute_results(const Model& model, const LoadSet& loads, const Solution
     return results;
 }
 
-MemberFunctions member_functions(const Model& model, const CaseLoads& loads, const Solution& solution,
-                                 CaseId c, MemberId m) {
+MemberFunctions member_functions(const Model& model, const CaseLoads& loads,
+                                 const Solution& solution, CaseId c, MemberId m) {
     MemberInfo info = member_info(model, m);
     ElementVector forces = end_forces(info, loads, solution, c, m);
     Scratch scratch;

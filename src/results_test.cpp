@@ -38,7 +38,8 @@ struct Beam {
 /// The value of a member function at s (from the piece holding s, its left side at a jump).
 double value_at(const MemberFunctions& f, double s, Polynomial FunctionPiece::*which) {
     for (const FunctionPiece& p : f.pieces) {
-        if (s <= p.b) return (p.*which)(s - p.a);
+        if (s <= p.b)
+            return (p.*which)(s - p.a);
     }
     return (f.pieces.back().*which)(f.pieces.back().b - f.pieces.back().a);
 }
@@ -62,7 +63,8 @@ TEST_CASE("simply supported beam under a uniform load", "[results]") {
     // Shear is dM/dx: +wL/2 at the start, -wL/2 at the end (statics).
     CHECK(s.start[1] == exactly(w * L / 2));
     CHECK(s.end[1] == exactly(-w * L / 2));
-    MemberFunctions f = member_functions(beam.b.model, a.loads.cases[0], a.solution, beam.c, beam.m);
+    MemberFunctions f =
+        member_functions(beam.b.model, a.loads.cases[0], a.solution, beam.c, beam.m);
     REQUIRE(f.pieces.size() == 1);
     // M(x) = w x (L - x) / 2 (statics) at the quarter point.
     CHECK(f.pieces[0].moment(L / 4) == exactly(w * (L / 4) * (3 * L / 4) / 2));
@@ -82,8 +84,10 @@ TEST_CASE("fixed-fixed beam under a uniform load", "[results]") {
     CHECK(s.moment_max.value == exactly(w * L * L / 24));
     CHECK(s.moment_max.position == exactly(L / 2));
     CHECK(s.deflection_max.value == exactly(-w * L * L * L * L / (384 * EI)));
-    CHECK(a.reaction(beam.c, 0)[2] == exactly(w * L * L / 12));  // the wall turns it counterclockwise
-    MemberFunctions f = member_functions(beam.b.model, a.loads.cases[0], a.solution, beam.c, beam.m);
+    CHECK(a.reaction(beam.c, 0)[2] ==
+          exactly(w * L * L / 12));  // the wall turns it counterclockwise
+    MemberFunctions f =
+        member_functions(beam.b.model, a.loads.cases[0], a.solution, beam.c, beam.m);
     RealRoots zeros = real_roots(f.pieces[0].moment, 0.0, L);
     REQUIRE(zeros.count == 2);
     CHECK(zeros.x[0] / L == Approx(0.5 - 0.5 / std::sqrt(3.0)).epsilon(1e-9));  // 0.2113 exactly
@@ -107,7 +111,8 @@ TEST_CASE("propped cantilever under a uniform load", "[results]") {
         CHECK(s.moment_max.position == exactly(L - 3 * L / 8));
         double k = (39 + 55 * std::sqrt(33.0)) / 65536;
         CHECK(s.deflection_max.value == exactly(-k * w * L * L * L * L / EI));
-        CHECK(s.deflection_max.position == Approx(L - (1 + std::sqrt(33.0)) / 16 * L).epsilon(1e-8));
+        CHECK(s.deflection_max.position ==
+              Approx(L - (1 + std::sqrt(33.0)) / 16 * L).epsilon(1e-8));
         CHECK(s.end[2] == exactly(0.0, w * L * L));
         // The pinned end's node turns freely; with the member hinged there
         // nothing else meets it, so its rotation is undetermined and held.
@@ -154,7 +159,8 @@ TEST_CASE("point load at a distance on a simple beam", "[results]") {
     CHECK(s.shear_max.value == exactly(-P * pa / L));  // the larger side of the jump
     CHECK(s.start[1] == exactly(P * pb / L));
     double lb = L * L - pb * pb;
-    CHECK(s.deflection_max.value == exactly(-P * pb * std::pow(lb, 1.5) / (9 * std::sqrt(3.0) * L * EI)));
+    CHECK(s.deflection_max.value ==
+          exactly(-P * pb * std::pow(lb, 1.5) / (9 * std::sqrt(3.0) * L * EI)));
     CHECK(s.deflection_max.position == Approx(std::sqrt(lb / 3)).epsilon(1e-8));
 }
 
@@ -176,7 +182,8 @@ TEST_CASE("point moment at a distance on a simple beam", "[results]") {
 
 TEST_CASE("partial uniform, triangular and trapezoidal loads", "[results]") {
     Beam beam(Support::Kind::pinned, Support::Kind::roller_free_x);
-    CaseId partial = beam.c, triangle = beam.b.load_case("triangle"), trapezoid = beam.b.load_case("trapezoid");
+    CaseId partial = beam.c, triangle = beam.b.load_case("triangle"),
+           trapezoid = beam.b.load_case("trapezoid");
     double pa = 3.0;
     beam.b.spread(partial, beam.m, LoadDirection::down, 0.0, pa, w, w);
     beam.b.spread(triangle, beam.m, LoadDirection::down, 0.0, L, 0.0, w);
@@ -194,12 +201,14 @@ TEST_CASE("partial uniform, triangular and trapezoidal loads", "[results]") {
     CHECK(a.reaction(triangle, 1)[1] == exactly(w * L / 3));
     CHECK(a.member(triangle, beam.m).moment_max.value == exactly(w * L * L / (9 * std::sqrt(3.0))));
     CHECK(a.member(triangle, beam.m).moment_max.position == exactly(L / std::sqrt(3.0)));
-    // Trapezoid on [t1, t2] (statics): resultant W at its centroid; right of the load M = R_B (L - x).
+    // Trapezoid on [t1, t2] (statics): resultant W at its centroid; right of the load M = R_B (L -
+    // x).
     double W = 0.5 * (w1 + w2) * (t2 - t1);
     double centroid = t1 + (t2 - t1) * (w1 + 2 * w2) / (3 * (w1 + w2));
     double rb = W * centroid / L;
     CHECK(a.reaction(trapezoid, 1)[1] == exactly(rb));
-    MemberFunctions f = member_functions(beam.b.model, a.loads.cases[2], a.solution, trapezoid, beam.m);
+    MemberFunctions f =
+        member_functions(beam.b.model, a.loads.cases[2], a.solution, trapezoid, beam.m);
     CHECK(f.pieces.size() == 3);
     CHECK(value_at(f, 6.5, &FunctionPiece::moment) == exactly(rb * (L - 6.5)));
     CHECK(value_at(f, 0.5, &FunctionPiece::moment) == exactly((W - rb) * 0.5));
@@ -212,11 +221,12 @@ TEST_CASE("axial, transverse and global x loads", "[results]") {
     NodeId base = b.node("A", 0.0, 0.0), top = b.node("B", 0.0, h);
     MemberId column = b.member("AB", base, top, sec);
     b.support(base, Support::Kind::fixed);
-    CaseId gravity = b.load_case("gravity"), wind = b.load_case("wind"), mixed = b.load_case("mixed");
+    CaseId gravity = b.load_case("gravity"), wind = b.load_case("wind"),
+           mixed = b.load_case("mixed");
     b.uniform(gravity, column, LoadDirection::down, w);
     b.uniform(wind, column, LoadDirection::global_x, w);
-    b.point(mixed, column, LoadDirection::axial, 2.0, P);        // up the column
-    b.point(mixed, column, LoadDirection::transverse, h, P);     // local y of an upward member: -x
+    b.point(mixed, column, LoadDirection::axial, 2.0, P);     // up the column
+    b.point(mixed, column, LoadDirection::transverse, h, P);  // local y of an upward member: -x
     auto a = testing::analyse(b.model);
     testing::require_solved(a);
     // Gravity along the column (statics): compression w h at the base, none at the top.

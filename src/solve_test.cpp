@@ -3,9 +3,9 @@
 // textbook beam formulas and statics, as noted beside each check.
 #include "solve.hpp"
 
+#include <fmt/format.h>
 #include <catch2/catch.hpp>
 #include <cmath>
-#include <fmt/format.h>
 
 #include "test_model_builder.hpp"
 
@@ -20,7 +20,8 @@ constexpr double L = 6.0, w = 10e3, P = 25e3;
 
 bool all_finite(const Solution& s) {
     for (double v : s.displacements) {
-        if (!std::isfinite(v)) return false;
+        if (!std::isfinite(v))
+            return false;
     }
     return true;
 }
@@ -44,8 +45,9 @@ TEST_CASE("a beam on two rollers slides in x", "[solve]") {
     b.uniform(b.load_case("load"), m, LoadDirection::down, w);
     auto a = testing::analyse(b.model);
     const Diagnostic& d = only_error(a);
-    CHECK(d.message == "the structure is unstable: node 'A' is free to move in x "
-                       "(its members and supports form a mechanism)");
+    CHECK(d.message ==
+          "the structure is unstable: node 'A' is free to move in x "
+          "(its members and supports form a mechanism)");
     CHECK(d.where.begin.line == b.model.nodes[at(na)].where.begin.line);
 }
 
@@ -62,8 +64,9 @@ TEST_CASE("a pinned portal with a hinge at each beam end sways", "[solve]") {
     b.uniform(b.load_case("load"), beam, LoadDirection::down, w);
     auto a = testing::analyse(b.model);
     const Diagnostic& d = only_error(a);
-    CHECK(d.message == "the structure is unstable: node 'B' is free to move in x "
-                       "(its members and supports form a mechanism)");
+    CHECK(d.message ==
+          "the structure is unstable: node 'B' is free to move in x "
+          "(its members and supports form a mechanism)");
     CHECK(d.where.begin.line == b.model.nodes[at(nb)].where.begin.line);
 }
 
@@ -75,8 +78,9 @@ TEST_CASE("a loose node and a bar end with nothing across it", "[solve]") {
     b.support(na, Support::Kind::fixed);
     b.nodal(b.load_case("load"), nb, P, 0.0, 0.0);
     auto bar = testing::analyse(b.model);
-    CHECK(only_error(bar).message == "the structure is unstable: node 'B' is free to move in y "
-                                     "(nothing restrains it in that direction)");
+    CHECK(only_error(bar).message ==
+          "the structure is unstable: node 'B' is free to move in y "
+          "(nothing restrains it in that direction)");
     ModelBuilder c;
     SectionId t = c.section(c.material(E), A, I);
     NodeId ca = c.node("A", 0.0, 0.0), cb = c.node("B", L, 0.0);
@@ -86,8 +90,9 @@ TEST_CASE("a loose node and a bar end with nothing across it", "[solve]") {
     c.load_case("empty");
     auto loose = testing::analyse(c.model);
     REQUIRE(loose.diagnostics.error_count() == 2);  // x and y of the stray node
-    CHECK(loose.diagnostics.all()[0].message == "the structure is unstable: node 'stray' is free to "
-                                                "move in x (nothing restrains it in that direction)");
+    CHECK(loose.diagnostics.all()[0].message ==
+          "the structure is unstable: node 'stray' is free to "
+          "move in x (nothing restrains it in that direction)");
 }
 
 TEST_CASE("a node where every member is hinged keeps its rotation at 0", "[solve]") {
@@ -112,9 +117,10 @@ TEST_CASE("a node where every member is hinged keeps its rotation at 0", "[solve
 
     b.nodal(c, nb, 0.0, 0.0, 1e3);  // now a couple where nothing can resist it
     auto bad = testing::analyse(b.model);
-    CHECK(only_error(bad).message == "the structure is unstable: node 'B' is free to rotate under "
-                                     "this moment (every member is hinged there and no support "
-                                     "holds its rotation)");
+    CHECK(only_error(bad).message ==
+          "the structure is unstable: node 'B' is free to rotate under "
+          "this moment (every member is hinged there and no support "
+          "holds its rotation)");
 }
 
 TEST_CASE("springs", "[solve]") {
@@ -152,17 +158,20 @@ TEST_CASE("every case is a right-hand side of one factorization", "[solve]") {
         b.member(fmt::format("C{}", i), base.back(), top.back(), s);
     }
     std::vector<MemberId> beams;
-    for (std::size_t i = 0; i < 4; ++i) beams.push_back(b.member(fmt::format("G{}", i), top[i], top[i + 1], s));
+    for (std::size_t i = 0; i < 4; ++i)
+        beams.push_back(b.member(fmt::format("G{}", i), top[i], top[i + 1], s));
     std::vector<CaseId> cases;
     for (int k = 0; k < 7; ++k) {
         cases.push_back(b.load_case(fmt::format("case{}", k)));
-        b.uniform(cases.back(), beams[static_cast<std::size_t>(k) % 4], LoadDirection::down, w * (k + 1));
+        b.uniform(cases.back(), beams[static_cast<std::size_t>(k) % 4], LoadDirection::down,
+                  w * (k + 1));
         b.nodal(cases.back(), top[static_cast<std::size_t>(k) % 5], P * (k - 3), 0.0, 1e3 * k);
     }
     // The last case is case0 + 2 case1, loads copied.
     CaseId sum = b.load_case("sum");
     for (int k = 0; k < 2; ++k) {
-        for (DistributedLoad d : b.model.cases[at(cases[static_cast<std::size_t>(k)])].distributed) {
+        for (DistributedLoad d :
+             b.model.cases[at(cases[static_cast<std::size_t>(k)])].distributed) {
             d.w_start *= k + 1;
             d.w_end *= k + 1;
             b.loads(sum).distributed.push_back(d);
@@ -184,8 +193,10 @@ TEST_CASE("every case is a right-hand side of one factorization", "[solve]") {
     for (std::size_t n = 0; n < b.model.nodes.size(); ++n) {
         for (Dof d : {dof_x, dof_y, dof_rotation}) {
             NodeId id = make_id<NodeId>(n);
-            double expected = solution.displacement(cases[0], id, d) + 2 * solution.displacement(cases[1], id, d);
-            CHECK(solution.displacement(sum, id, d) == Approx(expected).epsilon(1e-9).margin(1e-15));
+            double expected =
+                solution.displacement(cases[0], id, d) + 2 * solution.displacement(cases[1], id, d);
+            CHECK(solution.displacement(sum, id, d) ==
+                  Approx(expected).epsilon(1e-9).margin(1e-15));
         }
     }
     testing::Analysis a = testing::analyse(b.model);

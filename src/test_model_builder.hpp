@@ -2,9 +2,9 @@
 // and runs loads -> solve -> results on them.
 #pragma once
 
+#include <fmt/format.h>
 #include <catch2/catch.hpp>
 #include <cmath>
-#include <fmt/format.h>
 #include <string>
 
 #include "diag.hpp"
@@ -29,8 +29,8 @@ struct ModelBuilder {
         return r;
     }
     MaterialId material(double elastic_modulus, double unit_weight = 0.0) {
-        model.materials.push_back({fmt::format("mat{}", model.materials.size()), elastic_modulus,
-                                   unit_weight, place()});
+        model.materials.push_back(
+            {fmt::format("mat{}", model.materials.size()), elastic_modulus, unit_weight, place()});
         return make_id<MaterialId>(model.materials.size() - 1);
     }
     SectionId section(MaterialId m, double area, double inertia) {
@@ -47,8 +47,8 @@ struct ModelBuilder {
         model.nodes.push_back({name, x, y, place()});
         return make_id<NodeId>(model.nodes.size() - 1);
     }
-    MemberId member(const std::string& name, NodeId a, NodeId b, SectionId s, bool hinge_start = false,
-                    bool hinge_end = false) {
+    MemberId member(const std::string& name, NodeId a, NodeId b, SectionId s,
+                    bool hinge_start = false, bool hinge_end = false) {
         model.members.push_back({name, a, b, s, hinge_start, hinge_end, place()});
         return make_id<MemberId>(model.members.size() - 1);
     }
@@ -75,8 +75,10 @@ struct ModelBuilder {
         s.where = place();
         std::array<double, 3> k{kx, ky, kr};
         for (std::size_t d = 0; d < 3; ++d) {
-            if (k[d] > 0.0) s.restraint[d] = {Restraint::Kind::spring, k[d]};
-            if (k[d] < 0.0) s.restraint[d] = {Restraint::Kind::fixed, 0.0};
+            if (k[d] > 0.0)
+                s.restraint[d] = {Restraint::Kind::spring, k[d]};
+            if (k[d] < 0.0)
+                s.restraint[d] = {Restraint::Kind::fixed, 0.0};
         }
         model.supports.push_back(s);
     }
@@ -119,7 +121,9 @@ struct Analysis {
     Solution solution;
     Results results;
 
-    const MemberSummary& member(CaseId c, MemberId m) const { return results.cases[at(c)].members[at(m)]; }
+    const MemberSummary& member(CaseId c, MemberId m) const {
+        return results.cases[at(c)].members[at(m)];
+    }
     const std::array<double, 3>& reaction(CaseId c, std::size_t support) const {
         return results.cases[at(c)].reactions[support];
     }
@@ -130,14 +134,16 @@ inline Analysis analyse(const Model& model) {
     Analysis a;
     a.loads = derive_loads(model, a.diagnostics);
     a.solution = solve(model, a.loads, a.diagnostics);
-    if (a.solution.ok) a.results = compute_results(model, a.loads, a.solution);
+    if (a.solution.ok)
+        a.results = compute_results(model, a.loads, a.solution);
     return a;
 }
 
 /// The largest equilibrium residual over all cases (every test keeps it below 1e-9).
 inline double worst_residual(const Analysis& a) {
     double worst = 0.0;
-    for (const CaseResults& c : a.results.cases) worst = std::max(worst, c.equilibrium.relative_residual);
+    for (const CaseResults& c : a.results.cases)
+        worst = std::max(worst, c.equilibrium.relative_residual);
     return worst;
 }
 
@@ -152,6 +158,8 @@ inline void require_solved(const Analysis& a) {
 
 /// Approx with a relative tolerance of 1e-9, for results that are exact up to
 /// round-off; `scale` sets the margin around an expected zero.
-inline Approx exactly(double v, double scale = 0.0) { return Approx(v).epsilon(1e-9).margin(1e-9 * scale); }
+inline Approx exactly(double v, double scale = 0.0) {
+    return Approx(v).epsilon(1e-9).margin(1e-9 * scale);
+}
 
 }  // namespace firn::testing
