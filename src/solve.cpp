@@ -35,24 +35,11 @@ double seconds_since(Clock::time_point start) {
 /// their diagonal, far above it; a mechanism leaves only round-off (~1e-16).
 constexpr double pivot_tolerance = 1e-10;
 
-/// The restraint of every node and direction, supports at one node combined
-/// (fixed wins over a spring; springs add up).
+/// The restraint of every node and direction (resolve allows one support per node).
 std::vector<std::array<Restraint, 3>> node_restraints(const Model& model) {
     std::vector<std::array<Restraint, 3>> out(model.nodes.size());
-    for (const Support& s : model.supports) {
-        for (std::size_t d = 0; d < 3; ++d) {
-            Restraint& r = out[at(s.node)][d];
-            const Restraint& add = s.restraint[d];
-            if (r.kind == Restraint::Kind::fixed || add.kind == Restraint::Kind::free)
-                continue;
-            if (add.kind == Restraint::Kind::fixed) {
-                r = add;
-            } else {
-                r.kind = Restraint::Kind::spring;
-                r.stiffness += add.stiffness;
-            }
-        }
-    }
+    for (const Support& s : model.supports)
+        out[at(s.node)] = s.restraint;
     return out;
 }
 
