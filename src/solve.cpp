@@ -330,32 +330,42 @@ bool factor_stiffness(const Model& model, const DofMap& map, const std::vector<M
     return false;
 }
 
+/// Adds the condensed equivalent loads of member i in cases [first, last) to
+/// its rows of the load block. Cases run innermost, so each row is written
+/// left to right: the block is row-major.
+void add_member_loads(const LoadSet& loads, const MemberData& m, std::size_t i,
+                      const std::vector<Eigen::Index>& position, std::size_t first,
+                      std::size_t last, Block& b) {
+    for (std::size_t c = first; c < last; ++c) {
+        const CaseLoads& cl = loads.cases[c];
+        auto spread = cl.distributed_on(make_id<MemberId>(i));
+        auto points = cl.points_on(make_id<MemberId>(i));
+        if (spread.empty() && points.empty())
+            continue;
+        ElementVector f =
+            to_global(condensed_loads(m.properties, consistent_loads(m.properties, spread, points)),
+                      m.geometry);
+        auto column = static_cast<Eigen::Index>(c - first);
+        for (std::size_t j = 0; j < 6; ++j) {
+            if (m.equation[j] != no_equation)
+                b(position[static_cast<std::size_t>(m.equation[j])], column) += f[j];
+        }
+    }
+}
+
 /// Load vectors of cases [first, last), one column each, rows in factor order:
 /// nodal loads plus the condensed equivalent loads of the members.
 Block load_block(const LoadSet& loads, const DofMap& map, const std::vector<MemberData>& members,
                  const std::vector<Eigen::Index>& position, std::size_t first, std::size_t last) {
     auto n = static_cast<Eigen::Index>(position.size());
-    Block b = Block::Zero(n, static_cast<Eigen::Index>(last - first));
-    for (std::size_t c = first; c < last; ++c) {
-        const CaseLoads& cl = loads.cases[c];
-        auto column = static_cast<Eigen::Index>(c - first);
-        for (std::size_t e = 0; e < map.freedom.size(); ++e)
-            b(position[e], column) = cl.nodal[map.freedom[e]];
-        for (std::size_t i = 0; i < members.size(); ++i) {
-            auto spread = cl.distributed_on(make_id<MemberId>(i));
-            auto points = cl.points_on(make_id<MemberId>(i));
-            if (spread.empty() && points.empty())
-                continue;
-            const MemberData& m = members[i];
-            ElementVector f = to_global(
-                condensed_loads(m.properties, consistent_loads(m.properties, spread, points)),
-                m.geometry);
-            for (std::size_t j = 0; j < 6; ++j) {
-                if (m.equation[j] != no_equation)
-                    b(position[static_cast<std::size_t>(m.equation[j])], column) += f[j];
-            }
-        }
+    Block b(n, static_cast<Eigen::Index>(last - first));
+    for (std::size_t e = 0; e < map.freedom.size(); ++e) {
+        double* row = b.row(position[e]).data();
+        for (std::size_t c = first; c < last; ++c)
+            row[c - first] = loads.cases[c].nodal[map.freedom[e]];
     }
+    for (std::size_t i = 0; i < members.size(); ++i)
+        add_member_loads(loads, members[i], i, position, first, last, b);
     return b;
 }
 
@@ -399,11 +409,13 @@ void solve_cases(const LoadSet& loads, const DofMap& map, const std::vector<Memb
                  std::size_t last, Solution& out) {
     Block x = load_block(loads, map, members, position, first, last);
     solve_in_place(factor, x);
-    for (std::size_t c = first; c < last; ++c) {
-        double* u = out.displacements.data() + c * out.node_count * 3;
-        for (std::size_t e = 0; e < map.freedom.size(); ++e) {
-            u[map.freedom[e]] = x(position[e], static_cast<Eigen::Index>(c - first));
-        }
+    // Row by row again: each row of x holds one freedom in every case.
+    std::size_t stride = out.node_count * 3;
+    for (std::size_t e = 0; e < map.freedom.size(); ++e) {
+        const double* row = x.row(position[e]).data();
+        double* u = out.displacements.data() + first * stride + map.freedom[e];
+        for (std::size_t c = 0; c < last - first; ++c)
+            u[c * stride] = row[c];
     }
 }
 
