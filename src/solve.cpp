@@ -439,6 +439,16 @@ bool report_unresisted_moments(const Model& model, const DofMap& map, Diagnostic
     return ok;
 }
 
+/// Every case on the one factor, in groups of cases, one group per thread.
+void solve_all_cases(const LoadSet& loads, const DofMap& map,
+                     const std::vector<MemberData>& members, const Factor& factor, Solution& out) {
+    auto n = static_cast<Eigen::Index>(map.freedom.size());
+    std::vector<Eigen::Index> position = factor_positions(factor, n);
+    for_each_chunk(out.case_count, [&](std::size_t first, std::size_t last) {
+        solve_cases(loads, map, members, factor, position, first, last, out);
+    });
+}
+
 bool all_finite(const Model& model, const Solution& s, Diagnostics& diagnostics) {
     for (std::size_t c = 0; c < s.case_count; ++c) {
         const double* u = s.displacements.data() + c * s.node_count * 3;
@@ -485,12 +495,8 @@ Solution solve(const Model& model, const LoadSet& loads, Diagnostics& diagnostic
         timings->factor = seconds_since(start);
 
     start = Clock::now();
-    if (!map.freedom.empty()) {
-        std::vector<Eigen::Index> position = factor_positions(factor, k.diagonal.size());
-        for_each_chunk(out.case_count, [&](std::size_t first, std::size_t last) {
-            solve_cases(loads, map, members, factor, position, first, last, out);
-        });
-    }
+    if (!map.freedom.empty())
+        solve_all_cases(loads, map, members, factor, out);
     out.ok = all_finite(model, out, diagnostics);
     if (!out.ok)
         std::fill(out.displacements.begin(), out.displacements.end(), 0.0);
