@@ -156,8 +156,9 @@ void Builder::recover_from(const pegtl::parse_error& e, const char* at, bool in_
     if (message == g::errors::message<g::block_close> && block_line > 0) {
         message += fmt::format(" opened at line {}", block_line);
     }
-    message += ", found " + found;
-    if (found.front() == '\'' && found.find("reserved") == std::string::npos) {
+    bool expected_something = message.rfind("expected", 0) == 0;
+    if (expected_something) message += ", found " + found;
+    if (expected_something && found.front() == '\'' && found.find("reserved") == std::string::npos) {
         message += did_you_mean(found.substr(1, width), keywords_in(e.message()));
     }
     if (in_block && block_line > 0 && starts_statement(at, base + sources.file(file).text.size())) {

@@ -99,7 +99,8 @@ TEST_CASE("syntax errors: exact message, line and column") {
     CHECK(first_message("node N at x = 2 *\n") ==
           "input:2:1: error: expected a number such as 12 ft, or '(', found the end of the file");
     CHECK(first_message("support hinged at N1\n") ==
-          "input:1:9: error: expected a support type (fixed, pinned, roller or spring), found 'hinged'");
+          "input:1:9: error: expected a support type (fixed, pinned, roller or spring), found 'hinged'; "
+          "did you mean 'pinned'?");
 }
 
 TEST_CASE("an unclosed case block names the line that opened it") {

@@ -88,8 +88,8 @@ Json case_json(const Model& model, const Results& results, std::size_t c, const 
     const CaseResults& r = results.cases[c];
     Json reactions = Json::array(), displacements = Json::array(), members = Json::array();
     for (std::size_t i = 0; i < model.supports.size(); ++i) {
-        Json row = triple(r.reactions[i], u.force, u.moment, "Rx", "Ry", "M");
-        row.insert(row.begin(), {"node", model.nodes[at(model.supports[i].node)].name});
+        Json row{{"node", model.nodes[at(model.supports[i].node)].name}};
+        row.update(triple(r.reactions[i], u.force, u.moment, "Rx", "Ry", "M"));
         reactions.push_back(std::move(row));
     }
     for (std::size_t i = 0; i < model.nodes.size(); ++i) {

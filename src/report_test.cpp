@@ -2,6 +2,7 @@
 // changes, and that JSON is the same results.
 #include <catch2/catch.hpp>
 #include <nlohmann/json.hpp>
+#include <regex>
 #include <sstream>
 
 #include "driver.hpp"
@@ -39,7 +40,7 @@ TEST_CASE("the report carries the caution, the units and the sign conventions") 
     CHECK(r.find("Units: force kip, length ft, moment kip*ft, displacement in, rotation rad") != std::string::npos);
     CHECK(r.find("N  axial force, tension positive.") != std::string::npos);
     CHECK(r.find("Rx [kip]") != std::string::npos);
-    CHECK(r.find("-0.0") == std::string::npos);
+    CHECK_FALSE(std::regex_search(r, std::regex(R"((^|\s)-0\.0*(\s|$))")));  // no negative zero
 }
 
 TEST_CASE("two runs give identical bytes") {

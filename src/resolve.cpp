@@ -156,8 +156,9 @@ std::vector<GridRef> resolve_grids(Resolver& r, const Collected& c) {
     return refs;
 }
 
-/// One coordinate of a node: `x = 12 ft` or a grid line name.
-void resolve_coordinate(Resolver& r, const syntax::NodeDecl& decl,
+/// One coordinate of a node: `x = 12 ft` or a grid line name. Returns false
+/// after reporting an error.
+bool resolve_coordinate(Resolver& r, const syntax::NodeDecl& decl,
                         const syntax::NodeDecl::Coordinate& c, const std::vector<GridRef>& grid,
                         std::array<std::optional<double>, 2>& xy) {
     syntax::Axis axis;
@@ -167,7 +168,7 @@ void resolve_coordinate(Resolver& r, const syntax::NodeDecl& decl,
         if (!i) {
             xy[0] = xy[0].value_or(0.0);  // placeholder so the node is not also reported as incomplete
             xy[1] = xy[1].value_or(0.0);
-            return;
+            return false;
         }
         axis = grid[*i].axis;
         v = grid[*i].position;
@@ -175,22 +176,25 @@ void resolve_coordinate(Resolver& r, const syntax::NodeDecl& decl,
         axis = *c.axis;
         v = r.value(*c.value, expect::length);
         if (v && !r.within(*c.value, *v, kMaxCoordinate, "coordinate")) v.reset();
-        if (!v) v = 0.0;
     }
     auto& slot = xy[axis == syntax::Axis::x ? 0 : 1];
     if (slot) {
         r.diagnostics.error(c.where, fmt::format("node '{}' is given two {} coordinates", decl.name.text,
                                                  axis == syntax::Axis::x ? "x" : "y"));
-        return;
+        return false;
     }
-    slot = v;
+    slot = v.value_or(0.0);
+    return v.has_value();
 }
 
 void resolve_nodes(Resolver& r, const Collected& c, const std::vector<GridRef>& grid) {
     std::map<std::pair<long long, long long>, std::size_t> occupied;
     for (const syntax::NodeDecl* decl : c.nodes) {
         std::array<std::optional<double>, 2> xy;
-        for (const auto& coordinate : decl->coordinates) resolve_coordinate(r, *decl, coordinate, grid, xy);
+        bool placed = true;
+        for (const auto& coordinate : decl->coordinates) {
+            placed = resolve_coordinate(r, *decl, coordinate, grid, xy) && placed;
+        }
         if (!r.nodes.add(decl->name, r.diagnostics)) continue;
         if (!xy[0] || !xy[1]) {
             r.diagnostics.error(decl->name.where,
@@ -201,7 +205,7 @@ void resolve_nodes(Resolver& r, const Collected& c, const std::vector<GridRef>& 
         // Coordinates are bounded, so rounding to micrometres cannot overflow.
         auto key = std::pair{std::llround(n.x * 1e6), std::llround(n.y * 1e6)};
         auto [it, fresh] = occupied.emplace(key, r.model.nodes.size());
-        if (!fresh && xy[0] && xy[1]) {
+        if (!fresh && placed && xy[0] && xy[1]) {
             Diagnostic& d = r.diagnostics.warning(decl->name.where,
                 fmt::format("node '{}' is at the same place as node '{}'; they are not connected",
                             n.name, r.model.nodes[it->second].name));

@@ -98,17 +98,17 @@ TEST_CASE("resolve errors: exact message, line and column") {
     CHECK(first_message(with("member B2 from N2 to N2 section beam\n")) ==
           "input:9:22: error: member 'B2' starts and ends at node 'N2'");
     CHECK(first_message(with("member B2 from N2 to N1 section beem\n")) ==
-          "input:9:32: error: unknown section 'beem'; did you mean 'beam'?");
+          "input:9:33: error: unknown section 'beem'; did you mean 'beam'?");
     CHECK(first_message(with("node N3 at x = 20 ft, y = 0 ft\nmember B2 from N2 to N3 section beam hinge at N1\n")) ==
-          "input:10:46: error: node 'N1' is not an end of member 'B2'");
+          "input:10:47: error: node 'N1' is not an end of member 'B2'");
     CHECK(first_message(with("support pinned at N1\n")) ==
           "input:9:19: error: node 'N1' already has a support");
     CHECK(first_message(with("support fixed at N2 x = 10 kip/in\n")) ==
           "input:9:21: error: springs are given only for 'support spring'");
     CHECK(first_message(with("section s2 steel, A = 10 in2\n")) ==
           "input:9:9: error: section 's2' needs 'I', a second moment of area");
-    CHECK(first_message(with("section s2 steel, A = 10 in2, Ix = 3 in4\n")) ==
-          "input:9:31: error: unknown property 'Ix' of section 's2'; expected A, I; did you mean 'I'?");
+    CHECK(first_message(with("section s2 steel, A = 10 in2, I = 2 in4, Ix = 3 in4\n")) ==
+          "input:9:42: error: unknown property 'Ix' of section 's2'; expected A, I; did you mean 'I'?");
     CHECK(first_message(with("section s2 steel, A = -10 in2, I = 3 in4\n")) ==
           "input:9:23: error: 'A' must be greater than zero");
     CHECK(first_message(with("node N3 at x = 1e300 ft * 1e300, y = 0 ft\n")) ==
@@ -127,7 +127,7 @@ TEST_CASE("load errors: exact message, line and column") {
     CHECK(first_message(with("case D dead {\n  point 1 kip down on B1 at 12 ft\n}\n")) ==
           "input:10:29: error: 12.000 ft lies outside member 'B1', which is 10.000 ft long");
     CHECK(first_message(with("case D dead {\n  uniform 1 kip/ft down on B1 from 6 ft to 4 ft\n}\n")) ==
-          "input:10:43: error: a loaded part must end after it starts");
+          "input:10:44: error: a loaded part must end after it starts");
     CHECK(first_message(with("case D dead {\n  point 1 kip axial at N2\n}\n")) ==
           "input:10:15: error: a load at a node takes a global direction (x, y, up or down)");
     CHECK(first_message(with("case D dead {\n  uniform 1 kip/ft x projected on B1\n}\n")) ==
@@ -150,5 +150,5 @@ TEST_CASE("independent resolve errors are all reported in one run") {
     std::string all = messages_for(with("node N3 at x = 12, y = 0 ft\nmember B2 from N2 to N4 section beem\n"));
     CHECK(all.find("input:9:16: error: expected a length") != std::string::npos);
     CHECK(all.find("input:10:22: error: unknown node 'N4'") != std::string::npos);
-    CHECK(all.find("input:10:32: error: unknown section 'beem'") != std::string::npos);
+    CHECK(all.find("input:10:33: error: unknown section 'beem'") != std::string::npos);
 }

@@ -53,7 +53,7 @@ TEST_CASE("a very long line parses, and an error on it is shown in a window") {
 
 TEST_CASE("binary garbage gives errors, capped, and never a crash") {
     std::string garbage;
-    for (int i = 0; i < 5000; ++i) garbage += static_cast<char>((i * 7919) % 256);
+    for (int i = 0; i < 50000; ++i) garbage += static_cast<char>((i * 7919) % 256);
     std::string all = messages_for(garbage);
     CHECK(all.find("error:") != std::string::npos);
     CHECK(all.find("too many syntax errors") != std::string::npos);
@@ -73,5 +73,5 @@ TEST_CASE("huge and tiny numbers stay finite or are refused") {
     CHECK(first_message(std::string(kBaseModel) + "node N3 at x = 1e-400 ft, y = 5 ft\nmember B2 from N2 to N3 section beam\n") ==
           "");
     CHECK(first_message(std::string(kBaseModel) + "material m E = 1e30 ksi\n") ==
-          "input:9:19: error: this value is out of range (beyond 1e+15 in SI units)");
+          "input:9:16: error: this value is out of range (beyond 1e+15 in SI units)");
 }

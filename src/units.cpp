@@ -42,16 +42,18 @@ std::string describe(Dimension d) {
     for (const Named& n : names) {
         if (n.dimension == d) return n.phrase;
     }
-    auto part = [](const char* base, int e) {
-        if (e == 0) return std::string();
-        return e == 1 ? std::string(base) : fmt::format("{}^{}", base, e);
+    // "force^2*length" for positive exponents, the same for negative ones below the bar.
+    auto side = [](int force, int length) {
+        auto part = [](const char* base, int e) {
+            return e <= 0 ? std::string() : e == 1 ? std::string(base) : fmt::format("{}^{}", base, e);
+        };
+        return fmt::format("{}{}{}", part("force", force), force > 0 && length > 0 ? "*" : "",
+                           part("length", length));
     };
-    std::string top = part("force", std::max(0, int{d.force})) + 
-                      ((d.force > 0 && d.length > 0) ? "*" : "") + part("length", std::max(0, int{d.length}));
-    std::string bottom = part("force", std::max(0, -int{d.force})) +
-                         ((d.force < 0 && d.length < 0) ? "*" : "") + part("length", std::max(0, -int{d.length}));
-    if (top.empty()) top = "1";
-    return "a quantity of dimension " + (bottom.empty() ? top : top + "/" + bottom);
+    std::string top = side(d.force, d.length);
+    std::string bottom = side(-d.force, -d.length);
+    return fmt::format("a quantity of dimension {}{}{}", top.empty() ? std::string("1") : top,
+                       bottom.empty() ? "" : "/", bottom);
 }
 
 namespace {
@@ -150,16 +152,16 @@ bool make_display_units(std::string_view force, std::string_view length,
     std::string f(force), l(length);
     out.force = unit(f, force_decimals);
     out.length = unit(l, length_decimals);
-    out.moment = unit(f + "*" + l, decimals_for_moment(f, l));
+    out.moment = unit(fmt::format("{}*{}", f, l), decimals_for_moment(f, l));
     out.displacement = unit(std::string(displacement), decimals_for_displacement(displacement));
     out.rotation = unit("rad", 6);
-    out.force_per_length = unit(f + "/" + l, force_decimals + 1);
+    out.force_per_length = unit(fmt::format("{}/{}", f, l), force_decimals + 1);
     out.area = customary ? unit("in^2", 3) : unit("mm^2", 0);
     out.inertia = customary ? unit("in^4", 2) : unit("mm^4", 0);
     out.modulus = customary ? unit("ksi", 0) : unit("MPa", 0);
     out.unit_weight = customary ? unit("pcf", 1) : unit("kN/m^3", 2);
-    out.stiffness = customary ? unit(f + "/in", 3) : unit(f + "/mm", 3);
-    out.rotational_stiffness = unit(f + "*" + l + "/rad", 1);
+    out.stiffness = unit(fmt::format("{}/{}", f, customary ? "in" : "mm"), 3);
+    out.rotational_stiffness = unit(fmt::format("{}*{}/rad", f, l), 1);
     return true;
 }
 
