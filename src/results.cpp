@@ -38,10 +38,19 @@ std::vector<MemberInfo> member_infos(const Model& model) {
     return out;
 }
 
-/// Buffers one worker reuses for every member, so the member loop does not allocate.
+/// N, V, M and deflection at the end of a piece (before any jump there).
+struct PieceEnd {
+    double n, v, m, w;
+};
+
+/// Buffers one worker reuses for every member, so the member loop does not
+/// allocate. `ends` holds each piece's end values: the summaries need them
+/// and they fall out of building the next piece, so they are kept, not
+/// evaluated again.
 struct Scratch {
     std::vector<double> breaks;
     std::vector<FunctionPiece> pieces;
+    std::vector<PieceEnd> ends;
 };
 
 /// Global end displacements of a member in one case, turned to local axes.
@@ -132,6 +141,7 @@ void build_functions(const MemberInfo& m, std::span<const LocalDistributed> spre
     double length = m.geometry.length, tolerance = 1e-12 * length;
     collect_breaks(length, tolerance, spread, points, s.breaks);
     s.pieces.clear();
+    s.ends.clear();
     Carried c{-forces[0], forces[1], -forces[2], 0.0, 0.0};
     for (std::size_t i = 0; i + 1 < s.breaks.size(); ++i) {
         double s0 = s.breaks[i], s1 = s.breaks[i + 1], h = s1 - s0;
@@ -141,25 +151,30 @@ void build_functions(const MemberInfo& m, std::span<const LocalDistributed> spre
         c = Carried{p.axial(h), p.shear(h), p.moment(h), p.deflection(h),
                     derivative(p.deflection)(h)};
         s.pieces.push_back(p);
+        s.ends.push_back(PieceEnd{c.n, c.v, c.m, c.w});
     }
     // Measure the deflection from the chord through the displaced ends.
     double chord_slope = c.w / length;
-    for (FunctionPiece& p : s.pieces) {
+    for (std::size_t i = 0; i < s.pieces.size(); ++i) {
+        FunctionPiece& p = s.pieces[i];
         p.deflection.c[0] -= chord_slope * p.a;
         p.deflection.c[1] -= chord_slope;
+        s.ends[i].w -= chord_slope * p.b;
     }
 }
 
-/// Calls visit(t, value) at both ends of [0, h] and wherever p' vanishes inside.
+/// Calls visit(t, value) at both ends of [0, h] (p(h) = end) and wherever p'
+/// vanishes inside.
 template <typename Visit>
-void visit_stationary(const Polynomial& p, const Polynomial& dp, double h, Visit visit) {
+void visit_stationary(const Polynomial& p, const Polynomial& dp, double h, double end,
+                      Visit visit) {
     visit(0.0, p.c[0]);
     RealRoots roots = real_roots(dp, 0.0, h);
     for (std::size_t i = 0; i < roots.count; ++i) {
         if (roots.x[i] > 0.0 && roots.x[i] < h)
             visit(roots.x[i], p(roots.x[i]));
     }
-    visit(h, p(h));
+    visit(h, end);
 }
 
 void keep_largest(Extreme& e, double value, double position) {
@@ -175,27 +190,28 @@ void keep_largest_magnitude(Extreme& e, double value, double position) {
         e = Extreme{value, position};
 }
 
-MemberSummary summarize(const std::vector<FunctionPiece>& pieces) {
+MemberSummary summarize(const Scratch& functions) {
     MemberSummary s;
-    const FunctionPiece& first = pieces.front();
-    const FunctionPiece& last = pieces.back();
-    double h_last = last.b - last.a;
+    const FunctionPiece& first = functions.pieces.front();
+    const PieceEnd& last = functions.ends.back();
     s.start = {first.axial.c[0], first.shear.c[0], first.moment.c[0]};
-    s.end = {last.axial(h_last), last.shear(h_last), last.moment(h_last)};
-    for (const FunctionPiece& p : pieces) {
+    s.end = {last.n, last.v, last.m};
+    for (std::size_t i = 0; i < functions.pieces.size(); ++i) {
+        const FunctionPiece& p = functions.pieces[i];
+        const PieceEnd& end = functions.ends[i];
         double h = p.b - p.a;
-        visit_stationary(p.moment, p.shear, h, [&](double t, double v) {
+        visit_stationary(p.moment, p.shear, h, end.m, [&](double t, double v) {
             keep_largest(s.moment_max, v, p.a + t);
             keep_smallest(s.moment_min, v, p.a + t);
         });
-        visit_stationary(p.shear, derivative(p.shear), h, [&](double t, double v) {
+        visit_stationary(p.shear, derivative(p.shear), h, end.v, [&](double t, double v) {
             keep_largest_magnitude(s.shear_max, v, p.a + t);
         });
-        visit_stationary(p.axial, derivative(p.axial), h, [&](double t, double v) {
+        visit_stationary(p.axial, derivative(p.axial), h, end.n, [&](double t, double v) {
             keep_largest(s.axial_max, v, p.a + t);
             keep_smallest(s.axial_min, v, p.a + t);
         });
-        visit_stationary(p.deflection, derivative(p.deflection), h, [&](double t, double v) {
+        visit_stationary(p.deflection, derivative(p.deflection), h, end.w, [&](double t, double v) {
             keep_largest_magnitude(s.deflection_max, v, p.a + t);
         });
     }
@@ -328,7 +344,7 @@ CaseResults case_results(const Context& x, CaseId c, Scratch& scratch,
         ElementVector forces = end_forces(x.members[m], cl, x.solution, c, id);
         add_member_ends(x, x.members[m], forces, node_sums);
         build_functions(x.members[m], cl.distributed_on(id), cl.points_on(id), forces, scratch);
-        out.members[m] = summarize(scratch.pieces);
+        out.members[m] = summarize(scratch);
     }
     support_reactions(x, c, node_sums, out.reactions);
     out.displacements.resize(x.model.nodes.size());
