@@ -13,14 +13,6 @@ namespace {
 
 constexpr double eps = std::numeric_limits<double>::epsilon();
 
-/// p(t) by Horner's rule from the highest non-zero power `top`.
-double evaluate(const Polynomial& p, int top, double t) {
-    double v = 0.0;
-    for (int i = top; i >= 0; --i)
-        v = v * t + p.c[static_cast<std::size_t>(i)];
-    return v;
-}
-
 /// p(t), and whether it is zero within the rounding error of Horner's rule
 /// (about 2n eps times the sum of the magnitudes of the terms, with margin).
 struct Sample {

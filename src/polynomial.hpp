@@ -33,6 +33,15 @@ inline Polynomial antiderivative(const Polynomial& p) {
     return Polynomial{{0.0, p.c[0], p.c[1] / 2.0, p.c[2] / 3.0, p.c[3] / 4.0, p.c[4] / 5.0}};
 }
 
+/// p(t) by Horner's rule, for a p known to have no terms above t^top: cheaper
+/// than p(t) when the top coefficients are known zeros.
+inline double evaluate(const Polynomial& p, int top, double t) {
+    double v = 0.0;
+    for (int i = top; i >= 0; --i)
+        v = v * t + p.c[static_cast<std::size_t>(i)];
+    return v;
+}
+
 /// Real roots of a polynomial inside an interval, ascending, each listed once.
 struct RealRoots {
     std::array<double, 5> x{};

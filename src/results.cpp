@@ -148,8 +148,9 @@ void build_functions(const MemberInfo& m, std::span<const LocalDistributed> spre
         apply_points(points, s0, i == 0, tolerance, c);
         FunctionPiece p = make_piece(s0, s1, c, load_on_piece(spread, s0, s1, tolerance),
                                      m.properties.bending_rigidity);
-        c = Carried{p.axial(h), p.shear(h), p.moment(h), p.deflection(h),
-                    derivative(p.deflection)(h)};
+        // Degrees by construction: N and V at most 2, M 3, deflection 5.
+        c = Carried{evaluate(p.axial, 2, h), evaluate(p.shear, 2, h), evaluate(p.moment, 3, h),
+                    p.deflection(h), evaluate(derivative(p.deflection), 4, h)};
         s.pieces.push_back(p);
         s.ends.push_back(PieceEnd{c.n, c.v, c.m, c.w});
     }
