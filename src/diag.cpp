@@ -115,20 +115,22 @@ bool comes_before(const Diagnostic& a, const Diagnostic& b) {
     return a.where.begin.column < b.where.begin.column;
 }
 
+/// Optimal string alignment distance: insertions, deletions, substitutions
+/// and swaps of neighbouring letters ("pots" for "post") each count one.
 std::size_t edit_distance(std::string_view a, std::string_view b) {
-    std::vector<std::size_t> row(b.size() + 1);
-    for (std::size_t j = 0; j <= b.size(); ++j) row[j] = j;
+    std::vector<std::vector<std::size_t>> d(a.size() + 1, std::vector<std::size_t>(b.size() + 1));
+    for (std::size_t i = 0; i <= a.size(); ++i) d[i][0] = i;
+    for (std::size_t j = 0; j <= b.size(); ++j) d[0][j] = j;
     for (std::size_t i = 1; i <= a.size(); ++i) {
-        std::size_t diagonal = row[0];
-        row[0] = i;
         for (std::size_t j = 1; j <= b.size(); ++j) {
-            std::size_t above = row[j];
             std::size_t cost = a[i - 1] == b[j - 1] ? 0 : 1;
-            row[j] = std::min({row[j] + 1, row[j - 1] + 1, diagonal + cost});
-            diagonal = above;
+            d[i][j] = std::min({d[i - 1][j] + 1, d[i][j - 1] + 1, d[i - 1][j - 1] + cost});
+            if (i > 1 && j > 1 && a[i - 1] == b[j - 2] && a[i - 2] == b[j - 1]) {
+                d[i][j] = std::min(d[i][j], d[i - 2][j - 2] + 1);
+            }
         }
     }
-    return row[b.size()];
+    return d[a.size()][b.size()];
 }
 
 }  // namespace
@@ -149,7 +151,8 @@ std::string render(const Diagnostics& diagnostics, const SourceMap& sources) {
 std::string closest_match(std::string_view word, const std::vector<std::string>& candidates) {
     // Long inputs are never near-misses; skipping them keeps this cheap on hostile input.
     if (word.size() > 64) return {};
-    const std::size_t allowed = std::max<std::size_t>(1, word.size() / 3);
+    // One slip per three letters; a one-letter name is too short to guess from.
+    const std::size_t allowed = word.size() < 2 ? 0 : std::max<std::size_t>(1, word.size() / 3);
     std::string best;
     std::size_t best_distance = allowed + 1;
     for (const std::string& candidate : candidates) {

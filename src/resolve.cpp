@@ -139,6 +139,7 @@ void resolve_report_units(Resolver& r, const Collected& c) {
 struct GridRef {
     syntax::Axis axis;
     double position;
+    bool valid;  ///< false if its position had an error (already reported)
 };
 
 std::vector<GridRef> resolve_grids(Resolver& r, const Collected& c) {
@@ -150,14 +151,14 @@ std::vector<GridRef> resolve_grids(Resolver& r, const Collected& c) {
             if (!r.grid_lines.add(line.name, r.diagnostics)) continue;
             GridLine g{line.name.text, v.value_or(0.0), line.name.where};
             (grid->axis == syntax::Axis::x ? r.model.grid_x : r.model.grid_y).push_back(g);
-            refs.push_back(GridRef{grid->axis, g.position});
+            refs.push_back(GridRef{grid->axis, g.position, v.has_value()});
         }
     }
     return refs;
 }
 
 /// One coordinate of a node: `x = 12 ft` or a grid line name. Returns false
-/// after reporting an error.
+/// if the coordinate is not known because of an error (reported once, where it is).
 bool resolve_coordinate(Resolver& r, const syntax::NodeDecl& decl,
                         const syntax::NodeDecl::Coordinate& c, const std::vector<GridRef>& grid,
                         std::array<std::optional<double>, 2>& xy) {
@@ -165,13 +166,9 @@ bool resolve_coordinate(Resolver& r, const syntax::NodeDecl& decl,
     std::optional<double> v;
     if (c.grid_line) {
         auto i = r.grid_lines.find(*c.grid_line, r.diagnostics);
-        if (!i) {
-            xy[0] = xy[0].value_or(0.0);  // placeholder so the node is not also reported as incomplete
-            xy[1] = xy[1].value_or(0.0);
-            return false;
-        }
+        if (!i) return false;
         axis = grid[*i].axis;
-        v = grid[*i].position;
+        if (grid[*i].valid) v = grid[*i].position;
     } else {
         axis = *c.axis;
         v = r.value(*c.value, expect::length);
@@ -196,16 +193,19 @@ void resolve_nodes(Resolver& r, const Collected& c, const std::vector<GridRef>& 
             placed = resolve_coordinate(r, *decl, coordinate, grid, xy) && placed;
         }
         if (!r.nodes.add(decl->name, r.diagnostics)) continue;
-        if (!xy[0] || !xy[1]) {
+        bool complete = xy[0] && xy[1];
+        if (placed && !complete) {
             r.diagnostics.error(decl->name.where,
                                 fmt::format("node '{}' needs an x and a y (a column line and a level)",
                                             decl->name.text));
         }
+        placed = placed && complete;
+        r.node_placed.push_back(placed);
         Node n{decl->name.text, xy[0].value_or(0.0), xy[1].value_or(0.0), decl->name.where};
         // Coordinates are bounded, so rounding to micrometres cannot overflow.
         auto key = std::pair{std::llround(n.x * 1e6), std::llround(n.y * 1e6)};
         auto [it, fresh] = occupied.emplace(key, r.model.nodes.size());
-        if (!fresh && placed && xy[0] && xy[1]) {
+        if (!fresh && placed) {
             Diagnostic& d = r.diagnostics.warning(decl->name.where,
                 fmt::format("node '{}' is at the same place as node '{}'; they are not connected",
                             n.name, r.model.nodes[it->second].name));
@@ -344,16 +344,20 @@ void resolve_hinges(Resolver& r, const syntax::MemberDecl& decl, Member& m) {
     }
 }
 
-void check_member_length(Resolver& r, const syntax::MemberDecl& decl, const Member& m) {
+bool check_member_length(Resolver& r, const syntax::MemberDecl& decl, const Member& m) {
     const Node& a = r.model.nodes[at(m.start)];
     const Node& b = r.model.nodes[at(m.end)];
     if (m.start == m.end) {
         r.diagnostics.error(decl.end.where, fmt::format("member '{}' starts and ends at node '{}'", m.name, a.name));
-    } else if (std::hypot(b.x - a.x, b.y - a.y) < kMinMemberLength) {
+        return false;
+    }
+    if (std::hypot(b.x - a.x, b.y - a.y) < kMinMemberLength) {
         r.diagnostics.error(decl.name.where,
                             fmt::format("member '{}' has zero length: nodes '{}' and '{}' are at the same place",
                                         m.name, a.name, b.name));
+        return false;
     }
+    return true;
 }
 
 void resolve_members(Resolver& r, const Collected& c) {
@@ -364,11 +368,17 @@ void resolve_members(Resolver& r, const Collected& c) {
         if (!r.members.add(decl->name, r.diagnostics)) continue;
         Member m{decl->name.text, start.value_or(NodeId{}), end.value_or(NodeId{}), section.value_or(SectionId{}),
                  false, false, decl->name.where};
+        bool valid = start && end && section;
         if (start && end) {
-            check_member_length(r, *decl, m);
-            resolve_hinges(r, *decl, m);
             r.node_used[at(*start)] = r.node_used[at(*end)] = 1;
+            resolve_hinges(r, *decl, m);
+            if (r.node_placed[at(*start)] && r.node_placed[at(*end)]) {
+                valid = check_member_length(r, *decl, m) && valid;
+            } else {
+                valid = false;
+            }
         }
+        r.member_valid.push_back(valid);
         r.model.members.push_back(std::move(m));
     }
 }

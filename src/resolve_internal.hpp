@@ -49,7 +49,9 @@ struct Resolver {
     NameTable sections{"section"};
     NameTable members{"member"};
     NameTable cases{"load case"};
-    std::vector<char> node_used;  ///< per node: some member ends there
+    std::vector<char> node_used;     ///< per node: some member ends there
+    std::vector<char> node_placed;   ///< per node: both coordinates known (no error)
+    std::vector<char> member_valid;  ///< per member: nodes, section and length all good
 
     std::optional<double> value(const syntax::Expr& e, const Expected& expected) {
         return evaluate_as(e, expected, diagnostics);

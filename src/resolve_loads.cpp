@@ -140,10 +140,13 @@ private:
         return Span{std::clamp(*from, 0.0, length), std::clamp(*to, 0.0, length)};
     }
 
+    /// The members a load names. A member that has an error of its own is
+    /// left out, so its error is not echoed by every load on it.
     std::vector<MemberId> members() {
         std::vector<MemberId> ids;
         for (const syntax::Name& name : decl_.targets) {
-            if (auto id = r_.lookup<MemberId>(r_.members, name)) ids.push_back(*id);
+            auto id = r_.lookup<MemberId>(r_.members, name);
+            if (id && r_.member_valid[at(*id)]) ids.push_back(*id);
         }
         return ids;
     }
