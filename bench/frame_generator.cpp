@@ -52,9 +52,9 @@ void write_cases(std::string& out, std::size_t bays, std::size_t storeys, std::s
         std::size_t level = k % storeys + 1;
         out += fmt::format("case K{} other {{\n", k);
         if (k == 0) out += "  self weight\n";
-        out += fmt::format("  uniform {} kip/ft down on\n    ", 1.0 + 0.01 * static_cast<double>(k));
+        out += fmt::format("  uniform {} kip/ft down on ", 1.0 + 0.01 * static_cast<double>(k));
         write_list(out, bays, [level](std::size_t i) { return fmt::format("B{}_{}", i, level); });
-        out += fmt::format("\n  point {} kip x at\n    ", 0.5 + 0.01 * static_cast<double>(k));
+        out += fmt::format("\n  point {} kip x at ", 0.5 + 0.01 * static_cast<double>(k));
         write_list(out, storeys, [](std::size_t j) { return node(0, j + 1); });
         out += "\n}\n";
     }

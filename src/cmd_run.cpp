@@ -25,27 +25,44 @@ constexpr std::size_t kStationsPerMember = 11;
 int run(const RunArgs& args) {
     Analysis a = analyse_file(args.model);
     std::string messages = render(a.diagnostics, a.sources);
-    std::fputs(messages.c_str(), stderr);
-    if (!a.ok) return exit_model_error;
+    if (!a.ok) {
+        std::fputs(messages.c_str(), stderr);
+        return exit_model_error;
+    }
 
     Stations stations;
     ReportOptions options;
+    options.full = args.full;
     if (args.full) {
         stations = compute_stations(a.model, a.loads, a.solution, kStationsPerMember);
         options.stations = &stations;
     }
-    std::string report = args.format == "json" ? json_report(a.model, a.results, options)
-                                               : text_report(a.model, a.results, options);
+    auto write_report = [&](const ReportSink& sink) {
+        if (args.format == "json") {
+            write_json_report(a.model, a.results, options, sink);
+        } else {
+            write_text_report(a.model, a.results, options, sink);
+        }
+    };
+    int status = exit_ok;
     if (args.output.empty()) {
-        std::fwrite(report.data(), 1, report.size(), stdout);
-        return std::fflush(stdout) == 0 ? exit_ok : exit_internal;
+        write_report([](std::string_view piece) { std::fwrite(piece.data(), 1, piece.size(), stdout); });
+        if (std::fflush(stdout) != 0) status = exit_internal;
+    } else {
+        AtomicFile file;
+        std::string error;
+        bool written = file.open(args.output, error);
+        if (written) {
+            write_report([&file](std::string_view piece) { file.write(piece); });
+            written = file.commit(error);
+        }
+        if (!written) {
+            std::fprintf(stderr, "firn: error: %s\n", error.c_str());
+            status = exit_model_error;
+        }
     }
-    std::string error;
-    if (!write_file_atomically(args.output, report, error)) {
-        std::fprintf(stderr, "firn: error: %s\n", error.c_str());
-        return exit_model_error;
-    }
-    return exit_ok;
+    std::fputs(messages.c_str(), stderr);  // warnings, after the report they qualify
+    return status;
 }
 
 }  // namespace
@@ -57,7 +74,9 @@ void add_run_command(CLI::App& app, int& status) {
     cmd->add_option("--format", args->format, "Report format")
         ->check(CLI::IsMember({"text", "json"}))
         ->capture_default_str();
-    cmd->add_flag("--full", args->full, "Add member stations (values at tenths of each member)");
+    cmd->add_flag("--full", args->full,
+                  "Also print every node's displacements, member end forces and member stations "
+                  "(values at tenths of each member)");
     cmd->add_option("-o,--output", args->output,
                     "Write the report to this file (atomically) instead of standard output");
     cmd->callback([args, &status] { status = run(*args); });

@@ -18,19 +18,6 @@ constexpr off_t kMaxModelBytes = 64 * 1024 * 1024;
 
 std::string reason() { return std::strerror(errno); }
 
-bool write_all(int fd, const std::string& content) {
-    std::size_t done = 0;
-    while (done < content.size()) {
-        ssize_t n = ::write(fd, content.data() + done, content.size() - done);
-        if (n < 0) {
-            if (errno == EINTR) continue;
-            return false;
-        }
-        done += static_cast<std::size_t>(n);
-    }
-    return true;
-}
-
 }  // namespace
 
 bool read_file(const std::string& path, std::string& text, std::string& error) {
@@ -64,25 +51,59 @@ bool read_file(const std::string& path, std::string& text, std::string& error) {
     return true;
 }
 
-bool write_file_atomically(const std::string& path, const std::string& content, std::string& error) {
-    std::string temp = path + ".firn-XXXXXX";
-    int fd = ::mkstemp(temp.data());
-    if (fd < 0) {
+AtomicFile::~AtomicFile() {
+    if (fd_ >= 0) ::close(fd_);
+    if (!temp_.empty()) ::unlink(temp_.c_str());
+}
+
+bool AtomicFile::open(const std::string& path, std::string& error) {
+    path_ = path;
+    temp_ = path + ".firn-XXXXXX";
+    fd_ = ::mkstemp(temp_.data());
+    if (fd_ < 0) {
         error = fmt::format("cannot write '{}': {}", path, reason());
+        temp_.clear();
         return false;
     }
-    bool ok = write_all(fd, content) && ::fsync(fd) == 0;
-    std::string why = ok ? std::string() : reason();
-    ok = (::close(fd) == 0) && ok;
+    return true;
+}
+
+void AtomicFile::write(std::string_view data) {
+    if (write_errno_ != 0) return;
+    std::size_t done = 0;
+    while (done < data.size()) {
+        ssize_t n = ::write(fd_, data.data() + done, data.size() - done);
+        if (n < 0 && errno == EINTR) continue;
+        if (n < 0) {
+            write_errno_ = errno;
+            return;
+        }
+        done += static_cast<std::size_t>(n);
+    }
+}
+
+bool AtomicFile::commit(std::string& error) {
+    if (write_errno_ == 0 && ::fsync(fd_) != 0) write_errno_ = errno;
+    if (::close(fd_) != 0 && write_errno_ == 0) write_errno_ = errno;
+    fd_ = -1;
     // mkstemp creates the file 0600; give it the permissions of a normal new file.
     mode_t mask = ::umask(0);
     ::umask(mask);
-    ::chmod(temp.c_str(), 0666 & ~mask);
-    if (ok && ::rename(temp.c_str(), path.c_str()) == 0) return true;
-    if (why.empty()) why = reason();
-    ::unlink(temp.c_str());
-    error = fmt::format("cannot write '{}': {}", path, why);
-    return false;
+    ::chmod(temp_.c_str(), 0666 & ~mask);
+    if (write_errno_ == 0 && ::rename(temp_.c_str(), path_.c_str()) != 0) write_errno_ = errno;
+    if (write_errno_ != 0) {
+        error = fmt::format("cannot write '{}': {}", path_, std::strerror(write_errno_));
+        return false;  // the destructor removes the temporary file
+    }
+    temp_.clear();
+    return true;
+}
+
+bool write_file_atomically(const std::string& path, const std::string& content, std::string& error) {
+    AtomicFile file;
+    if (!file.open(path, error)) return false;
+    file.write(content);
+    return file.commit(error);
 }
 
 }  // namespace firn

@@ -20,12 +20,6 @@ namespace {
 
 constexpr std::size_t kNumberWidth = 12;
 
-/// The model file as shown in reports: as given, but never an absolute path.
-std::string shown_source(const std::string& name) {
-    if (name.empty() || name.front() != '/') return name;
-    return name.substr(name.find_last_of('/') + 1);
-}
-
 /// Writes one table: a header row whose cells fix each column's width (a
 /// number column is 12 wide, or as wide as its header), then rows that fill
 /// the columns in order. Trailing spaces are trimmed from every row.
@@ -279,6 +273,36 @@ void write_displacements(std::string& out, const Model& model, const Results& re
     out += '\n';
 }
 
+/// The largest displacement of each kind over all nodes, and where.
+void write_largest_displacements(std::string& out, const Model& model, const Results& results,
+                                 const CaseResults& r) {
+    const DisplayUnits& u = model.units;
+    out += "Largest displacements\n";
+    Table t(out);
+    t.name_column("", 8).name_column("node", name_width(model.nodes, "node")).name_column("value", 0).end_row();
+    const char* labels[] = {"dx", "dy", "rotation"};
+    for (std::size_t d = 0; d < 3; ++d) {
+        const DisplayUnit& unit = d == dof_rotation ? u.rotation : u.displacement;
+        // Compared as printed, so that nodes whose values differ only by
+        // rounding noise resolve to the first one declared, on any machine.
+        std::size_t best = 0;
+        double largest = -1.0;
+        for (std::size_t i = 0; i < model.nodes.size(); ++i) {
+            bool free = d == dof_rotation && !results.rotation_free.empty() && results.rotation_free[i];
+            double shown = std::abs(round_to(unit.from_si(r.displacements[i][d]), unit.decimals));
+            if (!free && shown > largest) {
+                largest = shown;
+                best = i;
+            }
+        }
+        if (largest < 0.0) continue;
+        std::array<char, kNumberBuffer> buffer;
+        std::string value(format_fixed(buffer.data(), unit.from_si(r.displacements[best][d]), unit.decimals));
+        t.name(labels[d]).name(model.nodes[best].name).name(value + " " + unit.name).end_row();
+    }
+    out += '\n';
+}
+
 void write_end_forces(std::string& out, const Model& model, const CaseResults& r) {
     const DisplayUnits& u = model.units;
     out += "Member end forces (internal N, V, M just inside each end)\n";
@@ -348,17 +372,26 @@ void write_case(std::string& out, const Model& model, const Results& results, st
     out += fmt::format("== Load case {} ({}) ==\n\n", lc.name, case_kind_name(lc.kind));
     write_equilibrium(out, model, r.equilibrium);
     if (!model.supports.empty()) write_reactions(out, model, r);
-    write_displacements(out, model, results, r);
-    write_end_forces(out, model, r);
+    if (options.full) {
+        write_displacements(out, model, results, r);
+    } else {
+        write_largest_displacements(out, model, results, r);
+    }
+    if (options.full) write_end_forces(out, model, r);
     write_extremes(out, model, r);
     if (options.stations != nullptr) write_stations(out, model, *options.stations, c);
 }
 
 }  // namespace
 
-std::string text_report(const Model& model, const Results& results, const ReportOptions& options) {
+std::string shown_source(const std::string& name) {
+    if (name.empty() || name.front() != '/') return name;
+    return name.substr(name.find_last_of('/') + 1);
+}
+
+void write_text_report(const Model& model, const Results& results, const ReportOptions& options,
+                       const ReportSink& sink) {
     std::string out;
-    out.reserve(4096 + results.cases.size() * (model.nodes.size() * 60 + model.members.size() * 300));
     write_header(out, model);
     out += "== Model ==\n\n";
     write_nodes(out, model);
@@ -366,8 +399,18 @@ std::string text_report(const Model& model, const Results& results, const Report
     write_members(out, model);
     write_sections(out, model);
     write_case_list(out, model);
-    for (std::size_t c = 0; c < model.cases.size(); ++c) write_case(out, model, results, c, options);
-    return out;
+    for (std::size_t c = 0; c < model.cases.size(); ++c) {
+        sink(out);
+        out.clear();
+        write_case(out, model, results, c, options);
+    }
+    sink(out);
+}
+
+std::string text_report(const Model& model, const Results& results, const ReportOptions& options) {
+    std::string all;
+    write_text_report(model, results, options, [&all](std::string_view piece) { all += piece; });
+    return all;
 }
 
 }  // namespace firn

@@ -2,7 +2,9 @@
 // numbers were made; converts SI to the model's display units.
 #pragma once
 
+#include <functional>
 #include <string>
+#include <string_view>
 
 #include "model.hpp"
 #include "results.hpp"
@@ -14,14 +16,29 @@ namespace firn {
 extern const char* const kCaution;
 
 struct ReportOptions {
-    const Stations* stations = nullptr;  ///< member stations to print, if any (--full)
+    bool full = false;                   ///< every node's displacements and every member's end forces
+    const Stations* stations = nullptr;  ///< member stations to print, if any
 };
 
-/// The text report: model echo, then per case equilibrium, reactions,
-/// displacements, member end forces and member extremes.
-std::string text_report(const Model& model, const Results& results, const ReportOptions& options);
+/// Receives a report piece by piece (a piece per load case at most), so a
+/// large report never has to sit in memory whole.
+using ReportSink = std::function<void(std::string_view)>;
+
+/// The text report: model echo, then per case the equilibrium check,
+/// reactions, largest displacements and member extremes (and with `full`,
+/// all displacements, end forces and stations).
+void write_text_report(const Model& model, const Results& results, const ReportOptions& options,
+                       const ReportSink& sink);
 
 /// The same results as JSON, in the model's display units (stated in "units").
+void write_json_report(const Model& model, const Results& results, const ReportOptions& options,
+                       const ReportSink& sink);
+
+/// The whole report as one string, for tests and small models.
+std::string text_report(const Model& model, const Results& results, const ReportOptions& options);
 std::string json_report(const Model& model, const Results& results, const ReportOptions& options);
+
+/// The model file as reports show it: as given, but never an absolute path.
+std::string shown_source(const std::string& name);
 
 }  // namespace firn

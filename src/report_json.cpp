@@ -115,16 +115,39 @@ Json case_json(const Model& model, const Results& results, std::size_t c, const 
 
 }  // namespace
 
-std::string json_report(const Model& model, const Results& results, const ReportOptions& options) {
-    Json cases = Json::array();
-    for (std::size_t c = 0; c < model.cases.size(); ++c) cases.push_back(case_json(model, results, c, options));
-    Json root{{"format", kJsonFormat},
+void write_json_report(const Model& model, const Results& results, const ReportOptions& options,
+                       const ReportSink& sink) {
+    // The root object is written by hand around the cases, so that each case
+    // is built, written and freed in turn: a DOM of a large run would not fit
+    // in memory. The layout is the one Json::dump(1) would give.
+    Json head{{"format", kJsonFormat},
               {"title", model.title},
+              {"source", shown_source(model.source_name)},
               {"caution", kCaution},
               {"units", units_json(model.units)},
-              {"model", model_json(model)},
-              {"cases", cases}};
-    return root.dump(1) + "\n";
+              {"model", model_json(model)}};
+    std::string text = head.dump(1);
+    text.resize(text.size() - 2);  // the final "\n}": the cases follow
+    text += ",\n \"cases\": [";
+    for (std::size_t c = 0; c < model.cases.size(); ++c) {
+        text += c == 0 ? "\n" : ",\n";
+        std::string one = case_json(model, results, c, options).dump(1);
+        text += "  ";
+        for (char ch : one) {
+            text += ch;
+            if (ch == '\n') text += "  ";
+        }
+        sink(text);
+        text.clear();
+    }
+    text += model.cases.empty() ? "]\n}\n" : "\n ]\n}\n";
+    sink(text);
+}
+
+std::string json_report(const Model& model, const Results& results, const ReportOptions& options) {
+    std::string all;
+    write_json_report(model, results, options, [&all](std::string_view piece) { all += piece; });
+    return all;
 }
 
 }  // namespace firn
