@@ -178,17 +178,37 @@ void visit_stationary(const Polynomial& p, const Polynomial& dp, double h, doubl
     visit(h, end);
 }
 
-void keep_largest(Extreme& e, double value, double position) {
-    if (value > e.value)
+/// Candidates closer than this share of the member's largest value count as
+/// equal: the first position along the member then wins, on any machine, and
+/// rounding noise never shows up as a tiny extreme somewhere along the member.
+constexpr double kTie = 1e-9;
+
+void keep_largest(Extreme& e, double value, double position, double tie) {
+    if (value > e.value + tie)
         e = Extreme{value, position};
 }
-void keep_smallest(Extreme& e, double value, double position) {
-    if (value < e.value)
+void keep_smallest(Extreme& e, double value, double position, double tie) {
+    if (value < e.value - tie)
         e = Extreme{value, position};
 }
-void keep_largest_magnitude(Extreme& e, double value, double position) {
-    if (std::abs(value) > std::abs(e.value))
+void keep_largest_magnitude(Extreme& e, double value, double position, double tie) {
+    if (std::abs(value) > std::abs(e.value) + tie)
         e = Extreme{value, position};
+}
+
+/// Largest |value| at the piece ends of each function (N, V, M, deflection),
+/// the scale for the tie tolerance.
+std::array<double, 4> end_scales(const Scratch& functions) {
+    std::array<double, 4> scale{};
+    for (std::size_t i = 0; i < functions.pieces.size(); ++i) {
+        const FunctionPiece& p = functions.pieces[i];
+        const PieceEnd& e = functions.ends[i];
+        scale[0] = std::max({scale[0], std::abs(p.axial.c[0]), std::abs(e.n)});
+        scale[1] = std::max({scale[1], std::abs(p.shear.c[0]), std::abs(e.v)});
+        scale[2] = std::max({scale[2], std::abs(p.moment.c[0]), std::abs(e.m)});
+        scale[3] = std::max({scale[3], std::abs(p.deflection.c[0]), std::abs(e.w)});
+    }
+    return scale;
 }
 
 MemberSummary summarize(const Scratch& functions) {
@@ -197,23 +217,25 @@ MemberSummary summarize(const Scratch& functions) {
     const PieceEnd& last = functions.ends.back();
     s.start = {first.axial.c[0], first.shear.c[0], first.moment.c[0]};
     s.end = {last.n, last.v, last.m};
+    std::array<double, 4> tie = end_scales(functions);
+    for (double& t : tie) t *= kTie;
     for (std::size_t i = 0; i < functions.pieces.size(); ++i) {
         const FunctionPiece& p = functions.pieces[i];
         const PieceEnd& end = functions.ends[i];
         double h = p.b - p.a;
         visit_stationary(p.moment, p.shear, h, end.m, [&](double t, double v) {
-            keep_largest(s.moment_max, v, p.a + t);
-            keep_smallest(s.moment_min, v, p.a + t);
+            keep_largest(s.moment_max, v, p.a + t, tie[2]);
+            keep_smallest(s.moment_min, v, p.a + t, tie[2]);
         });
         visit_stationary(p.shear, derivative(p.shear), h, end.v, [&](double t, double v) {
-            keep_largest_magnitude(s.shear_max, v, p.a + t);
+            keep_largest_magnitude(s.shear_max, v, p.a + t, tie[1]);
         });
         visit_stationary(p.axial, derivative(p.axial), h, end.n, [&](double t, double v) {
-            keep_largest(s.axial_max, v, p.a + t);
-            keep_smallest(s.axial_min, v, p.a + t);
+            keep_largest(s.axial_max, v, p.a + t, tie[0]);
+            keep_smallest(s.axial_min, v, p.a + t, tie[0]);
         });
         visit_stationary(p.deflection, derivative(p.deflection), h, end.w, [&](double t, double v) {
-            keep_largest_magnitude(s.deflection_max, v, p.a + t);
+            keep_largest_magnitude(s.deflection_max, v, p.a + t, tie[3]);
         });
     }
     return s;
