@@ -7,13 +7,16 @@
 namespace firn::bench {
 namespace {
 
-std::string node(std::size_t line, std::size_t level) { return fmt::format("N{}_{}", line, level); }
+std::string node(std::size_t line, std::size_t level) {
+    return fmt::format("N{}_{}", line, level);
+}
 
 /// A comma-separated list, broken after every 20 items as a person would.
 template <typename NameOf>
 void write_list(std::string& out, std::size_t count, NameOf name_of) {
     for (std::size_t i = 0; i < count; ++i) {
-        if (i > 0) out += i % 20 == 0 ? ",\n    " : ", ";
+        if (i > 0)
+            out += i % 20 == 0 ? ",\n    " : ", ";
         out += name_of(i);
     }
 }
@@ -22,24 +25,28 @@ void write_grid(std::string& out, std::size_t bays, std::size_t storeys) {
     out += "grid x ";
     write_list(out, bays + 1, [](std::size_t i) { return fmt::format("X{} = {} ft", i, 24 * i); });
     out += "\ngrid y ";
-    write_list(out, storeys + 1, [](std::size_t j) { return fmt::format("Y{} = {} ft", j, 12 * j); });
+    write_list(out, storeys + 1,
+               [](std::size_t j) { return fmt::format("Y{} = {} ft", j, 12 * j); });
     out += "\n\n";
 }
 
 void write_structure(std::string& out, std::size_t bays, std::size_t storeys) {
     for (std::size_t j = 0; j <= storeys; ++j) {
-        for (std::size_t i = 0; i <= bays; ++i) out += fmt::format("node {} at X{}, Y{}\n", node(i, j), i, j);
+        for (std::size_t i = 0; i <= bays; ++i)
+            out += fmt::format("node {} at X{}, Y{}\n", node(i, j), i, j);
     }
-    out += "material steel E = 29000 ksi, density = 490 pcf\n"
-           "section col steel, A = 14.1 in2, I = 272 in4\n"
-           "section beam steel, A = 11.8 in2, I = 510 in4\n";
+    out +=
+        "material steel E = 29000 ksi, density = 490 pcf\n"
+        "section col steel, A = 14.1 in2, I = 272 in4\n"
+        "section beam steel, A = 11.8 in2, I = 510 in4\n";
     for (std::size_t j = 0; j < storeys; ++j) {
         for (std::size_t i = 0; i <= bays; ++i) {
-            out += fmt::format("member C{}_{} from {} to {} section col\n", i, j, node(i, j), node(i, j + 1));
+            out += fmt::format("member C{}_{} from {} to {} section col\n", i, j, node(i, j),
+                               node(i, j + 1));
         }
         for (std::size_t i = 0; i < bays; ++i) {
-            out += fmt::format("member B{}_{} from {} to {} section beam\n", i, j + 1, node(i, j + 1),
-                               node(i + 1, j + 1));
+            out += fmt::format("member B{}_{} from {} to {} section beam\n", i, j + 1,
+                               node(i, j + 1), node(i + 1, j + 1));
         }
     }
     out += "support fixed at ";
@@ -51,7 +58,8 @@ void write_cases(std::string& out, std::size_t bays, std::size_t storeys, std::s
     for (std::size_t k = 0; k < cases; ++k) {
         std::size_t level = k % storeys + 1;
         out += fmt::format("case K{} other {{\n", k);
-        if (k == 0) out += "  self weight\n";
+        if (k == 0)
+            out += "  self weight\n";
         out += fmt::format("  uniform {} kip/ft down on ", 1.0 + 0.01 * static_cast<double>(k));
         write_list(out, bays, [level](std::size_t i) { return fmt::format("B{}_{}", i, level); });
         out += fmt::format("\n  point {} kip x at ", 0.5 + 0.01 * static_cast<double>(k));
@@ -63,9 +71,10 @@ void write_cases(std::string& out, std::size_t bays, std::size_t storeys, std::s
 }  // namespace
 
 std::string rectangular_frame(std::size_t bays, std::size_t storeys, std::size_t cases) {
-    std::string out = fmt::format("# Generated: {} bays x {} storeys, {} load cases\n"
-                                  "model \"Bench frame {}x{}\"\nreport units kip, ft\n\n",
-                                  bays, storeys, cases, bays, storeys);
+    std::string out = fmt::format(
+        "# Generated: {} bays x {} storeys, {} load cases\n"
+        "model \"Bench frame {}x{}\"\nreport units kip, ft\n\n",
+        bays, storeys, cases, bays, storeys);
     write_grid(out, bays, storeys);
     write_structure(out, bays, storeys);
     write_cases(out, bays, storeys, cases);

@@ -9,9 +9,9 @@
 
 #include <cstddef>
 #include <string_view>
-#include <type_traits>
 #include <tao/pegtl.hpp>
 #include <tao/pegtl/contrib/analyze_traits.hpp>
+#include <type_traits>
 
 #include "grammar/keywords.hpp"
 #include "units.hpp"

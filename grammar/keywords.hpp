@@ -11,11 +11,15 @@ namespace firn::grammar {
 
 // ORDER KEYWORDS
 inline constexpr std::array<std::string_view, 45> keywords{
-    "at", "axial", "case", "clockwise", "counterclockwise", "dead", "displacement", "down",
-    "fixed", "free", "from", "grid", "hinge", "ishape", "linear", "live", "material",
-    "member", "model", "moment", "node", "on", "other", "pinned", "point", "projected",
-    "rectangle", "report", "roller", "roof", "rotation", "section", "self", "snow", "spring",
-    "support", "to", "transverse", "uniform", "units", "up", "weight", "wind", "x", "y",
+    "at",        "axial",        "case",       "clockwise", "counterclockwise",
+    "dead",      "displacement", "down",       "fixed",     "free",
+    "from",      "grid",         "hinge",      "ishape",    "linear",
+    "live",      "material",     "member",     "model",     "moment",
+    "node",      "on",           "other",      "pinned",    "point",
+    "projected", "rectangle",    "report",     "roller",    "roof",
+    "rotation",  "section",      "self",       "snow",      "spring",
+    "support",   "to",           "transverse", "uniform",   "units",
+    "up",        "weight",       "wind",       "x",         "y",
 };
 
 }  // namespace firn::grammar

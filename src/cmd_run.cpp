@@ -46,8 +46,10 @@ int run(const RunArgs& args) {
     };
     int status = exit_ok;
     if (args.output.empty()) {
-        write_report([](std::string_view piece) { std::fwrite(piece.data(), 1, piece.size(), stdout); });
-        if (std::fflush(stdout) != 0) status = exit_internal;
+        write_report(
+            [](std::string_view piece) { std::fwrite(piece.data(), 1, piece.size(), stdout); });
+        if (std::fflush(stdout) != 0)
+            status = exit_internal;
     } else {
         AtomicFile file;
         std::string error;

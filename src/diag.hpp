@@ -34,7 +34,7 @@ struct SourceFile {
 
 /// Owns every source text of a run, so diagnostics can quote lines later.
 class SourceMap {
-public:
+  public:
     /// Adds a file and returns its id.
     FileId add(std::string name, std::string text);
     const SourceFile& file(FileId id) const { return files_.at(id); }
@@ -43,7 +43,7 @@ public:
     /// Line and column of the byte `offset` of `id`.
     Position position(FileId id, std::uint32_t offset) const;
 
-private:
+  private:
     std::vector<SourceFile> files_;
     std::vector<std::vector<std::uint32_t>> line_starts_;
 };
@@ -61,7 +61,7 @@ struct Diagnostic {
 /// Collects the diagnostics of a run. Stages add to it and go on where they can,
 /// so independent mistakes are all reported in one run.
 class Diagnostics {
-public:
+  public:
     Diagnostic& error(const SourceRange& where, std::string message);
     Diagnostic& warning(const SourceRange& where, std::string message);
     /// An error not tied to a place in a model (a missing file, say).
@@ -72,7 +72,7 @@ public:
     const std::vector<Diagnostic>& all() const { return items_; }
     const std::vector<std::string>& unplaced() const { return unplaced_; }
 
-private:
+  private:
     std::vector<Diagnostic> items_;
     std::vector<std::string> unplaced_;
     std::size_t errors_ = 0;

@@ -43,7 +43,8 @@ TEST_CASE("a very long line is shown as a window around the caret") {
 
 TEST_CASE("control characters in a quoted line are shown as '?'") {
     SourceMap sources;
-    FileId f = sources.add("m", std::string("ab\x01\x1b" "c"));
+    FileId f = sources.add("m", std::string("ab\x01\x1b"
+                                            "c"));
     Diagnostics d;
     d.error(SourceRange{f, sources.position(f, 0), sources.position(f, 1)}, "bad");
     CHECK(render(d, sources) == "m:1:1: error: bad\n    ab??c\n    ^\n");

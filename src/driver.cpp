@@ -11,7 +11,7 @@ namespace firn {
 namespace {
 
 class Stopwatch {
-public:
+  public:
     double lap() {
         auto now = std::chrono::steady_clock::now();
         double seconds = std::chrono::duration<double>(now - last_).count();
@@ -19,7 +19,7 @@ public:
         return seconds;
     }
 
-private:
+  private:
     std::chrono::steady_clock::time_point last_ = std::chrono::steady_clock::now();
 };
 
@@ -35,17 +35,20 @@ Analysis analyse_text(std::string name, std::string text, PhaseTimes* times) {
     std::vector<syntax::Tree> trees;
     trees.push_back(parse(a.sources, file, a.diagnostics));
     t.parse = clock.lap();
-    if (a.diagnostics.has_errors()) return a;
+    if (a.diagnostics.has_errors())
+        return a;
 
     std::string source_name = std::move(a.model.source_name);
     a.model = resolve(trees, a.diagnostics);
     a.model.source_name = std::move(source_name);
     t.resolve = clock.lap();
-    if (a.diagnostics.has_errors()) return a;
+    if (a.diagnostics.has_errors())
+        return a;
 
     a.loads = derive_loads(a.model, a.diagnostics);
     t.loads = clock.lap();
-    if (a.diagnostics.has_errors()) return a;
+    if (a.diagnostics.has_errors())
+        return a;
 
     SolveTimings st;
     a.solution = solve(a.model, a.loads, a.diagnostics, &st);
@@ -53,7 +56,8 @@ Analysis analyse_text(std::string name, std::string text, PhaseTimes* times) {
     t.factor = st.factor;
     t.solve = st.solve;
     clock.lap();
-    if (a.diagnostics.has_errors() || !a.solution.ok) return a;
+    if (a.diagnostics.has_errors() || !a.solution.ok)
+        return a;
 
     a.results = compute_results(a.model, a.loads, a.solution);
     t.results = clock.lap();

@@ -1,8 +1,8 @@
 // evaluate: arithmetic on quantities with units, checked by dimension.
 #include "evaluate.hpp"
 
-#include <cmath>
 #include <fmt/format.h>
+#include <cmath>
 
 namespace firn {
 
@@ -22,16 +22,19 @@ std::optional<Quantity> unit_value(const std::vector<syntax::UnitFactor>& unit,
         q.value *= std::pow(u->to_si, exponent);
         q.dimension = q.dimension * power(u->dimension, exponent);
     }
-    if (!ok) return std::nullopt;
+    if (!ok)
+        return std::nullopt;
     return q;
 }
 
 std::string unit_spelling(const std::vector<syntax::UnitFactor>& unit) {
     std::string out;
     for (std::size_t i = 0; i < unit.size(); ++i) {
-        if (i > 0) out += unit[i].divides ? "/" : "*";
+        if (i > 0)
+            out += unit[i].divides ? "/" : "*";
         out += unit[i].name;
-        if (unit[i].exponent != 1) out += fmt::format("^{}", unit[i].exponent);
+        if (unit[i].exponent != 1)
+            out += fmt::format("^{}", unit[i].exponent);
     }
     return out;
 }
@@ -45,12 +48,13 @@ std::optional<Quantity> evaluate_number(const syntax::Expr& e, Diagnostics& diag
     }
     if (e.bad_unit) {
         const std::string& word = e.bad_unit->text;
-        diagnostics.error(e.bad_unit->where,
-                          fmt::format("unknown unit '{}'{}", word, did_you_mean(word, unit_names())));
+        diagnostics.error(e.bad_unit->where, fmt::format("unknown unit '{}'{}", word,
+                                                         did_you_mean(word, unit_names())));
         return std::nullopt;
     }
     std::optional<Quantity> unit = unit_value(e.unit, diagnostics);
-    if (!unit) return std::nullopt;
+    if (!unit)
+        return std::nullopt;
     return Quantity{e.value * unit->value, unit->dimension};
 }
 
@@ -65,8 +69,9 @@ std::optional<Quantity> combine(const syntax::Expr& e, Quantity a, Quantity b,
         case K::add:
         case K::subtract:
             if (!(a.dimension == b.dimension)) {
-                diagnostics.error(e.where, fmt::format("cannot {} {} and {}", operation_verb(e.kind),
-                                                       describe(a.dimension), describe(b.dimension)));
+                diagnostics.error(e.where,
+                                  fmt::format("cannot {} {} and {}", operation_verb(e.kind),
+                                              describe(a.dimension), describe(b.dimension)));
                 return std::nullopt;
             }
             return Quantity{e.kind == K::add ? a.value + b.value : a.value - b.value, a.dimension};
@@ -87,16 +92,20 @@ std::optional<Quantity> combine(const syntax::Expr& e, Quantity a, Quantity b,
 
 std::optional<Quantity> evaluate(const syntax::Expr& e, Diagnostics& diagnostics) {
     using K = syntax::Expr::Kind;
-    if (e.kind == K::number) return evaluate_number(e, diagnostics);
-    if (e.kind == K::group) return evaluate(*e.rhs, diagnostics);
+    if (e.kind == K::number)
+        return evaluate_number(e, diagnostics);
+    if (e.kind == K::group)
+        return evaluate(*e.rhs, diagnostics);
     if (e.kind == K::negate) {
         auto v = evaluate(*e.rhs, diagnostics);
-        if (v) v->value = -v->value;
+        if (v)
+            v->value = -v->value;
         return v;
     }
     auto a = evaluate(*e.lhs, diagnostics);
     auto b = evaluate(*e.rhs, diagnostics);
-    if (!a || !b) return std::nullopt;
+    if (!a || !b)
+        return std::nullopt;
     auto result = combine(e, *a, *b, diagnostics);
     if (result && !std::isfinite(result->value)) {
         diagnostics.error(e.where, "this value is too large to be a finite number");
@@ -110,7 +119,8 @@ namespace {
 /// How the user wrote what was found, for "expected ..., found ...".
 std::string found_text(const syntax::Expr& e, Dimension found) {
     if (e.kind == syntax::Expr::Kind::number) {
-        if (e.unit.empty()) return e.literal;
+        if (e.unit.empty())
+            return e.literal;
         return fmt::format("{} {}, {}", e.literal, unit_spelling(e.unit), describe(found));
     }
     return describe(found);
@@ -120,7 +130,8 @@ std::string found_text(const syntax::Expr& e, Dimension found) {
 std::string fraction_hint(const syntax::Expr& e, const Expected& expected, Dimension found) {
     bool bare_over_quantity = e.kind == syntax::Expr::Kind::divide &&
                               e.lhs->kind == syntax::Expr::Kind::number && e.lhs->unit.empty();
-    if (!bare_over_quantity || !(found == power(expected.dimension, -1))) return {};
+    if (!bare_over_quantity || !(found == power(expected.dimension, -1)))
+        return {};
     return " ('1/2 in' means 1 divided by 2 in; write (1/2) in or 0.5 in)";
 }
 
@@ -129,7 +140,8 @@ std::string fraction_hint(const syntax::Expr& e, const Expected& expected, Dimen
 std::optional<double> evaluate_as(const syntax::Expr& e, const Expected& expected,
                                   Diagnostics& diagnostics) {
     std::optional<Quantity> q = evaluate(e, diagnostics);
-    if (!q) return std::nullopt;
+    if (!q)
+        return std::nullopt;
     if (!(q->dimension == expected.dimension)) {
         diagnostics.error(e.where, fmt::format("expected {} such as {}, found {}{}", expected.noun,
                                                expected.example, found_text(e, q->dimension),

@@ -1,13 +1,13 @@
 // file_io: whole-file reads and atomic writes (POSIX).
 #include "file_io.hpp"
 
-#include <cerrno>
-#include <cstdio>
-#include <cstring>
 #include <fcntl.h>
 #include <fmt/format.h>
 #include <sys/stat.h>
 #include <unistd.h>
+#include <cerrno>
+#include <cstdio>
+#include <cstring>
 
 namespace firn {
 namespace {
@@ -16,7 +16,9 @@ namespace {
 /// refusing it keeps every source offset within 32 bits.
 constexpr off_t kMaxModelBytes = 64 * 1024 * 1024;
 
-std::string reason() { return std::strerror(errno); }
+std::string reason() {
+    return std::strerror(errno);
+}
 
 }  // namespace
 
@@ -42,8 +44,10 @@ bool read_file(const std::string& path, std::string& text, std::string& error) {
     std::size_t done = 0;
     while (done < text.size()) {
         ssize_t n = ::read(fd, text.data() + done, text.size() - done);
-        if (n < 0 && errno == EINTR) continue;
-        if (n <= 0) break;
+        if (n < 0 && errno == EINTR)
+            continue;
+        if (n <= 0)
+            break;
         done += static_cast<std::size_t>(n);
     }
     ::close(fd);
@@ -52,8 +56,10 @@ bool read_file(const std::string& path, std::string& text, std::string& error) {
 }
 
 AtomicFile::~AtomicFile() {
-    if (fd_ >= 0) ::close(fd_);
-    if (!temp_.empty()) ::unlink(temp_.c_str());
+    if (fd_ >= 0)
+        ::close(fd_);
+    if (!temp_.empty())
+        ::unlink(temp_.c_str());
 }
 
 bool AtomicFile::open(const std::string& path, std::string& error) {
@@ -69,11 +75,13 @@ bool AtomicFile::open(const std::string& path, std::string& error) {
 }
 
 void AtomicFile::write(std::string_view data) {
-    if (write_errno_ != 0) return;
+    if (write_errno_ != 0)
+        return;
     std::size_t done = 0;
     while (done < data.size()) {
         ssize_t n = ::write(fd_, data.data() + done, data.size() - done);
-        if (n < 0 && errno == EINTR) continue;
+        if (n < 0 && errno == EINTR)
+            continue;
         if (n < 0) {
             write_errno_ = errno;
             return;
@@ -83,14 +91,17 @@ void AtomicFile::write(std::string_view data) {
 }
 
 bool AtomicFile::commit(std::string& error) {
-    if (write_errno_ == 0 && ::fsync(fd_) != 0) write_errno_ = errno;
-    if (::close(fd_) != 0 && write_errno_ == 0) write_errno_ = errno;
+    if (write_errno_ == 0 && ::fsync(fd_) != 0)
+        write_errno_ = errno;
+    if (::close(fd_) != 0 && write_errno_ == 0)
+        write_errno_ = errno;
     fd_ = -1;
     // mkstemp creates the file 0600; give it the permissions of a normal new file.
     mode_t mask = ::umask(0);
     ::umask(mask);
     ::chmod(temp_.c_str(), 0666 & ~mask);
-    if (write_errno_ == 0 && ::rename(temp_.c_str(), path_.c_str()) != 0) write_errno_ = errno;
+    if (write_errno_ == 0 && ::rename(temp_.c_str(), path_.c_str()) != 0)
+        write_errno_ = errno;
     if (write_errno_ != 0) {
         error = fmt::format("cannot write '{}': {}", path_, std::strerror(write_errno_));
         return false;  // the destructor removes the temporary file
@@ -99,9 +110,11 @@ bool AtomicFile::commit(std::string& error) {
     return true;
 }
 
-bool write_file_atomically(const std::string& path, const std::string& content, std::string& error) {
+bool write_file_atomically(const std::string& path, const std::string& content,
+                           std::string& error) {
     AtomicFile file;
-    if (!file.open(path, error)) return false;
+    if (!file.open(path, error))
+        return false;
     file.write(content);
     return file.commit(error);
 }

@@ -15,7 +15,7 @@ bool read_file(const std::string& path, std::string& text, std::string& error);
 /// place by commit(), so readers see the old file or the whole new one, never
 /// a partial one. Without a successful commit() the temporary file is removed.
 class AtomicFile {
-public:
+  public:
     AtomicFile() = default;
     AtomicFile(const AtomicFile&) = delete;
     AtomicFile& operator=(const AtomicFile&) = delete;
@@ -26,7 +26,7 @@ public:
     void write(std::string_view data);
     bool commit(std::string& error);
 
-private:
+  private:
     std::string path_, temp_;
     int fd_ = -1;
     int write_errno_ = 0;

@@ -40,7 +40,8 @@ std::string parse_errors(const std::string& name, const std::string& text) {
 }  // namespace
 
 TEST_CASE("every example in grammar/REFERENCE.md parses") {
-    auto blocks = firn_blocks(read(std::filesystem::path(FIRN_SOURCE_DIR) / "grammar" / "REFERENCE.md"));
+    auto blocks =
+        firn_blocks(read(std::filesystem::path(FIRN_SOURCE_DIR) / "grammar" / "REFERENCE.md"));
     CHECK(blocks.size() >= 12);
     for (std::size_t i = 0; i < blocks.size(); ++i) {
         INFO("example " << i + 1 << ":\n" << blocks[i]);
@@ -50,8 +51,10 @@ TEST_CASE("every example in grammar/REFERENCE.md parses") {
 
 TEST_CASE("every model in examples/ parses") {
     std::size_t count = 0;
-    for (const auto& entry : std::filesystem::directory_iterator(std::filesystem::path(FIRN_SOURCE_DIR) / "examples")) {
-        if (entry.path().extension() != ".firn") continue;
+    for (const auto& entry :
+         std::filesystem::directory_iterator(std::filesystem::path(FIRN_SOURCE_DIR) / "examples")) {
+        if (entry.path().extension() != ".firn")
+            continue;
         ++count;
         INFO(entry.path().filename().string());
         CHECK(parse_errors(entry.path().filename().string(), read(entry.path())).empty());

@@ -1,9 +1,9 @@
 // loads: global, projected and self-weight loads turned into member local loads.
 #include "loads.hpp"
 
+#include <fmt/format.h>
 #include <cassert>
 #include <cmath>
-#include <fmt/format.h>
 
 namespace firn {
 
@@ -62,9 +62,9 @@ struct CaseBuilder {
             // per unit member length; horizontal distances stretch by 1/|c| along it.
             double cos_abs = std::abs(g.c);
             if (cos_abs < 1e-12) {
-                diagnostics.warning(d.where, fmt::format(
-                    "member '{}' is vertical: a load per horizontal projection adds nothing to it",
-                    model.members[at(d.member)].name));
+                diagnostics.warning(d.where, fmt::format("member '{}' is vertical: a load per "
+                                                         "horizontal projection adds nothing to it",
+                                                         model.members[at(d.member)].name));
                 return;
             }
             per_length = cos_abs;
@@ -92,15 +92,18 @@ struct CaseBuilder {
             const Member& m = model.members[at(id)];
             const Section& s = model.sections[at(m.section)];
             double w = model.materials[at(s.material)].unit_weight * s.area;
-            if (w == 0.0) return;
+            if (w == 0.0)
+                return;
             MemberGeometry g = member_geometry(model, id);
-            add_distributed(DistributedLoad{id, LoadDirection::down, false, 0.0, g.length, w, w,
-                                            sw.where});
+            add_distributed(
+                DistributedLoad{id, LoadDirection::down, false, 0.0, g.length, w, w, sw.where});
         };
         if (sw.all_members) {
-            for (std::size_t i = 0; i < model.members.size(); ++i) add(make_id<MemberId>(i));
+            for (std::size_t i = 0; i < model.members.size(); ++i)
+                add(make_id<MemberId>(i));
         } else {
-            for (MemberId id : sw.members) add(id);
+            for (MemberId id : sw.members)
+                add(id);
         }
     }
 };
@@ -111,11 +114,14 @@ template <typename Pending, typename Local>
 void group_by_member(std::vector<Pending>& pending, std::size_t member_count,
                      std::vector<std::uint32_t>& first, std::vector<Local>& out) {
     first.assign(member_count + 1, 0);
-    for (const Pending& p : pending) ++first[at(p.member) + 1];
-    for (std::size_t i = 0; i < member_count; ++i) first[i + 1] += first[i];
+    for (const Pending& p : pending)
+        ++first[at(p.member) + 1];
+    for (std::size_t i = 0; i < member_count; ++i)
+        first[i + 1] += first[i];
     out.resize(pending.size());
     std::vector<std::uint32_t> next(first.begin(), first.end() - 1);
-    for (const Pending& p : pending) out[next[at(p.member)]++] = p.load;
+    for (const Pending& p : pending)
+        out[next[at(p.member)]++] = p.load;
 }
 
 CaseLoads derive_case(const Model& model, const LoadCase& lc, Diagnostics& diagnostics) {
@@ -127,9 +133,12 @@ CaseLoads derive_case(const Model& model, const LoadCase& lc, Diagnostics& diagn
         out.nodal[at(n.node) * 3 + dof_rotation] += n.moment;
     }
     CaseBuilder b{model, diagnostics, {}, {}};
-    for (const DistributedLoad& d : lc.distributed) b.add_distributed(d);
-    for (const SelfWeight& sw : lc.self_weight) b.add_self_weight(sw);
-    for (const PointLoad& p : lc.points) b.add_point(p);
+    for (const DistributedLoad& d : lc.distributed)
+        b.add_distributed(d);
+    for (const SelfWeight& sw : lc.self_weight)
+        b.add_self_weight(sw);
+    for (const PointLoad& p : lc.points)
+        b.add_point(p);
     for (const PointMoment& m : lc.moments) {
         b.points.push_back({m.member, LocalPoint{m.position, 0.0, 0.0, m.moment}});
     }
@@ -143,7 +152,8 @@ CaseLoads derive_case(const Model& model, const LoadCase& lc, Diagnostics& diagn
 LoadSet derive_loads(const Model& model, Diagnostics& diagnostics) {
     LoadSet set;
     set.cases.reserve(model.cases.size());
-    for (const LoadCase& lc : model.cases) set.cases.push_back(derive_case(model, lc, diagnostics));
+    for (const LoadCase& lc : model.cases)
+        set.cases.push_back(derive_case(model, lc, diagnostics));
     return set;
 }
 

@@ -14,14 +14,18 @@ namespace {
 /// CLI11 answers a mistyped command with "a subcommand is required"; say what
 /// was wrong instead.
 bool is_unknown_command(CLI::App& app, int argc, char** argv) {
-    if (argc < 2 || argv[1][0] == '-') return false;
+    if (argc < 2 || argv[1][0] == '-')
+        return false;
     std::vector<std::string> names;
-    for (const CLI::App* sub : app.get_subcommands({})) names.push_back(sub->get_name());
+    for (const CLI::App* sub : app.get_subcommands({}))
+        names.push_back(sub->get_name());
     std::string word = argv[1];
     for (const std::string& name : names) {
-        if (name == word) return false;
+        if (name == word)
+            return false;
     }
-    std::fprintf(stderr, "firn: error: unknown command '%s'%s\nRun with --help for more information.\n",
+    std::fprintf(stderr,
+                 "firn: error: unknown command '%s'%s\nRun with --help for more information.\n",
                  word.c_str(), firn::did_you_mean(word, names).c_str());
     return true;
 }
@@ -34,7 +38,8 @@ int main(int argc, char** argv) {
     app.set_version_flag("--version", "firn 0.1.0");
     app.require_subcommand(1);
     firn::add_run_command(app, status);
-    if (is_unknown_command(app, argc, argv)) return firn::exit_model_error;
+    if (is_unknown_command(app, argc, argv))
+        return firn::exit_model_error;
     try {
         app.parse(argc, argv);
     } catch (const CLI::ParseError& e) {

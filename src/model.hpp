@@ -108,8 +108,8 @@ struct DistributedLoad {
     MemberId member{};
     LoadDirection direction = LoadDirection::down;
     bool projected = false;
-    double start = 0.0;  ///< m
-    double end = 0.0;    ///< m
+    double start = 0.0;    ///< m
+    double end = 0.0;      ///< m
     double w_start = 0.0;  ///< N/m
     double w_end = 0.0;
     SourceRange where;

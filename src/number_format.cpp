@@ -9,7 +9,8 @@
 namespace firn {
 
 std::string_view format_fixed(char* buffer, double value, int decimals) {
-    auto [end, ec] = std::to_chars(buffer, buffer + kNumberBuffer, value, std::chars_format::fixed, decimals);
+    auto [end, ec] =
+        std::to_chars(buffer, buffer + kNumberBuffer, value, std::chars_format::fixed, decimals);
     if (ec != std::errc()) {  // only for absurd magnitudes; keep output readable
         end = std::to_chars(buffer, buffer + kNumberBuffer, value).ptr;
     }
@@ -32,13 +33,15 @@ double round_to(double value, int decimals) {
 }
 
 void append_right(std::string& out, std::string_view text, std::size_t width) {
-    if (text.size() < width) out.append(width - text.size(), ' ');
+    if (text.size() < width)
+        out.append(width - text.size(), ' ');
     out.append(text);
 }
 
 void append_left(std::string& out, std::string_view text, std::size_t width) {
     out.append(text);
-    if (text.size() < width) out.append(width - text.size(), ' ');
+    if (text.size() < width)
+        out.append(width - text.size(), ' ');
 }
 
 }  // namespace firn

@@ -6,11 +6,11 @@
 // backtracked over once it has matched (keywords are followed by must<>).
 #include "parse.hpp"
 
+#include <fmt/format.h>
 #include <algorithm>
 #include <array>
 #include <charconv>
 #include <cmath>
-#include <fmt/format.h>
 #include <limits>
 
 #include "grammar/errors.hpp"
@@ -108,18 +108,22 @@ struct Builder {
 std::string Builder::found_at(const char* at, std::size_t& width) const {
     const char* end = sources.file(file).text.data() + sources.file(file).text.size();
     width = 1;
-    if (at >= end) return "the end of the file";
-    if (*at == '\n' || *at == '\r') return "the end of the line";
+    if (at >= end)
+        return "the end of the file";
+    if (*at == '\n' || *at == '\r')
+        return "the end of the line";
     if (is_word_char(*at)) {
         const char* p = at;
-        while (p < end && p - at < 64 && (is_word_char(*p) || *p == '.')) ++p;
+        while (p < end && p - at < 64 && (is_word_char(*p) || *p == '.'))
+            ++p;
         std::string word(at, p);
         width = word.size();
         return is_keyword(word) ? fmt::format("'{}' (a reserved word)", word)
                                 : fmt::format("'{}'", word);
     }
     unsigned char c = static_cast<unsigned char>(*at);
-    if (c < 0x20 || c >= 0x7f) return fmt::format("a character that is not allowed here (byte 0x{:02X})", c);
+    if (c < 0x20 || c >= 0x7f)
+        return fmt::format("a character that is not allowed here (byte 0x{:02X})", c);
     return fmt::format("'{}'", *at);
 }
 
@@ -128,9 +132,12 @@ bool starts_statement(const char* at, const char* end) {
     static constexpr std::array<std::string_view, 9> words{
         "model", "report", "grid", "node", "material", "section", "member", "support", "case"};
     for (std::string_view w : words) {
-        if (static_cast<std::size_t>(end - at) < w.size()) continue;
-        bool word_ends = static_cast<std::size_t>(end - at) == w.size() || !is_word_char(at[w.size()]);
-        if (std::string_view(at, w.size()) == w && word_ends) return true;
+        if (static_cast<std::size_t>(end - at) < w.size())
+            continue;
+        bool word_ends =
+            static_cast<std::size_t>(end - at) == w.size() || !is_word_char(at[w.size()]);
+        if (std::string_view(at, w.size()) == w && word_ends)
+            return true;
     }
     return false;
 }
@@ -141,8 +148,10 @@ std::vector<std::string> keywords_in(std::string_view message) {
     std::size_t i = 0;
     while (i < message.size()) {
         std::size_t j = i;
-        while (j < message.size() && message[j] >= 'a' && message[j] <= 'z') ++j;
-        if (j > i && is_keyword(message.substr(i, j - i))) found.emplace_back(message.substr(i, j - i));
+        while (j < message.size() && message[j] >= 'a' && message[j] <= 'z')
+            ++j;
+        if (j > i && is_keyword(message.substr(i, j - i)))
+            found.emplace_back(message.substr(i, j - i));
         i = j + 1;
     }
     return found;
@@ -152,17 +161,21 @@ void Builder::recover_from(const pegtl::parse_error& e, const char* at, bool in_
     std::size_t width = 1;
     std::string found = found_at(at, width);
     std::string message(e.message());
-    if (message.rfind("parse error matching", 0) == 0) message = "this is not valid here";
+    if (message.rfind("parse error matching", 0) == 0)
+        message = "this is not valid here";
     if (message == g::errors::message<g::block_close> && block_line > 0) {
         message += fmt::format(" opened at line {}", block_line);
     }
     bool expected_something = message.rfind("expected", 0) == 0;
-    if (expected_something) message += ", found " + found;
-    if (expected_something && found.front() == '\'' && found.find("reserved") == std::string::npos) {
+    if (expected_something)
+        message += ", found " + found;
+    if (expected_something && found.front() == '\'' &&
+        found.find("reserved") == std::string::npos) {
         message += did_you_mean(found.substr(1, width), keywords_in(e.message()));
     }
     if (in_block && block_line > 0 && starts_statement(at, base + sources.file(file).text.size())) {
-        message += fmt::format(" (is the '}}' of the case block opened at line {} missing?)", block_line);
+        message +=
+            fmt::format(" (is the '}}' of the case block opened at line {} missing?)", block_line);
     }
     const char* stop = std::min(at + width, base + sources.file(file).text.size());
     diagnostics.error(range(at, stop), std::move(message));
@@ -174,8 +187,10 @@ void Builder::recover_from(const pegtl::parse_error& e, const char* at, bool in_
     pending_role.reset();
     nesting = 0;
     load.reset();
-    if (!in_block) statement.reset();
-    if (++syntax_errors >= kMaxSyntaxErrors) throw TooManyErrors{};
+    if (!in_block)
+        statement.reset();
+    if (++syntax_errors >= kMaxSyntaxErrors)
+        throw TooManyErrors{};
 }
 
 double number_value(std::string_view text) {
@@ -183,7 +198,8 @@ double number_value(std::string_view text) {
     auto [end, ec] = std::from_chars(text.data(), text.data() + text.size(), value);
     if (ec == std::errc::result_out_of_range) {
         // Too small rounds to zero; too large stays infinite and `resolve` says so.
-        bool tiny = text.find("e-") != std::string_view::npos || text.find("E-") != std::string_view::npos;
+        bool tiny =
+            text.find("e-") != std::string_view::npos || text.find("E-") != std::string_view::npos;
         return tiny ? 0.0 : std::numeric_limits<double>::infinity();
     }
     return value;
@@ -193,17 +209,19 @@ double number_value(std::string_view text) {
 template <typename Input>
 syntax::UnitFactor unit_factor(const Input& in, const Builder& b, bool divides) {
     const char* p = in.begin();
-    while (!((*p >= 'a' && *p <= 'z') || (*p >= 'A' && *p <= 'Z'))) ++p;
+    while (!((*p >= 'a' && *p <= 'z') || (*p >= 'A' && *p <= 'Z')))
+        ++p;
     const char* name_end = p;
-    while (name_end < in.end() && ((*name_end >= 'a' && *name_end <= 'z') ||
-                                   (*name_end >= 'A' && *name_end <= 'Z'))) {
+    while (name_end < in.end() &&
+           ((*name_end >= 'a' && *name_end <= 'z') || (*name_end >= 'A' && *name_end <= 'Z'))) {
         ++name_end;
     }
     syntax::UnitFactor f;
     f.name.assign(p, name_end);
     f.divides = divides;
     const char* q = name_end;
-    if (q < in.end() && *q == '^') ++q;
+    if (q < in.end() && *q == '^')
+        ++q;
     if (q < in.end()) {
         int exponent = 1;
         std::from_chars(q, in.end(), exponent);
@@ -223,7 +241,8 @@ struct action<g::comment> {
     template <typename Input>
     static void apply(const Input& in, Builder& b) {
         // Backtracking can read a comment twice; keep each once.
-        if (b.offset(in.begin()) < b.next_comment_offset) return;
+        if (b.offset(in.begin()) < b.next_comment_offset)
+            return;
         b.next_comment_offset = b.offset(in.end());
         b.tree.comments.push_back(syntax::Comment{in.string(), b.range(in)});
     }
@@ -344,7 +363,6 @@ struct action<g::product_tail> {
 template <>
 struct action<g::sum_tail> : action<g::product_tail> {};
 
-
 // ---------------------------------------------------------------- statements
 
 /// Commits the statement draft once the whole statement has matched.
@@ -352,7 +370,8 @@ template <>
 struct action<g::statement> {
     template <typename Input>
     static void apply(const Input& in, Builder& b) {
-        if (!b.statement) return;
+        if (!b.statement)
+            return;
         b.statement->where = b.range(b.base + b.statement->where.begin.offset, in.end());
         b.tree.statements.push_back(std::move(*b.statement));
         b.statement.reset();
@@ -373,7 +392,8 @@ struct action<g::title> {
     static void apply(const Input& in, Builder& b) {
         std::string text;
         for (const char* p = in.begin() + 1; p + 1 < in.end(); ++p) {
-            if (*p == '\\') ++p;
+            if (*p == '\\')
+                ++p;
             text += *p;
         }
         b.current<syntax::ModelTitle>().title = std::move(text);
@@ -660,7 +680,8 @@ struct action<g::spring_item> {
     template <typename Input>
     static void apply(const Input&, Builder& b) {
         syntax::SupportDecl::Spring spring{std::move(*b.pending_name), std::nullopt};
-        if (!b.pending_spring_fixed) spring.stiffness = b.pop_expr();
+        if (!b.pending_spring_fixed)
+            spring.stiffness = b.pop_expr();
         b.pending_spring_fixed = false;
         b.current<syntax::SupportDecl>().springs.push_back(std::move(spring));
     }
@@ -786,10 +807,10 @@ struct action<g::direction> {
     static void apply(const Input& in, Builder& b) {
         using D = syntax::LoadDecl::Direction;
         std::string_view w = in.string_view();
-        b.load->direction = w == "x"      ? D::x
-                            : w == "y"    ? D::y
-                            : w == "up"   ? D::up
-                            : w == "down" ? D::down
+        b.load->direction = w == "x"       ? D::x
+                            : w == "y"     ? D::y
+                            : w == "up"    ? D::up
+                            : w == "down"  ? D::down
                             : w == "axial" ? D::axial
                                            : D::transverse;
         b.load->direction_where = b.range(in);

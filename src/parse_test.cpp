@@ -36,8 +36,9 @@ TEST_CASE("every keyword of keywords.hpp is matched by the grammar's reserved ru
 TEST_CASE("statements, positions and comments are recorded") {
     SourceMap sources;
     Diagnostics d;
-    auto tree = parse_text("# heading\nmodel \"A \\\"quoted\\\" title\"\n\nnode N1 at x = 1 ft, y = 2 ft  # end\n",
-                           d, sources);
+    auto tree = parse_text(
+        "# heading\nmodel \"A \\\"quoted\\\" title\"\n\nnode N1 at x = 1 ft, y = 2 ft  # end\n", d,
+        sources);
     REQUIRE_FALSE(d.has_errors());
     REQUIRE(tree.statements.size() == 2);
     CHECK(std::get<syntax::ModelTitle>(tree.statements[0].node).title == "A \"quoted\" title");
@@ -55,8 +56,9 @@ TEST_CASE("statements, positions and comments are recorded") {
 TEST_CASE("units attach to numbers; arithmetic keeps precedence and parentheses") {
     SourceMap sources;
     Diagnostics d;
-    auto tree = parse_text("case D dead { uniform 20 psf * (10 ft + 2 ft) - 1 kip-ft/ft^2 * 3 ft down on B1 }\n",
-                           d, sources);
+    auto tree = parse_text(
+        "case D dead { uniform 20 psf * (10 ft + 2 ft) - 1 kip-ft/ft^2 * 3 ft down on B1 }\n", d,
+        sources);
     REQUIRE_FALSE(d.has_errors());
     const auto& c = std::get<syntax::CaseDecl>(tree.statements[0].node);
     const syntax::Expr& e = *c.loads[0].value;
@@ -74,21 +76,27 @@ TEST_CASE("units attach to numbers; arithmetic keeps precedence and parentheses"
 TEST_CASE("syntax errors: exact message, line and column") {
     using Catch::Matchers::Equals;
     CHECK(first_message("model \"no end\n") ==
-          "input:1:14: error: expected '\"' to close the title on this line, found the end of the line");
+          "input:1:14: error: expected '\"' to close the title on this line, found the end of the "
+          "line");
     CHECK(first_message("nod N1 at x = 0 ft, y = 0 ft\n") ==
-          "input:1:1: error: expected a statement (model, report, grid, node, material, section, member, "
+          "input:1:1: error: expected a statement (model, report, grid, node, material, section, "
+          "member, "
           "support or case), found 'nod'; did you mean 'node'?");
     CHECK(first_message("node N2 at x = 0 ft y = 3 ft\n") ==
-          "input:1:21: error: expected the end of the statement (a new line or ';'), found 'y' (a reserved word)");
+          "input:1:21: error: expected the end of the statement (a new line or ';'), found 'y' (a "
+          "reserved word)");
     CHECK(first_message("node model at x = 3 ft, y = 0 ft\n") ==
           "input:1:6: error: expected a node name, found 'model' (a reserved word)");
     CHECK(first_message("member M1 from N1 to N2 sectoin beam\n") ==
-          "input:1:25: error: expected 'section' and a section name, found 'sectoin'; did you mean 'section'?");
+          "input:1:25: error: expected 'section' and a section name, found 'sectoin'; did you mean "
+          "'section'?");
     CHECK(first_message("case D deadd {\n}\n") ==
-          "input:1:8: error: expected the kind of load case (dead, live, roof live, snow, wind or other), found "
+          "input:1:8: error: expected the kind of load case (dead, live, roof live, snow, wind or "
+          "other), found "
           "'deadd'; did you mean 'dead'?");
     CHECK(first_message("case D dead {\n  uniform 3 kip/ft dwn on B1\n}\n") ==
-          "input:2:20: error: expected a direction (x, y, up, down, axial or transverse), found 'dwn'; did you "
+          "input:2:20: error: expected a direction (x, y, up, down, axial or transverse), found "
+          "'dwn'; did you "
           "mean 'down'?");
     CHECK(first_message("case D dead {\n  uniform 3 kip/ft down on B1 from 3 ft\n}\n") ==
           "input:2:40: error: expected 'to', found the end of the line");
@@ -99,17 +107,20 @@ TEST_CASE("syntax errors: exact message, line and column") {
     CHECK(first_message("node N at x = 2 *\n") ==
           "input:2:1: error: expected a number such as 12 ft, or '(', found the end of the file");
     CHECK(first_message("support hinged at N1\n") ==
-          "input:1:9: error: expected a support type (fixed, pinned, roller or spring), found 'hinged'; "
+          "input:1:9: error: expected a support type (fixed, pinned, roller or spring), found "
+          "'hinged'; "
           "did you mean 'pinned'?");
 }
 
 TEST_CASE("an unclosed case block names the line that opened it") {
     CHECK(messages_for("case L live {\n  uniform 3 kip/ft down on M1\n") ==
-          "input:3:1: error: expected '}' to close the case block opened at line 1, found the end of the file\n"
+          "input:3:1: error: expected '}' to close the case block opened at line 1, found the end "
+          "of the file\n"
           "    \n"
           "    ^\n");
     CHECK(first_message("case L live {\n  uniform 3 kip/ft down on M1\ngrid x A = 3 ft\n") ==
-          "input:3:1: error: expected a load (uniform, linear, point, moment or self weight) or '}', found "
+          "input:3:1: error: expected a load (uniform, linear, point, moment or self weight) or "
+          "'}', found "
           "'grid' (a reserved word) (is the '}' of the case block opened at line 1 missing?)");
 }
 
@@ -129,6 +140,6 @@ TEST_CASE("the parser recovers at the next statement and reports every independe
     for (std::size_t at = 0; (at = all.find("input:", at)) != std::string::npos; ++at) {
         heads.push_back(all.substr(at, all.find(':', all.find(':', at + 6) + 1) - at));
     }
-    CHECK(heads == std::vector<std::string>{"input:1:1", "input:2:21", "input:3:8", "input:7:3", "input:8:20",
-                                            "input:10:25"});
+    CHECK(heads == std::vector<std::string>{"input:1:1", "input:2:21", "input:3:8", "input:7:3",
+                                            "input:8:20", "input:10:25"});
 }

@@ -3,10 +3,10 @@
 // line, and fixed decimals per unit so that output is the same on every run.
 #include "report.hpp"
 
+#include <fmt/format.h>
 #include <algorithm>
 #include <array>
 #include <cmath>
-#include <fmt/format.h>
 
 #include "number_format.hpp"
 
@@ -24,7 +24,7 @@ constexpr std::size_t kNumberWidth = 12;
 /// number column is 12 wide, or as wide as its header), then rows that fill
 /// the columns in order. Trailing spaces are trimmed from every row.
 class Table {
-public:
+  public:
     explicit Table(std::string& out) : out_(out) {}
 
     Table& name_column(std::string_view header, std::size_t width) {
@@ -55,13 +55,16 @@ public:
         return *this;
     }
     void end_row() {
-        while (!out_.empty() && out_.back() == ' ') out_.pop_back();
+        while (!out_.empty() && out_.back() == ' ')
+            out_.pop_back();
         out_ += '\n';
         column_ = 0;
     }
 
-private:
-    std::size_t next_width() { return column_ < widths_.size() ? widths_[column_++] : kNumberWidth; }
+  private:
+    std::size_t next_width() {
+        return column_ < widths_.size() ? widths_[column_++] : kNumberWidth;
+    }
 
     std::string& out_;
     std::vector<std::size_t> widths_;
@@ -71,7 +74,8 @@ private:
 template <typename T>
 std::size_t name_width(const std::vector<T>& items, std::string_view header) {
     std::size_t w = header.size();
-    for (const T& item : items) w = std::max(w, item.name.size());
+    for (const T& item : items)
+        w = std::max(w, item.name.size());
     return w;
 }
 
@@ -86,7 +90,8 @@ void write_header(std::string& out, const Model& model) {
     out += "\n\n";
     const DisplayUnits& u = model.units;
     out += fmt::format("Units: force {}, length {}, moment {}, displacement {}, rotation {}\n\n",
-                       u.force.name, u.length.name, u.moment.name, u.displacement.name, u.rotation.name);
+                       u.force.name, u.length.name, u.moment.name, u.displacement.name,
+                       u.rotation.name);
     out +=
         "Sign conventions\n"
         "  Global axes: x to the right, y up; moments and rotations counterclockwise positive.\n"
@@ -117,7 +122,8 @@ const char* shape_name(Section::Shape shape) {
 
 void write_nodes(std::string& out, const Model& model) {
     std::vector<const Support*> support(model.nodes.size(), nullptr);
-    for (const Support& s : model.supports) support[at(s.node)] = &s;
+    for (const Support& s : model.supports)
+        support[at(s.node)] = &s;
     out += "Nodes\n";
     Table t(out);
     t.name_column("node", name_width(model.nodes, "node"))
@@ -136,7 +142,8 @@ void write_nodes(std::string& out, const Model& model) {
 void write_springs(std::string& out, const Model& model) {
     bool any = std::any_of(model.supports.begin(), model.supports.end(),
                            [](const Support& s) { return s.kind == Support::Kind::spring; });
-    if (!any) return;
+    if (!any)
+        return;
     const DisplayUnits& u = model.units;
     out += "Spring supports (fixed: rigid; blank: free)\n";
     Table t(out);
@@ -146,7 +153,8 @@ void write_springs(std::string& out, const Model& model) {
         .number_column("kr", u.rotational_stiffness)
         .end_row();
     for (const Support& s : model.supports) {
-        if (s.kind != Support::Kind::spring) continue;
+        if (s.kind != Support::Kind::spring)
+            continue;
         t.name(model.nodes[at(s.node)].name);
         for (std::size_t d = 0; d < 3; ++d) {
             const Restraint& r = s.restraint[d];
@@ -162,8 +170,10 @@ void write_springs(std::string& out, const Model& model) {
 }
 
 const char* hinge_words(const Member& m) {
-    if (m.hinge_start && m.hinge_end) return "both ends";
-    if (m.hinge_start) return "start";
+    if (m.hinge_start && m.hinge_end)
+        return "both ends";
+    if (m.hinge_start)
+        return "start";
     return m.hinge_end ? "end" : "";
 }
 
@@ -182,7 +192,9 @@ void write_members(std::string& out, const Model& model) {
         const Node& a = model.nodes[at(m.start)];
         const Node& b = model.nodes[at(m.end)];
         t.name(m.name).name(a.name).name(b.name).name(model.sections[at(m.section)].name);
-        t.number(std::hypot(b.x - a.x, b.y - a.y), model.units.length).name(hinge_words(m)).end_row();
+        t.number(std::hypot(b.x - a.x, b.y - a.y), model.units.length)
+            .name(hinge_words(m))
+            .end_row();
     }
     out += '\n';
 }
@@ -201,7 +213,11 @@ void write_sections(std::string& out, const Model& model) {
         .end_row();
     for (const Section& s : model.sections) {
         const Material& m = model.materials[at(s.material)];
-        t.name(s.name).name(m.name).name(shape_name(s.shape)).number(s.area, u.area).number(s.inertia, u.inertia);
+        t.name(s.name)
+            .name(m.name)
+            .name(shape_name(s.shape))
+            .number(s.area, u.area)
+            .number(s.inertia, u.inertia);
         t.number(m.elastic_modulus, u.modulus).number(m.unit_weight, u.unit_weight).end_row();
     }
     out += '\n';
@@ -211,7 +227,8 @@ void write_case_list(std::string& out, const Model& model) {
     out += "Load cases\n";
     Table t(out);
     t.name_column("case", name_width(model.cases, "case")).name_column("kind", 0).end_row();
-    for (const LoadCase& lc : model.cases) t.name(lc.name).name(case_kind_name(lc.kind)).end_row();
+    for (const LoadCase& lc : model.cases)
+        t.name(lc.name).name(case_kind_name(lc.kind)).end_row();
     out += '\n';
 }
 
@@ -221,14 +238,18 @@ void write_equilibrium(std::string& out, const Model& model, const Equilibrium& 
     const DisplayUnits& u = model.units;
     out += "Equilibrium (sums over the structure; M about the origin)\n";
     Table t(out);
-    t.name_column("", 9).number_column("Fx", u.force).number_column("Fy", u.force).number_column("M", u.moment);
+    t.name_column("", 9)
+        .number_column("Fx", u.force)
+        .number_column("Fy", u.force)
+        .number_column("M", u.moment);
     t.end_row();
     auto row = [&](const char* label, const std::array<double, 3>& v) {
         t.name(label).number(v[0], u.force).number(v[1], u.force).number(v[2], u.moment).end_row();
     };
     row("applied", e.applied);
     row("reactions", e.reactions);
-    row("residual", {e.applied[0] + e.reactions[0], e.applied[1] + e.reactions[1], e.applied[2] + e.reactions[2]});
+    row("residual", {e.applied[0] + e.reactions[0], e.applied[1] + e.reactions[1],
+                     e.applied[2] + e.reactions[2]});
     out += '\n';
 }
 
@@ -243,15 +264,19 @@ void write_reactions(std::string& out, const Model& model, const CaseResults& r)
         .end_row();
     for (std::size_t i = 0; i < model.supports.size(); ++i) {
         t.name(model.nodes[at(model.supports[i].node)].name);
-        t.number(r.reactions[i][0], u.force).number(r.reactions[i][1], u.force).number(r.reactions[i][2], u.moment);
+        t.number(r.reactions[i][0], u.force)
+            .number(r.reactions[i][1], u.force)
+            .number(r.reactions[i][2], u.moment);
         t.end_row();
     }
     out += '\n';
 }
 
-void write_displacements(std::string& out, const Model& model, const Results& results, const CaseResults& r) {
+void write_displacements(std::string& out, const Model& model, const Results& results,
+                         const CaseResults& r) {
     const DisplayUnits& u = model.units;
-    bool any_free = std::any_of(results.rotation_free.begin(), results.rotation_free.end(), [](char f) { return f != 0; });
+    bool any_free = std::any_of(results.rotation_free.begin(), results.rotation_free.end(),
+                                [](char f) { return f != 0; });
     out += any_free ? "Node displacements (rotation 'free': every member is hinged at the node)\n"
                     : "Node displacements\n";
     Table t(out);
@@ -279,7 +304,10 @@ void write_largest_displacements(std::string& out, const Model& model, const Res
     const DisplayUnits& u = model.units;
     out += "Largest displacements\n";
     Table t(out);
-    t.name_column("", 8).name_column("node", name_width(model.nodes, "node")).name_column("value", 0).end_row();
+    t.name_column("", 8)
+        .name_column("node", name_width(model.nodes, "node"))
+        .name_column("value", 0)
+        .end_row();
     const char* labels[] = {"dx", "dy", "rotation"};
     for (std::size_t d = 0; d < 3; ++d) {
         const DisplayUnit& unit = d == dof_rotation ? u.rotation : u.displacement;
@@ -288,16 +316,19 @@ void write_largest_displacements(std::string& out, const Model& model, const Res
         std::size_t best = 0;
         double largest = -1.0;
         for (std::size_t i = 0; i < model.nodes.size(); ++i) {
-            bool free = d == dof_rotation && !results.rotation_free.empty() && results.rotation_free[i];
+            bool free =
+                d == dof_rotation && !results.rotation_free.empty() && results.rotation_free[i];
             double shown = std::abs(round_to(unit.from_si(r.displacements[i][d]), unit.decimals));
             if (!free && shown > largest) {
                 largest = shown;
                 best = i;
             }
         }
-        if (largest < 0.0) continue;
+        if (largest < 0.0)
+            continue;
         std::array<char, kNumberBuffer> buffer;
-        std::string value(format_fixed(buffer.data(), unit.from_si(r.displacements[best][d]), unit.decimals));
+        std::string value(
+            format_fixed(buffer.data(), unit.from_si(r.displacements[best][d]), unit.decimals));
         t.name(labels[d]).name(model.nodes[best].name).name(value + " " + unit.name).end_row();
     }
     out += '\n';
@@ -308,13 +339,18 @@ void write_end_forces(std::string& out, const Model& model, const CaseResults& r
     out += "Member end forces (internal N, V, M just inside each end)\n";
     Table t(out);
     t.name_column("member", name_width(model.members, "member"));
-    t.number_column("N start", u.force).number_column("V start", u.force).number_column("M start", u.moment);
-    t.number_column("N end", u.force).number_column("V end", u.force).number_column("M end", u.moment);
+    t.number_column("N start", u.force)
+        .number_column("V start", u.force)
+        .number_column("M start", u.moment);
+    t.number_column("N end", u.force)
+        .number_column("V end", u.force)
+        .number_column("M end", u.moment);
     t.end_row();
     for (std::size_t i = 0; i < model.members.size(); ++i) {
         const MemberSummary& s = r.members[i];
         t.name(model.members[i].name);
-        for (const auto* v : {&s.start, &s.end}) t.number((*v)[0], u.force).number((*v)[1], u.force).number((*v)[2], u.moment);
+        for (const auto* v : {&s.start, &s.end})
+            t.number((*v)[0], u.force).number((*v)[1], u.force).number((*v)[2], u.moment);
         t.end_row();
     }
     out += '\n';
@@ -326,21 +362,28 @@ void write_extremes(std::string& out, const Model& model, const CaseResults& r) 
     Table t(out);
     t.name_column("member", name_width(model.members, "member"));
     const std::array<std::pair<const char*, const DisplayUnit*>, 6> columns{
-        {{"M+", &u.moment}, {"M-", &u.moment}, {"V", &u.force}, {"N+", &u.force}, {"N-", &u.force},
+        {{"M+", &u.moment},
+         {"M-", &u.moment},
+         {"V", &u.force},
+         {"N+", &u.force},
+         {"N-", &u.force},
          {"defl.", &u.displacement}}};
-    for (const auto& [title, unit] : columns) t.number_column(title, *unit).number_column("at", u.length);
+    for (const auto& [title, unit] : columns)
+        t.number_column(title, *unit).number_column("at", u.length);
     t.end_row();
     for (std::size_t i = 0; i < model.members.size(); ++i) {
         const MemberSummary& s = r.members[i];
         t.name(model.members[i].name);
         const std::array<const Extreme*, 6> values{&s.moment_max, &s.moment_min, &s.shear_max,
-                                                   &s.axial_max, &s.axial_min, &s.deflection_max};
+                                                   &s.axial_max,  &s.axial_min,  &s.deflection_max};
         for (std::size_t k = 0; k < values.size(); ++k) {
             t.number(values[k]->value, *columns[k].second).number(values[k]->position, u.length);
         }
         t.end_row();
     }
-    out += "  (N+ largest tension, N- largest compression, V largest in size; 0 where there is none)\n\n";
+    out +=
+        "  (N+ largest tension, N- largest compression, V largest in size; 0 where there is "
+        "none)\n\n";
 }
 
 void write_stations(std::string& out, const Model& model, const Stations& stations, std::size_t c) {
@@ -357,7 +400,8 @@ void write_stations(std::string& out, const Model& model, const Stations& statio
     for (std::size_t m = 0; m < model.members.size(); ++m) {
         const Station* s = stations.of(c, m);
         for (std::size_t k = 0; k < stations.per_member; ++k) {
-            t.name(k == 0 ? std::string_view(model.members[m].name) : "").number(s[k].position, u.length);
+            t.name(k == 0 ? std::string_view(model.members[m].name) : "")
+                .number(s[k].position, u.length);
             t.number(s[k].axial, u.force).number(s[k].shear, u.force).number(s[k].moment, u.moment);
             t.number(s[k].deflection, u.displacement).end_row();
         }
@@ -371,21 +415,25 @@ void write_case(std::string& out, const Model& model, const Results& results, st
     const CaseResults& r = results.cases[c];
     out += fmt::format("== Load case {} ({}) ==\n\n", lc.name, case_kind_name(lc.kind));
     write_equilibrium(out, model, r.equilibrium);
-    if (!model.supports.empty()) write_reactions(out, model, r);
+    if (!model.supports.empty())
+        write_reactions(out, model, r);
     if (options.full) {
         write_displacements(out, model, results, r);
     } else {
         write_largest_displacements(out, model, results, r);
     }
-    if (options.full) write_end_forces(out, model, r);
+    if (options.full)
+        write_end_forces(out, model, r);
     write_extremes(out, model, r);
-    if (options.stations != nullptr) write_stations(out, model, *options.stations, c);
+    if (options.stations != nullptr)
+        write_stations(out, model, *options.stations, c);
 }
 
 }  // namespace
 
 std::string shown_source(const std::string& name) {
-    if (name.empty() || name.front() != '/') return name;
+    if (name.empty() || name.front() != '/')
+        return name;
     return name.substr(name.find_last_of('/') + 1);
 }
 

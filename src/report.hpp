@@ -16,7 +16,7 @@ namespace firn {
 extern const char* const kCaution;
 
 struct ReportOptions {
-    bool full = false;                   ///< every node's displacements and every member's end forces
+    bool full = false;  ///< every node's displacements and every member's end forces
     const Stations* stations = nullptr;  ///< member stations to print, if any
 };
 

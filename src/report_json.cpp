@@ -19,34 +19,48 @@ double shown(double si_value, const DisplayUnit& unit) {
 }
 
 Json units_json(const DisplayUnits& u) {
-    return Json{{"force", u.force.name},   {"length", u.length.name},
-                {"moment", u.moment.name}, {"displacement", u.displacement.name},
-                {"rotation", u.rotation.name}, {"area", u.area.name},
-                {"inertia", u.inertia.name}, {"modulus", u.modulus.name},
+    return Json{{"force", u.force.name},
+                {"length", u.length.name},
+                {"moment", u.moment.name},
+                {"displacement", u.displacement.name},
+                {"rotation", u.rotation.name},
+                {"area", u.area.name},
+                {"inertia", u.inertia.name},
+                {"modulus", u.modulus.name},
                 {"unit_weight", u.unit_weight.name}};
 }
 
 Json model_json(const Model& model) {
     const DisplayUnits& u = model.units;
-    Json nodes = Json::array(), members = Json::array(), sections = Json::array(), supports = Json::array();
+    Json nodes = Json::array(), members = Json::array(), sections = Json::array(),
+         supports = Json::array();
     for (const Node& n : model.nodes) {
-        nodes.push_back({{"name", n.name}, {"x", shown(n.x, u.length)}, {"y", shown(n.y, u.length)}});
+        nodes.push_back(
+            {{"name", n.name}, {"x", shown(n.x, u.length)}, {"y", shown(n.y, u.length)}});
     }
     for (const Section& s : model.sections) {
         const Material& m = model.materials[at(s.material)];
-        sections.push_back({{"name", s.name}, {"material", m.name}, {"A", shown(s.area, u.area)},
-                            {"I", shown(s.inertia, u.inertia)}, {"E", shown(m.elastic_modulus, u.modulus)},
+        sections.push_back({{"name", s.name},
+                            {"material", m.name},
+                            {"A", shown(s.area, u.area)},
+                            {"I", shown(s.inertia, u.inertia)},
+                            {"E", shown(m.elastic_modulus, u.modulus)},
                             {"density", shown(m.unit_weight, u.unit_weight)}});
     }
     for (const Member& m : model.members) {
-        members.push_back({{"name", m.name}, {"start", model.nodes[at(m.start)].name},
-                           {"end", model.nodes[at(m.end)].name}, {"section", model.sections[at(m.section)].name},
-                           {"hinge_start", m.hinge_start}, {"hinge_end", m.hinge_end}});
+        members.push_back({{"name", m.name},
+                           {"start", model.nodes[at(m.start)].name},
+                           {"end", model.nodes[at(m.end)].name},
+                           {"section", model.sections[at(m.section)].name},
+                           {"hinge_start", m.hinge_start},
+                           {"hinge_end", m.hinge_end}});
     }
     for (const Support& s : model.supports) {
-        supports.push_back({{"node", model.nodes[at(s.node)].name}, {"kind", support_kind_name(s.kind)}});
+        supports.push_back(
+            {{"node", model.nodes[at(s.node)].name}, {"kind", support_kind_name(s.kind)}});
     }
-    return Json{{"nodes", nodes}, {"sections", sections}, {"members", members}, {"supports", supports}};
+    return Json{
+        {"nodes", nodes}, {"sections", sections}, {"members", members}, {"supports", supports}};
 }
 
 Json triple(const std::array<double, 3>& v, const DisplayUnit& force, const DisplayUnit& moment,
@@ -76,14 +90,17 @@ Json stations_json(const Model& model, const Stations& stations, std::size_t c, 
     Json out = Json::array();
     const Station* s = stations.of(c, m);
     for (std::size_t k = 0; k < stations.per_member; ++k) {
-        out.push_back({{"x", shown(s[k].position, u.length)}, {"N", shown(s[k].axial, u.force)},
-                       {"V", shown(s[k].shear, u.force)}, {"M", shown(s[k].moment, u.moment)},
+        out.push_back({{"x", shown(s[k].position, u.length)},
+                       {"N", shown(s[k].axial, u.force)},
+                       {"V", shown(s[k].shear, u.force)},
+                       {"M", shown(s[k].moment, u.moment)},
                        {"deflection", shown(s[k].deflection, u.displacement)}});
     }
     return out;
 }
 
-Json case_json(const Model& model, const Results& results, std::size_t c, const ReportOptions& options) {
+Json case_json(const Model& model, const Results& results, std::size_t c,
+               const ReportOptions& options) {
     const DisplayUnits& u = model.units;
     const CaseResults& r = results.cases[c];
     Json reactions = Json::array(), displacements = Json::array(), members = Json::array();
@@ -94,20 +111,24 @@ Json case_json(const Model& model, const Results& results, std::size_t c, const 
     }
     for (std::size_t i = 0; i < model.nodes.size(); ++i) {
         bool free = !results.rotation_free.empty() && results.rotation_free[i];
-        displacements.push_back({{"node", model.nodes[i].name}, {"dx", shown(r.displacements[i][0], u.displacement)},
-                                 {"dy", shown(r.displacements[i][1], u.displacement)},
-                                 {"rotation", free ? Json(nullptr) : Json(shown(r.displacements[i][2], u.rotation))}});
+        displacements.push_back(
+            {{"node", model.nodes[i].name},
+             {"dx", shown(r.displacements[i][0], u.displacement)},
+             {"dy", shown(r.displacements[i][1], u.displacement)},
+             {"rotation", free ? Json(nullptr) : Json(shown(r.displacements[i][2], u.rotation))}});
     }
     for (std::size_t i = 0; i < model.members.size(); ++i) {
         Json m = member_json(model, i, r.members[i]);
-        if (options.stations != nullptr) m["stations"] = stations_json(model, *options.stations, c, i);
+        if (options.stations != nullptr)
+            m["stations"] = stations_json(model, *options.stations, c, i);
         members.push_back(std::move(m));
     }
     const Equilibrium& e = r.equilibrium;
     return Json{{"name", model.cases[c].name},
                 {"kind", case_kind_name(model.cases[c].kind)},
-                {"equilibrium", {{"applied", triple(e.applied, u.force, u.moment, "Fx", "Fy", "M")},
-                                 {"reactions", triple(e.reactions, u.force, u.moment, "Fx", "Fy", "M")}}},
+                {"equilibrium",
+                 {{"applied", triple(e.applied, u.force, u.moment, "Fx", "Fy", "M")},
+                  {"reactions", triple(e.reactions, u.force, u.moment, "Fx", "Fy", "M")}}},
                 {"reactions", reactions},
                 {"displacements", displacements},
                 {"members", members}};
@@ -135,7 +156,8 @@ void write_json_report(const Model& model, const Results& results, const ReportO
         text += "  ";
         for (char ch : one) {
             text += ch;
-            if (ch == '\n') text += "  ";
+            if (ch == '\n')
+                text += "  ";
         }
         sink(text);
         text.clear();

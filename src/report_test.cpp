@@ -27,7 +27,8 @@ std::string report_of(const std::string& text, bool json = false) {
 std::vector<std::string> lines(const std::string& text) {
     std::vector<std::string> out;
     std::istringstream in(text);
-    for (std::string line; std::getline(in, line);) out.push_back(line);
+    for (std::string line; std::getline(in, line);)
+        out.push_back(line);
     return out;
 }
 
@@ -35,9 +36,12 @@ std::vector<std::string> lines(const std::string& text) {
 
 TEST_CASE("the report carries the caution, the units and the sign conventions") {
     std::string r = report_of(kFrame);
-    CHECK(r.find("Caution: These results support, and do not replace, the judgement of a licensed engineer. "
-                 "Local codes, amendments and the authority having jurisdiction govern.") != std::string::npos);
-    CHECK(r.find("Units: force kip, length ft, moment kip*ft, displacement in, rotation rad") != std::string::npos);
+    CHECK(r.find("Caution: These results support, and do not replace, the judgement of a licensed "
+                 "engineer. "
+                 "Local codes, amendments and the authority having jurisdiction govern.") !=
+          std::string::npos);
+    CHECK(r.find("Units: force kip, length ft, moment kip*ft, displacement in, rotation rad") !=
+          std::string::npos);
     CHECK(r.find("N  axial force, tension positive.") != std::string::npos);
     CHECK(r.find("Rx [kip]") != std::string::npos);
     CHECK_FALSE(std::regex_search(r, std::regex(R"((^|\s)-0\.0*(\s|$))")));  // no negative zero
@@ -55,10 +59,12 @@ TEST_CASE("a one-line change to a load changes only that case's lines") {
     auto b = lines(report_of(changed));
     REQUIRE(a.size() == b.size());
     std::size_t wind_starts = 0;
-    while (a[wind_starts].find("== Load case W") != 0) ++wind_starts;
+    while (a[wind_starts].find("== Load case W") != 0)
+        ++wind_starts;
     std::size_t differing = 0;
     for (std::size_t i = 0; i < a.size(); ++i) {
-        if (a[i] == b[i]) continue;
+        if (a[i] == b[i])
+            continue;
         ++differing;
         CHECK(i > wind_starts);
     }

@@ -2,9 +2,9 @@
 // sections, members, supports). Load cases are in resolve_loads.cpp.
 #include "resolve.hpp"
 
+#include <fmt/format.h>
 #include <algorithm>
 #include <cmath>
-#include <fmt/format.h>
 #include <map>
 
 #include "resolve_internal.hpp"
@@ -15,7 +15,8 @@ namespace resolve_detail {
 bool NameTable::add(const syntax::Name& name, Diagnostics& diagnostics) {
     auto [it, inserted] = index_.emplace(name.text, names_.size());
     if (!inserted) {
-        Diagnostic& d = diagnostics.error(name.where, fmt::format("{} '{}' is already defined", what_, name.text));
+        Diagnostic& d = diagnostics.error(
+            name.where, fmt::format("{} '{}' is already defined", what_, name.text));
         d.notes.push_back(Diagnostic{Severity::note, where_[it->second], "first defined here", {}});
         return false;
     }
@@ -26,20 +27,25 @@ bool NameTable::add(const syntax::Name& name, Diagnostics& diagnostics) {
 
 std::optional<std::size_t> NameTable::find_quietly(const std::string& name) const {
     auto it = index_.find(name);
-    if (it == index_.end()) return std::nullopt;
+    if (it == index_.end())
+        return std::nullopt;
     return it->second;
 }
 
-std::optional<std::size_t> NameTable::find(const syntax::Name& name, Diagnostics& diagnostics) const {
-    if (auto i = find_quietly(name.text)) return i;
+std::optional<std::size_t> NameTable::find(const syntax::Name& name,
+                                           Diagnostics& diagnostics) const {
+    if (auto i = find_quietly(name.text))
+        return i;
     diagnostics.error(name.where, fmt::format("unknown {} '{}'{}", what_, name.text,
                                               did_you_mean(name.text, names_)));
     return std::nullopt;
 }
 
 bool Resolver::within(const syntax::Expr& e, double v, double limit, const char* what) {
-    if (std::abs(v) <= limit) return true;
-    diagnostics.error(e.where, fmt::format("this {} is out of range (beyond {:g} in SI units)", what, limit));
+    if (std::abs(v) <= limit)
+        return true;
+    diagnostics.error(
+        e.where, fmt::format("this {} is out of range (beyond {:g} in SI units)", what, limit));
     return false;
 }
 
@@ -67,21 +73,31 @@ struct Collected {
 
 Collected collect(std::span<const syntax::Tree> trees) {
     Collected c;
-    if (!trees.empty()) c.file_start = SourceRange{trees[0].file, {0, 1, 1}, {0, 1, 1}};
+    if (!trees.empty())
+        c.file_start = SourceRange{trees[0].file, {0, 1, 1}, {0, 1, 1}};
     for (const syntax::Tree& tree : trees) {
         for (const syntax::Statement& s : tree.statements) {
             std::visit(
                 [&](const auto& node) {
                     using T = std::decay_t<decltype(node)>;
-                    if constexpr (std::is_same_v<T, syntax::ModelTitle>) c.titles.push_back(&s);
-                    if constexpr (std::is_same_v<T, syntax::ReportUnits>) c.report_units.push_back(&s);
-                    if constexpr (std::is_same_v<T, syntax::Grid>) c.grids.push_back(&node);
-                    if constexpr (std::is_same_v<T, syntax::NodeDecl>) c.nodes.push_back(&node);
-                    if constexpr (std::is_same_v<T, syntax::MaterialDecl>) c.materials.push_back(&node);
-                    if constexpr (std::is_same_v<T, syntax::SectionDecl>) c.sections.push_back(&node);
-                    if constexpr (std::is_same_v<T, syntax::MemberDecl>) c.members.push_back(&node);
-                    if constexpr (std::is_same_v<T, syntax::SupportDecl>) c.supports.push_back(&node);
-                    if constexpr (std::is_same_v<T, syntax::CaseDecl>) c.cases.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::ModelTitle>)
+                        c.titles.push_back(&s);
+                    if constexpr (std::is_same_v<T, syntax::ReportUnits>)
+                        c.report_units.push_back(&s);
+                    if constexpr (std::is_same_v<T, syntax::Grid>)
+                        c.grids.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::NodeDecl>)
+                        c.nodes.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::MaterialDecl>)
+                        c.materials.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::SectionDecl>)
+                        c.sections.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::MemberDecl>)
+                        c.members.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::SupportDecl>)
+                        c.supports.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::CaseDecl>)
+                        c.cases.push_back(&node);
                 },
                 s.node);
         }
@@ -92,14 +108,16 @@ Collected collect(std::span<const syntax::Tree> trees) {
 /// Reports a second statement of a kind that may appear once.
 void only_once(Resolver& r, const std::vector<const syntax::Statement*>& found, const char* what) {
     for (std::size_t i = 1; i < found.size(); ++i) {
-        Diagnostic& d = r.diagnostics.error(found[i]->where, fmt::format("{} is already given", what));
+        Diagnostic& d =
+            r.diagnostics.error(found[i]->where, fmt::format("{} is already given", what));
         d.notes.push_back(Diagnostic{Severity::note, found[0]->where, "first given here", {}});
     }
 }
 
 void resolve_title(Resolver& r, const Collected& c) {
     only_once(r, c.titles, "the model title");
-    if (!c.titles.empty()) r.model.title = std::get<syntax::ModelTitle>(c.titles[0]->node).title;
+    if (!c.titles.empty())
+        r.model.title = std::get<syntax::ModelTitle>(c.titles[0]->node).title;
 }
 
 void resolve_report_units(Resolver& r, const Collected& c) {
@@ -109,7 +127,8 @@ void resolve_report_units(Resolver& r, const Collected& c) {
     if (!c.report_units.empty()) {
         for (const auto& item : std::get<syntax::ReportUnits>(c.report_units[0]->node).items) {
             auto q = unit_value(item.unit, r.diagnostics);
-            if (!q) continue;
+            if (!q)
+                continue;
             std::string spelling = unit_spelling(item.unit);
             if (item.role && q->dimension == dim::length) {
                 displacement = spelling;
@@ -131,9 +150,9 @@ void resolve_report_units(Resolver& r, const Collected& c) {
                             "reports are given in force kip, lb, kN or N, length ft, in, m or mm, "
                             "and displacement in, mm, cm, ft or m");
     }
-    if (moment) r.model.units.moment = DisplayUnit{moment->first, moment->second, 3};
+    if (moment)
+        r.model.units.moment = DisplayUnit{moment->first, moment->second, 3};
 }
-
 
 /// Grid lines by name: which axis and where.
 struct GridRef {
@@ -147,8 +166,10 @@ std::vector<GridRef> resolve_grids(Resolver& r, const Collected& c) {
     for (const syntax::Grid* grid : c.grids) {
         for (const syntax::Grid::Line& line : grid->lines) {
             auto v = r.value(line.at, expect::length);
-            if (v && !r.within(line.at, *v, kMaxCoordinate, "coordinate")) v.reset();
-            if (!r.grid_lines.add(line.name, r.diagnostics)) continue;
+            if (v && !r.within(line.at, *v, kMaxCoordinate, "coordinate"))
+                v.reset();
+            if (!r.grid_lines.add(line.name, r.diagnostics))
+                continue;
             GridLine g{line.name.text, v.value_or(0.0), line.name.where};
             (grid->axis == syntax::Axis::x ? r.model.grid_x : r.model.grid_y).push_back(g);
             refs.push_back(GridRef{grid->axis, g.position, v.has_value()});
@@ -166,18 +187,22 @@ bool resolve_coordinate(Resolver& r, const syntax::NodeDecl& decl,
     std::optional<double> v;
     if (c.grid_line) {
         auto i = r.grid_lines.find(*c.grid_line, r.diagnostics);
-        if (!i) return false;
+        if (!i)
+            return false;
         axis = grid[*i].axis;
-        if (grid[*i].valid) v = grid[*i].position;
+        if (grid[*i].valid)
+            v = grid[*i].position;
     } else {
         axis = *c.axis;
         v = r.value(*c.value, expect::length);
-        if (v && !r.within(*c.value, *v, kMaxCoordinate, "coordinate")) v.reset();
+        if (v && !r.within(*c.value, *v, kMaxCoordinate, "coordinate"))
+            v.reset();
     }
     auto& slot = xy[axis == syntax::Axis::x ? 0 : 1];
     if (slot) {
-        r.diagnostics.error(c.where, fmt::format("node '{}' is given two {} coordinates", decl.name.text,
-                                                 axis == syntax::Axis::x ? "x" : "y"));
+        r.diagnostics.error(c.where,
+                            fmt::format("node '{}' is given two {} coordinates", decl.name.text,
+                                        axis == syntax::Axis::x ? "x" : "y"));
         return false;
     }
     slot = v.value_or(0.0);
@@ -192,12 +217,14 @@ void resolve_nodes(Resolver& r, const Collected& c, const std::vector<GridRef>& 
         for (const auto& coordinate : decl->coordinates) {
             placed = resolve_coordinate(r, *decl, coordinate, grid, xy) && placed;
         }
-        if (!r.nodes.add(decl->name, r.diagnostics)) continue;
+        if (!r.nodes.add(decl->name, r.diagnostics))
+            continue;
         bool complete = xy[0] && xy[1];
         if (placed && !complete) {
-            r.diagnostics.error(decl->name.where,
-                                fmt::format("node '{}' needs an x and a y (a column line and a level)",
-                                            decl->name.text));
+            r.diagnostics.error(
+                decl->name.where,
+                fmt::format("node '{}' needs an x and a y (a column line and a level)",
+                            decl->name.text));
         }
         placed = placed && complete;
         r.node_placed.push_back(placed);
@@ -206,10 +233,12 @@ void resolve_nodes(Resolver& r, const Collected& c, const std::vector<GridRef>& 
         auto key = std::pair{std::llround(n.x * 1e6), std::llround(n.y * 1e6)};
         auto [it, fresh] = occupied.emplace(key, r.model.nodes.size());
         if (!fresh && placed) {
-            Diagnostic& d = r.diagnostics.warning(decl->name.where,
+            Diagnostic& d = r.diagnostics.warning(
+                decl->name.where,
                 fmt::format("node '{}' is at the same place as node '{}'; they are not connected",
                             n.name, r.model.nodes[it->second].name));
-            d.notes.push_back(Diagnostic{Severity::note, r.model.nodes[it->second].where, "that node is here", {}});
+            d.notes.push_back(Diagnostic{
+                Severity::note, r.model.nodes[it->second].where, "that node is here", {}});
         }
         r.model.nodes.push_back(std::move(n));
     }
@@ -224,33 +253,40 @@ struct PropertySpec {
     bool positive;  ///< must be > 0 (otherwise >= 0)
 };
 
-std::vector<std::optional<double>> read_properties(Resolver& r, const std::vector<syntax::Property>& props,
+std::vector<std::optional<double>> read_properties(Resolver& r,
+                                                   const std::vector<syntax::Property>& props,
                                                    const std::vector<PropertySpec>& spec,
-                                                   const syntax::Name& owner, const char* owner_kind) {
+                                                   const syntax::Name& owner,
+                                                   const char* owner_kind) {
     std::vector<std::optional<double>> values(spec.size());
     std::vector<const syntax::Property*> seen(spec.size(), nullptr);
     std::vector<std::string> keys;
-    for (const PropertySpec& s : spec) keys.emplace_back(s.key);
+    for (const PropertySpec& s : spec)
+        keys.emplace_back(s.key);
     for (const syntax::Property& p : props) {
         auto slot = std::find(keys.begin(), keys.end(), p.key.text) - keys.begin();
         if (static_cast<std::size_t>(slot) == keys.size()) {
-            r.diagnostics.error(p.key.where, fmt::format("unknown property '{}' of {} '{}'; expected {}{}",
-                                                         p.key.text, owner_kind, owner.text,
-                                                         fmt::join(keys, ", "), did_you_mean(p.key.text, keys)));
+            r.diagnostics.error(
+                p.key.where, fmt::format("unknown property '{}' of {} '{}'; expected {}{}",
+                                         p.key.text, owner_kind, owner.text, fmt::join(keys, ", "),
+                                         did_you_mean(p.key.text, keys)));
             continue;
         }
         auto i = static_cast<std::size_t>(slot);
         if (seen[i] != nullptr) {
-            r.diagnostics.error(p.key.where, fmt::format("property '{}' is given twice", p.key.text));
+            r.diagnostics.error(p.key.where,
+                                fmt::format("property '{}' is given twice", p.key.text));
             continue;
         }
         seen[i] = &p;
         values[i] = r.value(p.value, *spec[i].expected);
-        if (!values[i]) continue;
+        if (!values[i])
+            continue;
         bool bad_sign = spec[i].positive ? !(*values[i] > 0.0) : *values[i] < 0.0;
         if (bad_sign) {
             r.diagnostics.error(p.value.where, fmt::format("'{}' must be {}", p.key.text,
-                                                           spec[i].positive ? "greater than zero" : "zero or more"));
+                                                           spec[i].positive ? "greater than zero"
+                                                                            : "zero or more"));
             values[i].reset();
         } else if (!r.within(p.value, *values[i], kMaxMagnitude, "value")) {
             values[i].reset();
@@ -258,8 +294,9 @@ std::vector<std::optional<double>> read_properties(Resolver& r, const std::vecto
     }
     for (std::size_t i = 0; i < spec.size(); ++i) {
         if (spec[i].required && seen[i] == nullptr) {
-            r.diagnostics.error(owner.where, fmt::format("{} '{}' needs '{}', {}", owner_kind, owner.text,
-                                                         spec[i].key, spec[i].expected->noun));
+            r.diagnostics.error(owner.where,
+                                fmt::format("{} '{}' needs '{}', {}", owner_kind, owner.text,
+                                            spec[i].key, spec[i].expected->noun));
         }
     }
     return values;
@@ -270,13 +307,16 @@ void resolve_materials(Resolver& r, const Collected& c) {
                                                 {"density", &expect::unit_weight, false, false}};
     for (const syntax::MaterialDecl* decl : c.materials) {
         auto v = read_properties(r, decl->properties, spec, decl->name, "material");
-        if (!r.materials.add(decl->name, r.diagnostics)) continue;
-        r.model.materials.push_back(Material{decl->name.text, v[0].value_or(0.0), v[1].value_or(0.0), decl->name.where});
+        if (!r.materials.add(decl->name, r.diagnostics))
+            continue;
+        r.model.materials.push_back(
+            Material{decl->name.text, v[0].value_or(0.0), v[1].value_or(0.0), decl->name.where});
     }
 }
 
 /// Area and inertia of a section from what its statement gives.
-std::optional<std::pair<double, double>> section_properties(Resolver& r, const syntax::SectionDecl& decl) {
+std::optional<std::pair<double, double>> section_properties(Resolver& r,
+                                                            const syntax::SectionDecl& decl) {
     using Shape = syntax::SectionDecl::Shape;
     static const std::vector<PropertySpec> given{{"A", &expect::area, true, true},
                                                  {"I", &expect::inertia, true, true}};
@@ -286,12 +326,16 @@ std::optional<std::pair<double, double>> section_properties(Resolver& r, const s
                                                   {"bf", &expect::length, true, true},
                                                   {"tf", &expect::length, true, true},
                                                   {"tw", &expect::length, true, true}};
-    const auto& spec = decl.shape == Shape::given ? given : decl.shape == Shape::rectangle ? rectangle : ishape;
+    const auto& spec = decl.shape == Shape::given       ? given
+                       : decl.shape == Shape::rectangle ? rectangle
+                                                        : ishape;
     auto v = read_properties(r, decl.properties, spec, decl.name, "section");
     for (const auto& x : v) {
-        if (!x) return std::nullopt;
+        if (!x)
+            return std::nullopt;
     }
-    if (decl.shape == Shape::given) return std::pair{*v[0], *v[1]};
+    if (decl.shape == Shape::given)
+        return std::pair{*v[0], *v[1]};
     if (decl.shape == Shape::rectangle) {
         // Solid rectangle b x d bending about its axis parallel to b.
         double b = *v[0], d = *v[1];
@@ -299,9 +343,11 @@ std::optional<std::pair<double, double>> section_properties(Resolver& r, const s
     }
     double d = *v[0], bf = *v[1], tf = *v[2], tw = *v[3];
     if (!(2.0 * tf < d) || !(tw <= bf)) {
-        r.diagnostics.error(decl.name.where, fmt::format(
-            "section '{}': an I-shape needs two flanges thinner than half its depth (2 tf < d) and a web "
-            "no wider than its flanges (tw <= bf)", decl.name.text));
+        r.diagnostics.error(decl.name.where,
+                            fmt::format("section '{}': an I-shape needs two flanges thinner than "
+                                        "half its depth (2 tf < d) and a web "
+                                        "no wider than its flanges (tw <= bf)",
+                                        decl.name.text));
         return std::nullopt;
     }
     // Doubly-symmetric I-shape of plates, fillets ignored: the full d x bf
@@ -314,12 +360,15 @@ void resolve_sections(Resolver& r, const Collected& c) {
     for (const syntax::SectionDecl* decl : c.sections) {
         auto material = r.lookup<MaterialId>(r.materials, decl->material);
         auto props = section_properties(r, *decl);
-        if (!r.sections.add(decl->name, r.diagnostics)) continue;
-        Section s{decl->name.text, material.value_or(MaterialId{}), Section::Shape::given, 0.0, 0.0, decl->name.where};
-        s.shape = decl->shape == syntax::SectionDecl::Shape::given     ? Section::Shape::given
+        if (!r.sections.add(decl->name, r.diagnostics))
+            continue;
+        Section s{decl->name.text, material.value_or(MaterialId{}), Section::Shape::given, 0.0, 0.0,
+                  decl->name.where};
+        s.shape = decl->shape == syntax::SectionDecl::Shape::given       ? Section::Shape::given
                   : decl->shape == syntax::SectionDecl::Shape::rectangle ? Section::Shape::rectangle
-                                                                        : Section::Shape::ishape;
-        if (props) std::tie(s.area, s.inertia) = *props;
+                                                                         : Section::Shape::ishape;
+        if (props)
+            std::tie(s.area, s.inertia) = *props;
         r.model.sections.push_back(std::move(s));
     }
 }
@@ -333,13 +382,15 @@ using namespace resolve_detail;
 void resolve_hinges(Resolver& r, const syntax::MemberDecl& decl, Member& m) {
     for (const syntax::Name& h : decl.hinges) {
         auto node = r.lookup<NodeId>(r.nodes, h);
-        if (!node) continue;
+        if (!node)
+            continue;
         if (*node == m.start) {
             m.hinge_start = true;
         } else if (*node == m.end) {
             m.hinge_end = true;
         } else {
-            r.diagnostics.error(h.where, fmt::format("node '{}' is not an end of member '{}'", h.text, m.name));
+            r.diagnostics.error(
+                h.where, fmt::format("node '{}' is not an end of member '{}'", h.text, m.name));
         }
     }
 }
@@ -348,13 +399,15 @@ bool check_member_length(Resolver& r, const syntax::MemberDecl& decl, const Memb
     const Node& a = r.model.nodes[at(m.start)];
     const Node& b = r.model.nodes[at(m.end)];
     if (m.start == m.end) {
-        r.diagnostics.error(decl.end.where, fmt::format("member '{}' starts and ends at node '{}'", m.name, a.name));
+        r.diagnostics.error(decl.end.where, fmt::format("member '{}' starts and ends at node '{}'",
+                                                        m.name, a.name));
         return false;
     }
     if (std::hypot(b.x - a.x, b.y - a.y) < kMinMemberLength) {
-        r.diagnostics.error(decl.name.where,
-                            fmt::format("member '{}' has zero length: nodes '{}' and '{}' are at the same place",
-                                        m.name, a.name, b.name));
+        r.diagnostics.error(
+            decl.name.where,
+            fmt::format("member '{}' has zero length: nodes '{}' and '{}' are at the same place",
+                        m.name, a.name, b.name));
         return false;
     }
     return true;
@@ -365,9 +418,15 @@ void resolve_members(Resolver& r, const Collected& c) {
         auto start = r.lookup<NodeId>(r.nodes, decl->start);
         auto end = r.lookup<NodeId>(r.nodes, decl->end);
         auto section = r.lookup<SectionId>(r.sections, decl->section);
-        if (!r.members.add(decl->name, r.diagnostics)) continue;
-        Member m{decl->name.text, start.value_or(NodeId{}), end.value_or(NodeId{}), section.value_or(SectionId{}),
-                 false, false, decl->name.where};
+        if (!r.members.add(decl->name, r.diagnostics))
+            continue;
+        Member m{decl->name.text,
+                 start.value_or(NodeId{}),
+                 end.value_or(NodeId{}),
+                 section.value_or(SectionId{}),
+                 false,
+                 false,
+                 decl->name.where};
         bool valid = start && end && section;
         if (start && end) {
             r.node_used[at(*start)] = r.node_used[at(*end)] = 1;
@@ -400,7 +459,8 @@ std::array<Restraint, 3> restraints_of(syntax::SupportDecl::Kind kind, syntax::A
     return {fixed, fixed, fixed};
 }
 
-void resolve_springs(Resolver& r, const syntax::SupportDecl& decl, std::array<Restraint, 3>& restraint) {
+void resolve_springs(Resolver& r, const syntax::SupportDecl& decl,
+                     std::array<Restraint, 3>& restraint) {
     if (decl.kind != syntax::SupportDecl::Kind::spring) {
         if (!decl.springs.empty()) {
             r.diagnostics.error(decl.springs[0].direction.where,
@@ -414,9 +474,12 @@ void resolve_springs(Resolver& r, const syntax::SupportDecl& decl, std::array<Re
     }
     std::array<bool, 3> given{};
     for (const auto& spring : decl.springs) {
-        std::size_t dof = spring.direction.text == "x" ? dof_x : spring.direction.text == "y" ? dof_y : dof_rotation;
+        std::size_t dof = spring.direction.text == "x"   ? dof_x
+                          : spring.direction.text == "y" ? dof_y
+                                                         : dof_rotation;
         if (given[dof]) {
-            r.diagnostics.error(spring.direction.where, fmt::format("the {} spring is given twice", spring.direction.text));
+            r.diagnostics.error(spring.direction.where,
+                                fmt::format("the {} spring is given twice", spring.direction.text));
             continue;
         }
         given[dof] = true;
@@ -424,9 +487,11 @@ void resolve_springs(Resolver& r, const syntax::SupportDecl& decl, std::array<Re
             restraint[dof] = Restraint{Restraint::Kind::fixed, 0.0};
             continue;
         }
-        auto k = r.value(*spring.stiffness, dof == dof_rotation ? expect::rotational_stiffness : expect::stiffness);
+        auto k = r.value(*spring.stiffness,
+                         dof == dof_rotation ? expect::rotational_stiffness : expect::stiffness);
         if (k && !(*k > 0.0)) {
-            r.diagnostics.error(spring.stiffness->where, "a spring stiffness must be greater than zero");
+            r.diagnostics.error(spring.stiffness->where,
+                                "a spring stiffness must be greater than zero");
         } else if (k && r.within(*spring.stiffness, *k, kMaxMagnitude, "stiffness")) {
             restraint[dof] = Restraint{Restraint::Kind::spring, *k};
         }
@@ -440,7 +505,8 @@ Support::Kind support_kind(const syntax::SupportDecl& decl) {
         case syntax::SupportDecl::Kind::pinned:
             return Support::Kind::pinned;
         case syntax::SupportDecl::Kind::roller:
-            return decl.roller_free == syntax::Axis::x ? Support::Kind::roller_free_x : Support::Kind::roller_free_y;
+            return decl.roller_free == syntax::Axis::x ? Support::Kind::roller_free_x
+                                                       : Support::Kind::roller_free_y;
         case syntax::SupportDecl::Kind::spring:
             return Support::Kind::spring;
     }
@@ -454,11 +520,14 @@ void resolve_supports(Resolver& r, const Collected& c) {
         resolve_springs(r, *decl, restraint);
         for (const syntax::Name& name : decl->nodes) {
             auto node = r.lookup<NodeId>(r.nodes, name);
-            if (!node) continue;
+            if (!node)
+                continue;
             std::size_t& existing = support_of[at(*node)];
             if (existing != SIZE_MAX) {
-                Diagnostic& d = r.diagnostics.error(name.where, fmt::format("node '{}' already has a support", name.text));
-                d.notes.push_back(Diagnostic{Severity::note, r.model.supports[existing].where, "that support is here", {}});
+                Diagnostic& d = r.diagnostics.error(
+                    name.where, fmt::format("node '{}' already has a support", name.text));
+                d.notes.push_back(Diagnostic{
+                    Severity::note, r.model.supports[existing].where, "that support is here", {}});
                 continue;
             }
             existing = r.model.supports.size();
@@ -468,16 +537,19 @@ void resolve_supports(Resolver& r, const Collected& c) {
 }
 
 void check_whole_model(Resolver& r, const Collected& c) {
-    if (r.diagnostics.has_errors()) return;  // the checks below would only echo earlier errors
+    if (r.diagnostics.has_errors())
+        return;  // the checks below would only echo earlier errors
     if (r.model.members.empty()) {
         r.diagnostics.error(c.file_start, "the model has no members");
     } else if (r.model.supports.empty()) {
-        r.diagnostics.error(c.file_start, "the model has no supports, so nothing holds the structure up");
+        r.diagnostics.error(c.file_start,
+                            "the model has no supports, so nothing holds the structure up");
     }
     for (std::size_t i = 0; i < r.model.nodes.size(); ++i) {
         if (!r.node_used[i]) {
-            r.diagnostics.error(r.model.nodes[i].where,
-                                fmt::format("node '{}' is not connected to any member", r.model.nodes[i].name));
+            r.diagnostics.error(
+                r.model.nodes[i].where,
+                fmt::format("node '{}' is not connected to any member", r.model.nodes[i].name));
         }
     }
 }

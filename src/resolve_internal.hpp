@@ -16,7 +16,7 @@ namespace firn::resolve_detail {
 
 /// Names of one kind of entity, with where each was defined.
 class NameTable {
-public:
+  public:
     explicit NameTable(const char* what) : what_(what) {}
     /// Adds `name`; reports a duplicate (with a note at the first definition)
     /// and returns false if the name is taken.
@@ -26,7 +26,7 @@ public:
     std::optional<std::size_t> find_quietly(const std::string& name) const;
     std::size_t size() const { return names_.size(); }
 
-private:
+  private:
     const char* what_;
     std::unordered_map<std::string, std::size_t> index_;
     std::vector<std::string> names_;
@@ -61,7 +61,8 @@ struct Resolver {
     template <typename Id>
     std::optional<Id> lookup(NameTable& table, const syntax::Name& name) {
         auto i = table.find(name, diagnostics);
-        if (!i) return std::nullopt;
+        if (!i)
+            return std::nullopt;
         return make_id<Id>(*i);
     }
 };

@@ -1,8 +1,8 @@
 // resolve_loads: load cases and their loads, checked against the members
 // and nodes they act on.
+#include <fmt/format.h>
 #include <algorithm>
 #include <cmath>
-#include <fmt/format.h>
 
 #include "resolve_internal.hpp"
 
@@ -36,7 +36,7 @@ struct Span {
 };
 
 class LoadResolver {
-public:
+  public:
     LoadResolver(Resolver& r, LoadCase& lc, const LoadDecl& decl, SourceRange where)
         : r_(r), lc_(lc), decl_(decl), where_(where) {}
 
@@ -58,7 +58,7 @@ public:
         }
     }
 
-private:
+  private:
     Resolver& r_;
     LoadCase& lc_;
     const LoadDecl& decl_;
@@ -66,7 +66,8 @@ private:
 
     std::optional<double> checked(const syntax::Expr& e, const Expected& expected) {
         auto v = r_.value(e, expected);
-        if (v && !r_.within(e, *v, kMaxMagnitude, "load")) v.reset();
+        if (v && !r_.within(e, *v, kMaxMagnitude, "load"))
+            v.reset();
         return v;
     }
 
@@ -102,8 +103,9 @@ private:
             case D::down:
                 return std::array{0.0, -1.0};
             default:
-                r_.diagnostics.error(decl_.direction_where,
-                                     "a load at a node takes a global direction (x, y, up or down)");
+                r_.diagnostics.error(
+                    decl_.direction_where,
+                    "a load at a node takes a global direction (x, y, up or down)");
                 return std::nullopt;
         }
     }
@@ -120,18 +122,23 @@ private:
     bool position_fits(const syntax::Expr& e, double pos, MemberId m) {
         double length = measured_length(m);
         const double slack = 1e-9 * (1.0 + length);
-        if (pos >= -slack && pos <= length + slack) return true;
-        r_.diagnostics.error(e.where, fmt::format("{} lies outside member '{}', which is {}{}",
-                                                  show_length(r_.model, pos), r_.model.members[at(m)].name,
-                                                  show_length(r_.model, length),
-                                                  decl_.projected ? " long in plan" : " long"));
+        if (pos >= -slack && pos <= length + slack)
+            return true;
+        r_.diagnostics.error(
+            e.where,
+            fmt::format("{} lies outside member '{}', which is {}{}", show_length(r_.model, pos),
+                        r_.model.members[at(m)].name, show_length(r_.model, length),
+                        decl_.projected ? " long in plan" : " long"));
         return false;
     }
 
     std::optional<Span> span_on(MemberId m, std::optional<double> from, std::optional<double> to) {
-        if (!decl_.from) return Span{0.0, measured_length(m)};
-        if (!from || !to) return std::nullopt;
-        if (!position_fits(*decl_.from, *from, m) || !position_fits(*decl_.to, *to, m)) return std::nullopt;
+        if (!decl_.from)
+            return Span{0.0, measured_length(m)};
+        if (!from || !to)
+            return std::nullopt;
+        if (!position_fits(*decl_.from, *from, m) || !position_fits(*decl_.to, *to, m))
+            return std::nullopt;
         if (!(*from < *to)) {
             r_.diagnostics.error(decl_.to->where, "a loaded part must end after it starts");
             return std::nullopt;
@@ -146,7 +153,8 @@ private:
         std::vector<MemberId> ids;
         for (const syntax::Name& name : decl_.targets) {
             auto id = r_.lookup<MemberId>(r_.members, name);
-            if (id && r_.member_valid[at(*id)]) ids.push_back(*id);
+            if (id && r_.member_valid[at(*id)])
+                ids.push_back(*id);
         }
         return ids;
     }
@@ -154,17 +162,21 @@ private:
     std::vector<NodeId> nodes() {
         std::vector<NodeId> ids;
         for (const syntax::Name& name : decl_.targets) {
-            if (auto id = r_.lookup<NodeId>(r_.nodes, name)) ids.push_back(*id);
+            if (auto id = r_.lookup<NodeId>(r_.nodes, name))
+                ids.push_back(*id);
         }
         return ids;
     }
 
     bool projected_allowed() {
         using D = LoadDecl::Direction;
-        bool vertical = decl_.direction == D::down || decl_.direction == D::up || decl_.direction == D::y;
-        if (!decl_.projected || vertical) return true;
-        r_.diagnostics.error(decl_.direction_where,
-                             "'projected' is for vertical loads (down, up or y) given per horizontal length");
+        bool vertical =
+            decl_.direction == D::down || decl_.direction == D::up || decl_.direction == D::y;
+        if (!decl_.projected || vertical)
+            return true;
+        r_.diagnostics.error(
+            decl_.direction_where,
+            "'projected' is for vertical loads (down, up or y) given per horizontal length");
         return false;
     }
 
@@ -180,9 +192,10 @@ private:
         bool ok = projected_allowed() && w_start && w_end && direction;
         for (MemberId m : members()) {
             auto span = span_on(m, from, to);
-            if (!ok || !span) continue;
-            lc_.distributed.push_back(DistributedLoad{m, *direction, decl_.projected, span->start, span->end,
-                                                      *w_start, *w_end, where_});
+            if (!ok || !span)
+                continue;
+            lc_.distributed.push_back(DistributedLoad{m, *direction, decl_.projected, span->start,
+                                                      span->end, *w_start, *w_end, where_});
         }
     }
 
@@ -191,14 +204,17 @@ private:
         if (!decl_.on_members) {
             auto d = node_direction();
             for (NodeId n : nodes()) {
-                if (force && d) lc_.nodal.push_back(NodalLoad{n, (*d)[0] * *force, (*d)[1] * *force, 0.0, where_});
+                if (force && d)
+                    lc_.nodal.push_back(
+                        NodalLoad{n, (*d)[0] * *force, (*d)[1] * *force, 0.0, where_});
             }
             return;
         }
         auto direction = member_direction();
         auto pos = r_.value(*decl_.at, expect::length);
         for (MemberId m : members()) {
-            if (!force || !direction || !pos || !position_fits(*decl_.at, *pos, m)) continue;
+            if (!force || !direction || !pos || !position_fits(*decl_.at, *pos, m))
+                continue;
             double p = std::clamp(*pos, 0.0, measured_length(m));
             lc_.points.push_back(PointLoad{m, *direction, p, *force, where_});
         }
@@ -206,17 +222,21 @@ private:
 
     void moment() {
         auto value = checked(*decl_.value, expect::moment);
-        if (value && decl_.clockwise) *value = -*value;
+        if (value && decl_.clockwise)
+            *value = -*value;
         if (!decl_.on_members) {
             for (NodeId n : nodes()) {
-                if (value) lc_.nodal.push_back(NodalLoad{n, 0.0, 0.0, *value, where_});
+                if (value)
+                    lc_.nodal.push_back(NodalLoad{n, 0.0, 0.0, *value, where_});
             }
             return;
         }
         auto pos = r_.value(*decl_.at, expect::length);
         for (MemberId m : members()) {
-            if (!value || !pos || !position_fits(*decl_.at, *pos, m)) continue;
-            lc_.moments.push_back(PointMoment{m, std::clamp(*pos, 0.0, measured_length(m)), *value, where_});
+            if (!value || !pos || !position_fits(*decl_.at, *pos, m))
+                continue;
+            lc_.moments.push_back(
+                PointMoment{m, std::clamp(*pos, 0.0, measured_length(m)), *value, where_});
         }
     }
 
@@ -229,18 +249,23 @@ private:
         std::vector<char> reported(r_.model.materials.size(), 0);
         auto check = [&](MemberId id) {
             const Section& s = r_.model.sections[at(r_.model.members[at(id)].section)];
-            if (at(s.material) >= r_.model.materials.size()) return;
+            if (at(s.material) >= r_.model.materials.size())
+                return;
             const Material& mat = r_.model.materials[at(s.material)];
-            if (mat.unit_weight > 0.0 || reported[at(s.material)]) return;
+            if (mat.unit_weight > 0.0 || reported[at(s.material)])
+                return;
             reported[at(s.material)] = 1;
-            Diagnostic& d = r_.diagnostics.error(where_, fmt::format(
-                "self weight needs the density of material '{}'", mat.name));
-            d.notes.push_back(Diagnostic{Severity::note, mat.where, "give it here, as in density = 490 pcf", {}});
+            Diagnostic& d = r_.diagnostics.error(
+                where_, fmt::format("self weight needs the density of material '{}'", mat.name));
+            d.notes.push_back(
+                Diagnostic{Severity::note, mat.where, "give it here, as in density = 490 pcf", {}});
         };
         if (sw.all_members) {
-            for (std::size_t i = 0; i < r_.model.members.size(); ++i) check(make_id<MemberId>(i));
+            for (std::size_t i = 0; i < r_.model.members.size(); ++i)
+                check(make_id<MemberId>(i));
         } else {
-            for (MemberId id : sw.members) check(id);
+            for (MemberId id : sw.members)
+                check(id);
         }
         lc_.self_weight.push_back(std::move(sw));
     }
@@ -257,9 +282,11 @@ void resolve_cases(Resolver& r, const std::vector<const syntax::CaseDecl*>& case
         for (std::size_t i = 0; i < decl->loads.size(); ++i) {
             LoadResolver(r, lc, decl->loads[i], decl->load_where[i]).run();
         }
-        if (!r.cases.add(decl->name, r.diagnostics)) continue;
+        if (!r.cases.add(decl->name, r.diagnostics))
+            continue;
         if (decl->loads.empty()) {
-            r.diagnostics.warning(decl->name.where, fmt::format("load case '{}' has no loads", lc.name));
+            r.diagnostics.warning(decl->name.where,
+                                  fmt::format("load case '{}' has no loads", lc.name));
         }
         r.model.cases.push_back(std::move(lc));
     }

@@ -218,7 +218,8 @@ MemberSummary summarize(const Scratch& functions) {
     s.start = {first.axial.c[0], first.shear.c[0], first.moment.c[0]};
     s.end = {last.n, last.v, last.m};
     std::array<double, 4> tie = end_scales(functions);
-    for (double& t : tie) t *= kTie;
+    for (double& t : tie)
+        t *= kTie;
     for (std::size_t i = 0; i < functions.pieces.size(); ++i) {
         const FunctionPiece& p = functions.pieces[i];
         const PieceEnd& end = functions.ends[i];

@@ -25,7 +25,8 @@ struct Polynomial {
     std::array<double, 6> c{};
     double operator()(double t) const {
         double v = 0.0;
-        for (std::size_t i = c.size(); i-- > 0;) v = v * t + c[i];
+        for (std::size_t i = c.size(); i-- > 0;)
+            v = v * t + c[i];
         return v;
     }
 };
@@ -51,8 +52,8 @@ struct Extreme {
 
 /// Internal actions at a member's ends and its extremes over its length.
 struct MemberSummary {
-    std::array<double, 3> start{};  ///< N, V, M just inside the start end
-    std::array<double, 3> end{};    ///< N, V, M just inside the end
+    std::array<double, 3> start{};   ///< N, V, M just inside the start end
+    std::array<double, 3> end{};     ///< N, V, M just inside the end
     Extreme moment_max, moment_min;  ///< largest positive and negative M (0 if none)
     Extreme shear_max;               ///< largest |V|, sign kept
     Extreme axial_max, axial_min;    ///< largest tension and compression (0 if none)
@@ -61,15 +62,15 @@ struct MemberSummary {
 
 /// Sums over the whole structure, for the equilibrium check.
 struct Equilibrium {
-    std::array<double, 3> applied{};   ///< Fx, Fy, M about the origin of all loads
-    std::array<double, 3> reactions{}; ///< the same for all support reactions
-    double relative_residual = 0.0;    ///< |applied + reactions| / load scale
+    std::array<double, 3> applied{};    ///< Fx, Fy, M about the origin of all loads
+    std::array<double, 3> reactions{};  ///< the same for all support reactions
+    double relative_residual = 0.0;     ///< |applied + reactions| / load scale
 };
 
 struct CaseResults {
     std::vector<std::array<double, 3>> displacements;  ///< per node, global dx, dy, rotation
-    std::vector<std::array<double, 3>> reactions;  ///< per support, global Rx, Ry, M
-    std::vector<MemberSummary> members;             ///< per member
+    std::vector<std::array<double, 3>> reactions;      ///< per support, global Rx, Ry, M
+    std::vector<MemberSummary> members;                ///< per member
     Equilibrium equilibrium;
 };
 

@@ -12,13 +12,15 @@ using firn::testing::messages_for;
 
 TEST_CASE("an empty file and a file of comments are models without members") {
     CHECK(first_message("") == "input:1:1: error: the model has no members");
-    CHECK(first_message("# only a comment\n\n   # and another") == "input:1:1: error: the model has no members");
+    CHECK(first_message("# only a comment\n\n   # and another") ==
+          "input:1:1: error: the model has no members");
 }
 
 TEST_CASE("Windows line endings and a UTF-8 byte order mark are accepted") {
     std::string text = "\xEF\xBB\xBF";
     for (char c : std::string(kBaseModel)) {
-        if (c == '\n') text += '\r';
+        if (c == '\n')
+            text += '\r';
         text += c;
     }
     Analysis a = analyse_text("input", text);
@@ -36,7 +38,8 @@ TEST_CASE("NaN and infinity are not numbers the language reads") {
 TEST_CASE("deep nesting is refused with a located error, not a stack overflow") {
     std::string deep(100000, '(');
     std::string text = std::string(kBaseModel) + "node N3 at x = " + deep + "1 ft, y = 0 ft\n";
-    CHECK(first_message(text) == "input:9:116: error: expressions nest too deeply (more than 100 levels)");
+    CHECK(first_message(text) ==
+          "input:9:116: error: expressions nest too deeply (more than 100 levels)");
     std::string minus(100000, '-');
     CHECK(first_message(std::string(kBaseModel) + "node N3 at x = " + minus + "1 ft, y = 0 ft\n") ==
           "input:9:116: error: expressions nest too deeply (more than 100 levels)");
@@ -44,7 +47,8 @@ TEST_CASE("deep nesting is refused with a located error, not a stack overflow") 
 
 TEST_CASE("a very long line parses, and an error on it is shown in a window") {
     std::string list = "support fixed at N1";
-    for (int i = 0; i < 20000; ++i) list += ", N1";
+    for (int i = 0; i < 20000; ++i)
+        list += ", N1";
     std::string all = messages_for(std::string(kBaseModel) + list + "\n");
     CHECK(all.find("input:9:18: error: node 'N1' already has a support") == 0);
     CHECK(all.find("firn: 19901 more diagnostics not shown") != std::string::npos);
@@ -53,7 +57,8 @@ TEST_CASE("a very long line parses, and an error on it is shown in a window") {
 
 TEST_CASE("binary garbage gives errors, capped, and never a crash") {
     std::string garbage;
-    for (int i = 0; i < 50000; ++i) garbage += static_cast<char>((i * 7919) % 256);
+    for (int i = 0; i < 50000; ++i)
+        garbage += static_cast<char>((i * 7919) % 256);
     std::string all = messages_for(garbage);
     CHECK(all.find("error:") != std::string::npos);
     CHECK(all.find("too many syntax errors") != std::string::npos);
@@ -61,17 +66,23 @@ TEST_CASE("binary garbage gives errors, capped, and never a crash") {
 
 TEST_CASE("a model with many independent errors stops after 50 syntax errors") {
     std::string text;
-    for (int i = 0; i < 200; ++i) text += "nod N at x = 0 ft\n";
+    for (int i = 0; i < 200; ++i)
+        text += "nod N at x = 0 ft\n";
     std::string all = messages_for(text);
     std::size_t count = 0;
-    for (std::size_t at = 0; (at = all.find(": error: expected a statement", at)) != std::string::npos; ++at) ++count;
+    for (std::size_t at = 0;
+         (at = all.find(": error: expected a statement", at)) != std::string::npos; ++at)
+        ++count;
     CHECK(count == 50);
-    CHECK(all.find("firn: error: input: too many syntax errors; the rest of the file was not read") == 0);
+    CHECK(
+        all.find("firn: error: input: too many syntax errors; the rest of the file was not read") ==
+        0);
 }
 
 TEST_CASE("huge and tiny numbers stay finite or are refused") {
-    CHECK(first_message(std::string(kBaseModel) + "node N3 at x = 1e-400 ft, y = 5 ft\nmember B2 from N2 to N3 section beam\n") ==
-          "");
+    CHECK(first_message(
+              std::string(kBaseModel) +
+              "node N3 at x = 1e-400 ft, y = 5 ft\nmember B2 from N2 to N3 section beam\n") == "");
     CHECK(first_message(std::string(kBaseModel) + "material m E = 1e30 ksi\n") ==
           "input:9:16: error: this value is out of range (beyond 1e+15 in SI units)");
 }

@@ -31,11 +31,11 @@ struct UnitFactor {
 struct Expr {
     enum class Kind { number, negate, add, subtract, multiply, divide, group };
     Kind kind = Kind::number;
-    std::string literal;            ///< the number as written (kind == number)
-    double value = 0.0;             ///< the literal's value (kind == number)
-    std::vector<UnitFactor> unit;   ///< the unit written after the number, if any
-    std::optional<Name> bad_unit;   ///< a word after the number that is no unit
-    std::unique_ptr<Expr> lhs, rhs; ///< operands (rhs only for negate and group)
+    std::string literal;             ///< the number as written (kind == number)
+    double value = 0.0;              ///< the literal's value (kind == number)
+    std::vector<UnitFactor> unit;    ///< the unit written after the number, if any
+    std::optional<Name> bad_unit;    ///< a word after the number that is no unit
+    std::unique_ptr<Expr> lhs, rhs;  ///< operands (rhs only for negate and group)
     SourceRange where;
 };
 
@@ -117,7 +117,7 @@ struct SupportDecl {
     Axis roller_free = Axis::x;
     std::vector<Name> nodes;
     struct Spring {
-        Name direction;  ///< x, y or rotation
+        Name direction;                 ///< x, y or rotation
         std::optional<Expr> stiffness;  ///< none when written `= fixed`
     };
     std::vector<Spring> springs;
@@ -128,13 +128,13 @@ struct LoadDecl {
     enum class Form { uniform, linear, point, moment, self_weight };
     enum class Direction { none, x, y, up, down, axial, transverse };
     Form form = Form::uniform;
-    std::optional<Expr> value;     ///< intensity, force or moment (start value for linear)
-    std::optional<Expr> end_value; ///< linear: the value at the end of the loaded part
+    std::optional<Expr> value;      ///< intensity, force or moment (start value for linear)
+    std::optional<Expr> end_value;  ///< linear: the value at the end of the loaded part
     Direction direction = Direction::none;
     SourceRange direction_where;
     bool projected = false;
     bool clockwise = false;
-    bool on_members = true;        ///< `on MEMBERS` (true) or `at NODES` (false)
+    bool on_members = true;  ///< `on MEMBERS` (true) or `at NODES` (false)
     std::vector<Name> targets;
     std::optional<Expr> from, to;  ///< part of a member
     std::optional<Expr> at;        ///< point and moment on a member

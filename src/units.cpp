@@ -1,9 +1,9 @@
 // units: the unit table (exact conversion factors) and display unit choices.
 #include "units.hpp"
 
+#include <fmt/format.h>
 #include <array>
 #include <cmath>
-#include <fmt/format.h>
 #include <numbers>
 
 namespace firn {
@@ -40,12 +40,15 @@ std::string describe(Dimension d) {
         {dim::unit_weight, "a unit weight"},
     }};
     for (const Named& n : names) {
-        if (n.dimension == d) return n.phrase;
+        if (n.dimension == d)
+            return n.phrase;
     }
     // "force^2*length" for positive exponents, the same for negative ones below the bar.
     auto side = [](int force, int length) {
         auto part = [](const char* base, int e) {
-            return e <= 0 ? std::string() : e == 1 ? std::string(base) : fmt::format("{}^{}", base, e);
+            return e <= 0   ? std::string()
+                   : e == 1 ? std::string(base)
+                            : fmt::format("{}^{}", base, e);
         };
         return fmt::format("{}{}{}", part("force", force), force > 0 && length > 0 ? "*" : "",
                            part("length", length));
@@ -101,7 +104,8 @@ double size_of(std::string_view compound) {
     int sign = 1;
     std::size_t start = 0;
     for (std::size_t i = 0; i <= compound.size(); ++i) {
-        if (i < compound.size() && compound[i] != '*' && compound[i] != '/') continue;
+        if (i < compound.size() && compound[i] != '*' && compound[i] != '/')
+            continue;
         std::string_view atom = compound.substr(start, i - start);
         int exponent = 1;
         if (auto caret = atom.find('^'); caret != std::string_view::npos) {
@@ -110,10 +114,12 @@ double size_of(std::string_view compound) {
         }
         double factor = atom == "rad" ? 1.0 : 0.0;
         for (const Unit& u : kUnits) {
-            if (u.name == atom) factor = u.to_si;
+            if (u.name == atom)
+                factor = u.to_si;
         }
         size *= std::pow(factor, sign * exponent);
-        if (i < compound.size()) sign = compound[i] == '/' ? -1 : 1;
+        if (i < compound.size())
+            sign = compound[i] == '/' ? -1 : 1;
         start = i + 1;
     }
     return size;
@@ -127,14 +133,18 @@ DisplayUnit unit(std::string name, int decimals) {
 int decimals_for_moment(std::string_view force, std::string_view length) {
     bool big_force = force == "kip" || force == "kN";
     bool big_length = length == "ft" || length == "m";
-    if (big_force) return big_length ? 3 : 1;
+    if (big_force)
+        return big_length ? 3 : 1;
     return big_length ? 1 : 0;
 }
 
 int decimals_for_displacement(std::string_view name) {
-    if (name == "in") return 4;
-    if (name == "mm") return 2;
-    if (name == "cm") return 3;
+    if (name == "in")
+        return 4;
+    if (name == "mm")
+        return 2;
+    if (name == "cm")
+        return 3;
     return 5;  // ft, m
 }
 
@@ -142,13 +152,18 @@ int decimals_for_displacement(std::string_view name) {
 
 bool make_display_units(std::string_view force, std::string_view length,
                         std::string_view displacement, DisplayUnits& out) {
-    int force_decimals = force == "kip" || force == "kN" ? 3 : (force == "lb" || force == "N" ? 1 : -1);
-    int length_decimals = length == "mm" ? 1 : (length == "ft" || length == "in" || length == "m" ? 3 : -1);
-    if (force_decimals < 0 || length_decimals < 0) return false;
+    int force_decimals =
+        force == "kip" || force == "kN" ? 3 : (force == "lb" || force == "N" ? 1 : -1);
+    int length_decimals =
+        length == "mm" ? 1 : (length == "ft" || length == "in" || length == "m" ? 3 : -1);
+    if (force_decimals < 0 || length_decimals < 0)
+        return false;
     bool customary = length == "ft" || length == "in";
-    if (displacement.empty()) displacement = customary ? "in" : "mm";
+    if (displacement.empty())
+        displacement = customary ? "in" : "mm";
     const Unit* d = find_unit(displacement);
-    if (d == nullptr || !(d->dimension == dim::length)) return false;
+    if (d == nullptr || !(d->dimension == dim::length))
+        return false;
     std::string f(force), l(length);
     out.force = unit(f, force_decimals);
     out.length = unit(l, length_decimals);
@@ -167,14 +182,16 @@ bool make_display_units(std::string_view force, std::string_view length,
 
 const Unit* find_unit(std::string_view name) {
     for (const Unit& u : kUnits) {
-        if (u.name == name) return &u;
+        if (u.name == name)
+            return &u;
     }
     return nullptr;
 }
 
 std::vector<std::string> unit_names() {
     std::vector<std::string> names;
-    for (const Unit& u : kUnits) names.emplace_back(u.name);
+    for (const Unit& u : kUnits)
+        names.emplace_back(u.name);
     return names;
 }
 

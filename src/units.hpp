@@ -60,8 +60,8 @@ struct DisplayUnit {
 
 /// The display units of a report, one per kind of quantity it prints.
 struct DisplayUnits {
-    DisplayUnit force, length, moment, displacement, rotation, force_per_length, area,
-        inertia, modulus, unit_weight, stiffness, rotational_stiffness;
+    DisplayUnit force, length, moment, displacement, rotation, force_per_length, area, inertia,
+        modulus, unit_weight, stiffness, rotational_stiffness;
 };
 
 /// Display units that follow from a force and a length unit, as an engineer would

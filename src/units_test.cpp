@@ -12,8 +12,8 @@ TEST_CASE("unit sizes are exact conversions") {
     CHECK(find_unit("in")->to_si == 0.0254);
     CHECK(find_unit("lb")->to_si == Approx(4.4482216152605).epsilon(1e-15));
     CHECK(find_unit("kip")->to_si == Approx(4448.2216152605).epsilon(1e-15));
-    CHECK(find_unit("psf")->to_si == Approx(47.88025898033584).epsilon(1e-14));   // lb/ft^2
-    CHECK(find_unit("psi")->to_si == Approx(6894.757293168361).epsilon(1e-14));   // lb/in^2
+    CHECK(find_unit("psf")->to_si == Approx(47.88025898033584).epsilon(1e-14));  // lb/ft^2
+    CHECK(find_unit("psi")->to_si == Approx(6894.757293168361).epsilon(1e-14));  // lb/in^2
     CHECK(find_unit("ksi")->to_si == Approx(6894757.293168361).epsilon(1e-14));
     CHECK(find_unit("pcf")->to_si == Approx(157.08746384624618).epsilon(1e-14));  // lb/ft^3
     CHECK(find_unit("klf")->to_si == Approx(14593.902937206).epsilon(1e-12));     // kip/ft
