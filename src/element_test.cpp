@@ -111,7 +111,7 @@ TEST_CASE("condensed loads of a hinged member are the propped cantilever reactio
     ElementProperties e = beam(true, false);
     ElementVector f = condensed_loads(e, consistent_loads(e, udl, {}));
     // Propped cantilever, pinned at the start: 3wL/8 there, 5wL/8 and wL^2/8 at
-    // the fixed end (textbook; shared/reference §12 propped cantilever [C: S21]).
+    // the fixed end (textbook; tests/SOURCES.md propped cantilever [C: S21]).
     CHECK(f[1] == same(-3 * w * L / 8, w * L));
     CHECK(f[2] == 0.0);
     CHECK(f[4] == same(-5 * w * L / 8, w * L));

@@ -1,5 +1,5 @@
 // Whole structures against closed forms: continuous beams, a beam with
-// overhangs, and single-bay portals (shared/reference §12 and statics).
+// overhangs, and single-bay portals (tests/SOURCES.md and statics).
 #include <fmt/format.h>
 #include <catch2/catch.hpp>
 #include <cmath>
@@ -41,7 +41,7 @@ TEST_CASE("two equal spans under a uniform load", "[frames]") {
     auto a = testing::analyse(beam.b.model);
     testing::require_solved(a);
     const MemberSummary& first = a.member(beam.c, beam.spans[0]);
-    // shared/reference §12 two spans [C: S20]: R = 0.375wL, 1.25wL, 0.375wL;
+    // tests/SOURCES.md two spans [C: S20]: R = 0.375wL, 1.25wL, 0.375wL;
     // M support = -0.125wL^2; M+ = 0.0703wL^2 (9/128, as the propped cantilever)
     // at 0.375L from the end; deflection 0.005416 wL^4/EI at 0.4215L from the end
     // (exactly (39 + 55 sqrt 33)/65536 at (1 + sqrt 33)/16 L).
@@ -64,7 +64,7 @@ TEST_CASE("three equal spans under a uniform load", "[frames]") {
     testing::require_solved(a);
     const MemberSummary& end_span = a.member(beam.c, beam.spans[0]);
     const MemberSummary& centre = a.member(beam.c, beam.spans[1]);
-    // shared/reference §12 three spans [C: S20, S21]: R = 0.40wL and 1.10wL;
+    // tests/SOURCES.md three spans [C: S20, S21]: R = 0.40wL and 1.10wL;
     // M interior support = -0.100wL^2; end span M+ = 0.080wL^2 at 0.40L; centre
     // span M+ = 0.025wL^2 at its middle.
     CHECK(a.reaction(beam.c, 0)[1] == exactly(0.40 * w * L));
@@ -114,7 +114,7 @@ TEST_CASE("simple span with two overhangs, loaded everywhere and on the span onl
 
 /// A single-bay portal A-B-C-D: columns AB and DC of height h (drawn upward),
 /// beam BC of span L, with axial areas so large that axial shortening is nil
-/// (A = 1e6 I/h^2, as shared/reference §12 asks for its closed forms).
+/// (A = 1e6 I/h^2, as tests/SOURCES.md asks for its closed forms).
 struct Portal {
     ModelBuilder b;
     NodeId na{}, nb{}, nc{}, nd{};
@@ -140,7 +140,7 @@ struct Portal {
 };
 
 /// The closed forms ignore axial shortening; with A = 1e6 I/h^2 the error is
-/// below 0.01% (shared/reference §12), so these checks allow 1e-4.
+/// below 0.01% (tests/SOURCES.md), so these checks allow 1e-4.
 Approx portal(double v) {
     return Approx(v).epsilon(1e-4);
 }
@@ -153,7 +153,7 @@ TEST_CASE("fixed-base portal under a beam load and an eave load", "[frames]") {
     p.b.nodal(lateral, p.nb, P, 0.0, 0.0);
     auto a = testing::analyse(p.b.model);
     testing::require_solved(a);
-    // shared/reference §12 fixed bases, UDL [C: S22 (moments)]: base wL^2/(12(k+2)),
+    // tests/SOURCES.md fixed bases, UDL [C: S22 (moments)]: base wL^2/(12(k+2)),
     // knee -wL^2/(6(k+2)), H = wL^2/(4h(k+2)) inward, beam mid wL^2(3k+2)/(24(k+2)),
     // V = wL/2. Signs: the left column's local y points to -x, so its base moment
     // is positive; the right column is the mirror image, with signs reversed.
@@ -195,7 +195,7 @@ TEST_CASE("pinned-base portal under a beam load and an eave load", "[frames]") {
     p.b.nodal(lateral, p.nb, P, 0.0, 0.0);
     auto a = testing::analyse(p.b.model);
     testing::require_solved(a);
-    // shared/reference §12 pinned bases, UDL [D]: knee -wL^2/(4(2k+3)), H = wL^2/(4h(2k+3)).
+    // tests/SOURCES.md pinned bases, UDL [D]: knee -wL^2/(4(2k+3)), H = wL^2/(4h(2k+3)).
     double knee = -w * L * L / (4 * (2 * k + 3));
     CHECK(a.member(gravity, p.beam).start[2] == portal(knee));
     CHECK(a.member(gravity, p.left).end[2] == portal(knee));

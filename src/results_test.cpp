@@ -1,5 +1,5 @@
 // Member results of single beams against closed forms: handbook beam
-// formulas, shared/reference §12 and statics. Member functions are checked at
+// formulas, tests/SOURCES.md and statics. Member functions are checked at
 // points and through their exact extremes.
 #include "results.hpp"
 
@@ -50,7 +50,7 @@ TEST_CASE("simply supported beam under a uniform load", "[results]") {
     auto a = testing::analyse(beam.b.model);
     testing::require_solved(a);
     const MemberSummary& s = a.member(beam.c, beam.m);
-    // shared/reference §12 simply supported: R = wL/2, M = wL^2/8, delta = 5wL^4/384EI at mid-span.
+    // tests/SOURCES.md simply supported: R = wL/2, M = wL^2/8, delta = 5wL^4/384EI at mid-span.
     CHECK(a.reaction(beam.c, 0)[1] == exactly(w * L / 2));
     CHECK(a.reaction(beam.c, 1)[1] == exactly(w * L / 2));
     CHECK(a.reaction(beam.c, 0)[0] == exactly(0.0, w * L));
@@ -76,7 +76,7 @@ TEST_CASE("fixed-fixed beam under a uniform load", "[results]") {
     auto a = testing::analyse(beam.b.model);
     testing::require_solved(a);
     const MemberSummary& s = a.member(beam.c, beam.m);
-    // shared/reference §12 fixed-fixed [C: S21]: -wL^2/12 at the ends, +wL^2/24
+    // tests/SOURCES.md fixed-fixed [C: S21]: -wL^2/12 at the ends, +wL^2/24
     // and wL^4/384EI at mid-span, inflection points 0.2113L from each end.
     CHECK(s.start[2] == exactly(-w * L * L / 12));
     CHECK(s.end[2] == exactly(-w * L * L / 12));
@@ -101,7 +101,7 @@ TEST_CASE("propped cantilever under a uniform load", "[results]") {
         auto a = testing::analyse(beam.b.model);
         testing::require_solved(a);
         const MemberSummary& s = a.member(beam.c, beam.m);
-        // shared/reference §12 propped cantilever [C: S21]: M_A = -wL^2/8, R_A = 5wL/8,
+        // tests/SOURCES.md propped cantilever [C: S21]: M_A = -wL^2/8, R_A = 5wL/8,
         // R_B = 3wL/8, M+ = 9wL^2/128 at 3L/8 from the pinned end, deflection
         // (39 + 55 sqrt 33)/65536 wL^4/EI at (1 + sqrt 33)/16 L = 0.4215L from it.
         CHECK(s.start[2] == exactly(-w * L * L / 8));
@@ -131,7 +131,7 @@ TEST_CASE("cantilever under a tip load and a uniform load", "[results]") {
     b.uniform(spread, m, LoadDirection::down, w);
     auto a = testing::analyse(b.model);
     testing::require_solved(a);
-    // shared/reference §12 cantilever: M = -PL, delta = PL^3/3EI, theta = PL^2/2EI;
+    // tests/SOURCES.md cantilever: M = -PL, delta = PL^3/3EI, theta = PL^2/2EI;
     // UDL: M = -wL^2/2, delta = wL^4/8EI, theta = wL^3/6EI (clockwise, so negative).
     CHECK(a.member(point, m).start[2] == exactly(-P * L));
     CHECK(a.displacement(point, tip, dof_y) == exactly(-P * L * L * L / (3 * EI)));
