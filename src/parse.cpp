@@ -386,10 +386,37 @@ struct action<g::model_begin> {
     }
 };
 
+/// The offset of the first byte that breaks UTF-8 in `text`, or npos.
+std::size_t invalid_utf8_at(std::string_view text) {
+    for (std::size_t i = 0; i < text.size();) {
+        auto c = static_cast<unsigned char>(text[i]);
+        std::size_t more = c < 0x80                 ? 0
+                           : c >= 0xC2 && c <= 0xDF ? 1
+                           : c >= 0xE0 && c <= 0xEF ? 2
+                           : c >= 0xF0 && c <= 0xF4 ? 3
+                                                    : text.size();
+        if (i + more >= text.size() && more > 0)
+            return i;
+        for (std::size_t k = 1; k <= more; ++k) {
+            if ((static_cast<unsigned char>(text[i + k]) & 0xC0) != 0x80)
+                return i;
+        }
+        i += more + 1;
+    }
+    return std::string_view::npos;
+}
+
 template <>
 struct action<g::title> {
     template <typename Input>
     static void apply(const Input& in, Builder& b) {
+        std::size_t bad = invalid_utf8_at(in.string_view());
+        if (bad != std::string_view::npos) {
+            // recover_from reads only the byte offset of the position.
+            std::size_t offset = static_cast<std::size_t>(in.begin() - b.base) + bad;
+            throw pegtl::parse_error("a title must be UTF-8 text",
+                                     pegtl::position(offset, 0, 0, ""));
+        }
         std::string text;
         for (const char* p = in.begin() + 1; p + 1 < in.end(); ++p) {
             if (*p == '\\')

@@ -147,12 +147,13 @@ void write_json_report(const Model& model, const Results& results, const ReportO
               {"caution", kCaution},
               {"units", units_json(model.units)},
               {"model", model_json(model)}};
-    std::string text = head.dump(1);
+    std::string text = head.dump(1, ' ', false, Json::error_handler_t::replace);
     text.resize(text.size() - 2);  // the final "\n}": the cases follow
     text += ",\n \"cases\": [";
     for (std::size_t c = 0; c < model.cases.size(); ++c) {
         text += c == 0 ? "\n" : ",\n";
-        std::string one = case_json(model, results, c, options).dump(1);
+        std::string one = case_json(model, results, c, options)
+                              .dump(1, ' ', false, Json::error_handler_t::replace);
         text += "  ";
         for (char ch : one) {
             text += ch;

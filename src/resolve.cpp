@@ -370,6 +370,7 @@ void resolve_sections(Resolver& r, const Collected& c) {
         if (props)
             std::tie(s.area, s.inertia) = *props;
         r.model.sections.push_back(std::move(s));
+        r.section_material_known.push_back(material.has_value());
     }
 }
 
@@ -438,6 +439,7 @@ void resolve_members(Resolver& r, const Collected& c) {
             }
         }
         r.member_valid.push_back(valid);
+        r.member_section_known.push_back(section.has_value());
         r.model.members.push_back(std::move(m));
     }
 }

@@ -52,6 +52,8 @@ struct Resolver {
     std::vector<char> node_used;     ///< per node: some member ends there
     std::vector<char> node_placed;   ///< per node: both coordinates known (no error)
     std::vector<char> member_valid;  ///< per member: nodes, section and length all good
+    std::vector<char> member_section_known;    ///< per member: its section resolved
+    std::vector<char> section_material_known;  ///< per section: its material resolved
 
     std::optional<double> value(const syntax::Expr& e, const Expected& expected) {
         return evaluate_as(e, expected, diagnostics);

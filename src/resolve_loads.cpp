@@ -248,9 +248,12 @@ class LoadResolver {
         sw.where = where_;
         std::vector<char> reported(r_.model.materials.size(), 0);
         auto check = [&](MemberId id) {
-            const Section& s = r_.model.sections[at(r_.model.members[at(id)].section)];
-            if (at(s.material) >= r_.model.materials.size())
-                return;
+            if (!r_.member_section_known[at(id)])
+                return;  // the unknown section is reported already
+            SectionId section = r_.model.members[at(id)].section;
+            if (!r_.section_material_known[at(section)])
+                return;  // the unknown material is reported already
+            const Section& s = r_.model.sections[at(section)];
             const Material& mat = r_.model.materials[at(s.material)];
             if (mat.unit_weight > 0.0 || reported[at(s.material)])
                 return;

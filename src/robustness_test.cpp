@@ -86,3 +86,19 @@ TEST_CASE("huge and tiny numbers stay finite or are refused") {
     CHECK(first_message(std::string(kBaseModel) + "material m E = 1e30 ksi\n") ==
           "input:9:16: error: this value is out of range (beyond 1e+15 in SI units)");
 }
+
+TEST_CASE("self weight on members whose section is unknown reports the section, not a crash") {
+    // Found by the fuzzer: a member naming a missing section, in a model with no sections.
+    CHECK(messages_for("node A at x = 0 ft, y = 0 ft\nnode B at x = 1 ft, y = 0 ft\n"
+                       "member M from A to B section s\ncase D dead { self weight }\n") ==
+          "input:3:30: error: unknown section 's'\n"
+          "    member M from A to B section s\n"
+          "                                 ^\n");
+}
+
+TEST_CASE("a title that is not UTF-8 is an error at the bad byte") {
+    // Found by the fuzzer: such a title reached the JSON writer, which requires UTF-8.
+    CHECK(first_message("model \"ab\xFD\"\n") == "input:1:10: error: a title must be UTF-8 text");
+    CHECK(first_message("model \"caf\xC3\xA9 \xE2\x80\x94 frame\"\n") ==
+          "input:1:1: error: the model has no members");
+}
