@@ -122,7 +122,7 @@ void resolve_title(Resolver& r, const Collected& c) {
 
 void resolve_report_units(Resolver& r, const Collected& c) {
     only_once(r, c.report_units, "'report units'");
-    std::string force = "kN", length = "m", displacement;
+    std::string force, length, displacement;
     std::optional<std::pair<std::string, double>> moment;
     if (!c.report_units.empty()) {
         for (const auto& item : std::get<syntax::ReportUnits>(c.report_units[0]->node).items) {
@@ -145,6 +145,13 @@ void resolve_report_units(Resolver& r, const Collected& c) {
             }
         }
     }
+    // A unit left out follows the family of the one given: kip goes with ft,
+    // kN with m; with neither, reports are in kN and m.
+    bool customary = force == "kip" || force == "lb" || length == "ft" || length == "in";
+    if (force.empty())
+        force = customary ? "kip" : "kN";
+    if (length.empty())
+        length = customary ? "ft" : "m";
     if (!make_display_units(force, length, displacement, r.model.units)) {
         r.diagnostics.error(c.report_units.empty() ? c.file_start : c.report_units[0]->where,
                             "reports are given in force kip, lb, kN or N, length ft, in, m or mm, "

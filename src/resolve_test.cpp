@@ -172,3 +172,18 @@ TEST_CASE("independent resolve errors are all reported in one run") {
     CHECK(all.find("input:10:22: error: unknown node 'N4'") != std::string::npos);
     CHECK(all.find("input:10:33: error: unknown section 'beem'") != std::string::npos);
 }
+
+TEST_CASE("report units left out follow the family of those given") {
+    auto units_of = [](const std::string& line) {
+        Analysis a = analyse_text(
+            "input", line + std::string(kBaseModel).substr(std::string(kBaseModel).find("node")));
+        REQUIRE(a.ok);
+        return a.model.units.force.name + " " + a.model.units.length.name + " " +
+               a.model.units.moment.name + " " + a.model.units.displacement.name;
+    };
+    CHECK(units_of("report units kip\n") == "kip ft kip*ft in");
+    CHECK(units_of("report units mm\n") == "kN mm kN*mm mm");
+    CHECK(units_of("report units lb, in, displacement mm\n") == "lb in lb*in mm");
+    CHECK(units_of("report units kN, m, kN*mm\n") == "kN m kN*mm mm");
+    CHECK(units_of("") == "kN m kN*m mm");
+}
