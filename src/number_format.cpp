@@ -27,7 +27,10 @@ void append_fixed(std::string& out, double value, int decimals) {
 }
 
 double round_to(double value, int decimals) {
-    double scale = std::pow(10.0, decimals);
+    static constexpr std::array<double, 10> kScales{1e0, 1e1, 1e2, 1e3, 1e4,
+                                                    1e5, 1e6, 1e7, 1e8, 1e9};
+    double scale = decimals >= 0 && decimals < 10 ? kScales[static_cast<std::size_t>(decimals)]
+                                                  : std::pow(10.0, decimals);
     double r = std::round(value * scale) / scale;
     return r == 0.0 ? 0.0 : r;
 }
