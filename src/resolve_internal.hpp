@@ -49,9 +49,9 @@ struct Resolver {
     NameTable sections{"section"};
     NameTable members{"member"};
     NameTable cases{"load case"};
-    std::vector<char> node_used;     ///< per node: some member ends there
-    std::vector<char> node_placed;   ///< per node: both coordinates known (no error)
-    std::vector<char> member_valid;  ///< per member: nodes, section and length all good
+    std::vector<char> node_used;               ///< per node: some member ends there
+    std::vector<char> node_placed;             ///< per node: both coordinates known (no error)
+    std::vector<char> member_valid;            ///< per member: nodes, section and length all good
     std::vector<char> member_section_known;    ///< per member: its section resolved
     std::vector<char> section_material_known;  ///< per section: its material resolved
 
