@@ -56,6 +56,12 @@ struct Diagnostic {
     SourceRange where;
     std::string message;
     std::vector<Diagnostic> notes;  ///< follow-ups such as "first defined here"
+
+    /// Adds a note pointing at another place ("first defined here").
+    Diagnostic& note(const SourceRange& place, std::string text) {
+        notes.push_back(Diagnostic{Severity::note, place, std::move(text), {}});
+        return *this;
+    }
 };
 
 /// Collects the diagnostics of a run. Stages add to it and go on where they can,

@@ -17,7 +17,7 @@ bool NameTable::add(const syntax::Name& name, Diagnostics& diagnostics) {
     if (!inserted) {
         Diagnostic& d = diagnostics.error(
             name.where, fmt::format("{} '{}' is already defined", what_, name.text));
-        d.notes.push_back(Diagnostic{Severity::note, where_[it->second], "first defined here", {}});
+        d.note(where_[it->second], "first defined here");
         return false;
     }
     names_.push_back(name.text);
@@ -110,7 +110,7 @@ void only_once(Resolver& r, const std::vector<const syntax::Statement*>& found, 
     for (std::size_t i = 1; i < found.size(); ++i) {
         Diagnostic& d =
             r.diagnostics.error(found[i]->where, fmt::format("{} is already given", what));
-        d.notes.push_back(Diagnostic{Severity::note, found[0]->where, "first given here", {}});
+        d.note(found[0]->where, "first given here");
     }
 }
 
@@ -244,8 +244,7 @@ void resolve_nodes(Resolver& r, const Collected& c, const std::vector<GridRef>& 
                 decl->name.where,
                 fmt::format("node '{}' is at the same place as node '{}'; they are not connected",
                             n.name, r.model.nodes[it->second].name));
-            d.notes.push_back(Diagnostic{
-                Severity::note, r.model.nodes[it->second].where, "that node is here", {}});
+            d.note(r.model.nodes[it->second].where, "that node is here");
         }
         r.model.nodes.push_back(std::move(n));
     }
@@ -535,8 +534,7 @@ void resolve_supports(Resolver& r, const Collected& c) {
             if (existing != SIZE_MAX) {
                 Diagnostic& d = r.diagnostics.error(
                     name.where, fmt::format("node '{}' already has a support", name.text));
-                d.notes.push_back(Diagnostic{
-                    Severity::note, r.model.supports[existing].where, "that support is here", {}});
+                d.note(r.model.supports[existing].where, "that support is here");
                 continue;
             }
             existing = r.model.supports.size();

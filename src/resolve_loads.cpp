@@ -260,8 +260,7 @@ class LoadResolver {
             reported[at(s.material)] = 1;
             Diagnostic& d = r_.diagnostics.error(
                 where_, fmt::format("self weight needs the density of material '{}'", mat.name));
-            d.notes.push_back(
-                Diagnostic{Severity::note, mat.where, "give it here, as in density = 490 pcf", {}});
+            d.note(mat.where, "give it here, as in density = 490 pcf");
         };
         if (sw.all_members) {
             for (std::size_t i = 0; i < r_.model.members.size(); ++i)
