@@ -365,6 +365,32 @@ struct action<g::sum_tail> : action<g::product_tail> {};
 
 // ---------------------------------------------------------------- statements
 
+/// Starts the draft of a statement of type T at its keyword.
+template <typename T>
+struct begin_statement {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.begin<T>(in);
+    }
+};
+
+template <typename Pointer>
+struct owner_of;
+template <typename Owner, typename Field>
+struct owner_of<Field Owner::*> {
+    using type = Owner;
+};
+
+/// Stores the matched name in `Field` of the statement being read.
+template <auto Field>
+struct store_name {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        using Statement = typename owner_of<decltype(Field)>::type;
+        b.current<Statement>().*Field = b.name(in);
+    }
+};
+
 /// Commits the statement draft once the whole statement has matched.
 template <>
 struct action<g::statement> {
@@ -379,12 +405,7 @@ struct action<g::statement> {
 };
 
 template <>
-struct action<g::model_begin> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.begin<syntax::ModelTitle>(in);
-    }
-};
+struct action<g::model_begin> : begin_statement<syntax::ModelTitle> {};
 
 /// The offset of the first byte that breaks UTF-8 in `text`, or npos.
 std::size_t invalid_utf8_at(std::string_view text) {
@@ -428,12 +449,7 @@ struct action<g::title> {
 };
 
 template <>
-struct action<g::report_begin> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.begin<syntax::ReportUnits>(in);
-    }
-};
+struct action<g::report_begin> : begin_statement<syntax::ReportUnits> {};
 
 template <>
 struct action<g::displacement_role> {
@@ -459,12 +475,7 @@ syntax::Axis axis_of(std::string_view text) {
 }
 
 template <>
-struct action<g::grid_begin> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.begin<syntax::Grid>(in);
-    }
-};
+struct action<g::grid_begin> : begin_statement<syntax::Grid> {};
 
 template <>
 struct action<g::grid_axis> {
@@ -496,20 +507,10 @@ struct action<g::grid_line> {
 };
 
 template <>
-struct action<g::node_begin> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.begin<syntax::NodeDecl>(in);
-    }
-};
+struct action<g::node_begin> : begin_statement<syntax::NodeDecl> {};
 
 template <>
-struct action<g::node_name> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.current<syntax::NodeDecl>().name = b.name(in);
-    }
-};
+struct action<g::node_name> : store_name<&syntax::NodeDecl::name> {};
 
 template <>
 struct action<g::coordinate_axis> {
@@ -543,20 +544,10 @@ struct action<g::grid_coordinate> {
 };
 
 template <>
-struct action<g::material_begin> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.begin<syntax::MaterialDecl>(in);
-    }
-};
+struct action<g::material_begin> : begin_statement<syntax::MaterialDecl> {};
 
 template <>
-struct action<g::material_name> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.current<syntax::MaterialDecl>().name = b.name(in);
-    }
-};
+struct action<g::material_name> : store_name<&syntax::MaterialDecl::name> {};
 
 template <>
 struct action<g::property> {
@@ -572,28 +563,13 @@ struct action<g::property> {
 };
 
 template <>
-struct action<g::section_begin> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.begin<syntax::SectionDecl>(in);
-    }
-};
+struct action<g::section_begin> : begin_statement<syntax::SectionDecl> {};
 
 template <>
-struct action<g::section_name> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.current<syntax::SectionDecl>().name = b.name(in);
-    }
-};
+struct action<g::section_name> : store_name<&syntax::SectionDecl::name> {};
 
 template <>
-struct action<g::section_material> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.current<syntax::SectionDecl>().material = b.name(in);
-    }
-};
+struct action<g::section_material> : store_name<&syntax::SectionDecl::material> {};
 
 template <>
 struct action<g::section_shape> {
@@ -607,44 +583,19 @@ struct action<g::section_shape> {
 };
 
 template <>
-struct action<g::member_begin> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.begin<syntax::MemberDecl>(in);
-    }
-};
+struct action<g::member_begin> : begin_statement<syntax::MemberDecl> {};
 
 template <>
-struct action<g::member_name> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.current<syntax::MemberDecl>().name = b.name(in);
-    }
-};
+struct action<g::member_name> : store_name<&syntax::MemberDecl::name> {};
 
 template <>
-struct action<g::member_start> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.current<syntax::MemberDecl>().start = b.name(in);
-    }
-};
+struct action<g::member_start> : store_name<&syntax::MemberDecl::start> {};
 
 template <>
-struct action<g::member_end> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.current<syntax::MemberDecl>().end = b.name(in);
-    }
-};
+struct action<g::member_end> : store_name<&syntax::MemberDecl::end> {};
 
 template <>
-struct action<g::member_section> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.current<syntax::MemberDecl>().section = b.name(in);
-    }
-};
+struct action<g::member_section> : store_name<&syntax::MemberDecl::section> {};
 
 template <>
 struct action<g::hinge_node> {
@@ -655,12 +606,7 @@ struct action<g::hinge_node> {
 };
 
 template <>
-struct action<g::support_begin> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.begin<syntax::SupportDecl>(in);
-    }
-};
+struct action<g::support_begin> : begin_statement<syntax::SupportDecl> {};
 
 template <syntax::SupportDecl::Kind Kind>
 struct set_support_kind {
@@ -717,20 +663,10 @@ struct action<g::spring_item> {
 // ---------------------------------------------------------------- load cases
 
 template <>
-struct action<g::case_begin> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.begin<syntax::CaseDecl>(in);
-    }
-};
+struct action<g::case_begin> : begin_statement<syntax::CaseDecl> {};
 
 template <>
-struct action<g::case_name> {
-    template <typename Input>
-    static void apply(const Input& in, Builder& b) {
-        b.current<syntax::CaseDecl>().name = b.name(in);
-    }
-};
+struct action<g::case_name> : store_name<&syntax::CaseDecl::name> {};
 
 template <syntax::CaseDecl::Kind Kind>
 struct set_case_kind {
