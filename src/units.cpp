@@ -97,37 +97,9 @@ constexpr std::array<Unit, 25> kUnits{{
     {"deg", std::numbers::pi / 180.0, dim::number},
 }};
 
-// Sizes of compound display units come from the table, so they can never
-// disagree with what the language reads.
-double size_of(std::string_view compound) {
-    double size = 1.0;
-    int sign = 1;
-    std::size_t start = 0;
-    for (std::size_t i = 0; i <= compound.size(); ++i) {
-        if (i < compound.size() && compound[i] != '*' && compound[i] != '/')
-            continue;
-        std::string_view atom = compound.substr(start, i - start);
-        int exponent = 1;
-        if (auto caret = atom.find('^'); caret != std::string_view::npos) {
-            exponent = atom[caret + 1] - '0';
-            atom = atom.substr(0, caret);
-        }
-        double factor = atom == "rad" ? 1.0 : 0.0;
-        for (const Unit& u : kUnits) {
-            if (u.name == atom)
-                factor = u.to_si;
-        }
-        size *= std::pow(factor, sign * exponent);
-        if (i < compound.size())
-            sign = compound[i] == '/' ? -1 : 1;
-        start = i + 1;
-    }
-    return size;
-}
-
-DisplayUnit unit(std::string name, int decimals) {
-    double size = size_of(name);
-    return DisplayUnit{std::move(name), size, decimals};
+/// The size of a unit of the table (the caller knows it is there).
+double unit_size(std::string_view name) {
+    return find_unit(name)->to_si;
 }
 
 int decimals_for_moment(std::string_view force, std::string_view length) {
@@ -165,18 +137,24 @@ bool make_display_units(std::string_view force, std::string_view length,
     if (d == nullptr || !(d->dimension == dim::length))
         return false;
     std::string f(force), l(length);
-    out.force = unit(f, force_decimals);
-    out.length = unit(l, length_decimals);
-    out.moment = unit(fmt::format("{}*{}", f, l), decimals_for_moment(f, l));
-    out.displacement = unit(std::string(displacement), decimals_for_displacement(displacement));
-    out.rotation = unit("rad", 6);
-    out.force_per_length = unit(fmt::format("{}/{}", f, l), force_decimals + 1);
-    out.area = customary ? unit("in^2", 3) : unit("mm^2", 0);
-    out.inertia = customary ? unit("in^4", 2) : unit("mm^4", 0);
-    out.modulus = customary ? unit("ksi", 0) : unit("MPa", 0);
-    out.unit_weight = customary ? unit("pcf", 1) : unit("kN/m^3", 2);
-    out.stiffness = unit(fmt::format("{}/{}", f, customary ? "in" : "mm"), 3);
-    out.rotational_stiffness = unit(fmt::format("{}*{}/rad", f, l), 1);
+    double F = unit_size(f), L = unit_size(l);
+    const char* small = customary ? "in" : "mm";  // section and spring units
+    double S = unit_size(small);
+    out.force = DisplayUnit{f, F, force_decimals};
+    out.length = DisplayUnit{l, L, length_decimals};
+    out.moment = DisplayUnit{fmt::format("{}*{}", f, l), F * L, decimals_for_moment(f, l)};
+    out.displacement =
+        DisplayUnit{std::string(displacement), d->to_si, decimals_for_displacement(displacement)};
+    out.rotation = DisplayUnit{"rad", 1.0, 6};
+    out.force_per_length = DisplayUnit{fmt::format("{}/{}", f, l), F / L, force_decimals + 1};
+    out.area = DisplayUnit{fmt::format("{}^2", small), S * S, customary ? 3 : 0};
+    out.inertia = DisplayUnit{fmt::format("{}^4", small), S * S * S * S, customary ? 2 : 0};
+    out.modulus = customary ? DisplayUnit{"ksi", unit_size("ksi"), 0}
+                            : DisplayUnit{"MPa", unit_size("MPa"), 0};
+    out.unit_weight =
+        customary ? DisplayUnit{"pcf", unit_size("pcf"), 1} : DisplayUnit{"kN/m^3", 1e3, 2};
+    out.stiffness = DisplayUnit{fmt::format("{}/{}", f, small), F / S, 3};
+    out.rotational_stiffness = DisplayUnit{fmt::format("{}*{}/rad", f, l), F * L, 1};
     return true;
 }
 
