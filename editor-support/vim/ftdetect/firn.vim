@@ -1,0 +1,2 @@
+" firn models: plane building frames and their loads.
+au BufRead,BufNewFile *.firn set filetype=firn
