@@ -35,10 +35,13 @@ struct sp_nl : star<sor<one<' ', '\t', '\r', '\n'>, comment>> {};
 struct word_char : ranges<'a', 'z', 'A', 'Z', '0', '9', '_'> {};
 
 // ORDER KEYWORDS: one rule per word of grammar/keywords.hpp.
+struct kw_along : TAO_PEGTL_KEYWORD("along") {};
 struct kw_at : TAO_PEGTL_KEYWORD("at") {};
 struct kw_axial : TAO_PEGTL_KEYWORD("axial") {};
+struct kw_beams : TAO_PEGTL_KEYWORD("beams") {};
 struct kw_case : TAO_PEGTL_KEYWORD("case") {};
 struct kw_clockwise : TAO_PEGTL_KEYWORD("clockwise") {};
+struct kw_columns : TAO_PEGTL_KEYWORD("columns") {};
 struct kw_counterclockwise : TAO_PEGTL_KEYWORD("counterclockwise") {};
 struct kw_dead : TAO_PEGTL_KEYWORD("dead") {};
 struct kw_displacement : TAO_PEGTL_KEYWORD("displacement") {};
@@ -47,8 +50,10 @@ struct kw_fixed : TAO_PEGTL_KEYWORD("fixed") {};
 struct kw_free : TAO_PEGTL_KEYWORD("free") {};
 struct kw_from : TAO_PEGTL_KEYWORD("from") {};
 struct kw_grid : TAO_PEGTL_KEYWORD("grid") {};
+struct kw_group : TAO_PEGTL_KEYWORD("group") {};
 struct kw_hinge : TAO_PEGTL_KEYWORD("hinge") {};
 struct kw_ishape : TAO_PEGTL_KEYWORD("ishape") {};
+struct kw_let : TAO_PEGTL_KEYWORD("let") {};
 struct kw_linear : TAO_PEGTL_KEYWORD("linear") {};
 struct kw_live : TAO_PEGTL_KEYWORD("live") {};
 struct kw_material : TAO_PEGTL_KEYWORD("material") {};
@@ -58,9 +63,11 @@ struct kw_moment : TAO_PEGTL_KEYWORD("moment") {};
 struct kw_node : TAO_PEGTL_KEYWORD("node") {};
 struct kw_on : TAO_PEGTL_KEYWORD("on") {};
 struct kw_other : TAO_PEGTL_KEYWORD("other") {};
+struct kw_outside : TAO_PEGTL_KEYWORD("outside") {};
 struct kw_pinned : TAO_PEGTL_KEYWORD("pinned") {};
 struct kw_point : TAO_PEGTL_KEYWORD("point") {};
 struct kw_projected : TAO_PEGTL_KEYWORD("projected") {};
+struct kw_rafters : TAO_PEGTL_KEYWORD("rafters") {};
 struct kw_rectangle : TAO_PEGTL_KEYWORD("rectangle") {};
 struct kw_report : TAO_PEGTL_KEYWORD("report") {};
 struct kw_roller : TAO_PEGTL_KEYWORD("roller") {};
@@ -69,13 +76,16 @@ struct kw_rotation : TAO_PEGTL_KEYWORD("rotation") {};
 struct kw_section : TAO_PEGTL_KEYWORD("section") {};
 struct kw_self : TAO_PEGTL_KEYWORD("self") {};
 struct kw_snow : TAO_PEGTL_KEYWORD("snow") {};
+struct kw_spacing : TAO_PEGTL_KEYWORD("spacing") {};
 struct kw_spring : TAO_PEGTL_KEYWORD("spring") {};
 struct kw_support : TAO_PEGTL_KEYWORD("support") {};
+struct kw_tag : TAO_PEGTL_KEYWORD("tag") {};
 struct kw_to : TAO_PEGTL_KEYWORD("to") {};
 struct kw_transverse : TAO_PEGTL_KEYWORD("transverse") {};
 struct kw_uniform : TAO_PEGTL_KEYWORD("uniform") {};
 struct kw_units : TAO_PEGTL_KEYWORD("units") {};
 struct kw_up : TAO_PEGTL_KEYWORD("up") {};
+struct kw_use : TAO_PEGTL_KEYWORD("use") {};
 struct kw_weight : TAO_PEGTL_KEYWORD("weight") {};
 struct kw_wind : TAO_PEGTL_KEYWORD("wind") {};
 struct kw_x : TAO_PEGTL_KEYWORD("x") {};
@@ -87,17 +97,22 @@ template <typename... Words> struct keyword_list : sor<Words...> {
 };
 // reserved  <- any keyword
 struct reserved : keyword_list<
-    kw_at, kw_axial, kw_case, kw_clockwise, kw_counterclockwise, kw_dead, kw_displacement,
-    kw_down, kw_fixed, kw_free, kw_from, kw_grid, kw_hinge, kw_ishape, kw_linear, kw_live,
-    kw_material, kw_member, kw_model, kw_moment, kw_node, kw_on, kw_other, kw_pinned, kw_point,
-    kw_projected, kw_rectangle, kw_report, kw_roller, kw_roof, kw_rotation, kw_section, kw_self,
-    kw_snow, kw_spring, kw_support, kw_to, kw_transverse, kw_uniform, kw_units, kw_up,
-    kw_weight, kw_wind, kw_x, kw_y> {};
+    kw_along, kw_at, kw_axial, kw_beams, kw_case, kw_clockwise, kw_columns,
+    kw_counterclockwise, kw_dead, kw_displacement, kw_down, kw_fixed, kw_free, kw_from, kw_grid,
+    kw_group, kw_hinge, kw_ishape, kw_let, kw_linear, kw_live, kw_material, kw_member, kw_model,
+    kw_moment, kw_node, kw_on, kw_other, kw_outside, kw_pinned, kw_point, kw_projected,
+    kw_rafters, kw_rectangle, kw_report, kw_roller, kw_roof, kw_rotation, kw_section, kw_self,
+    kw_snow, kw_spacing, kw_spring, kw_support, kw_tag, kw_to, kw_transverse, kw_uniform,
+    kw_units, kw_up, kw_use, kw_weight, kw_wind, kw_x, kw_y> {};
 static_assert(reserved::size == keywords.size(), "ORDER KEYWORDS: grammar and keywords.hpp disagree");
 
 // name      <- !(reserved !'.') name_part ('.' name_part)*      A1, eave.AB, 12, N_3
 struct name_part : plus<word_char> {};
 struct name : seq<not_at<reserved, not_at<one<'.'>>>, name_part, star<one<'.'>, name_part>> {};
+
+// member_ref <- !(reserved !'.') [A-Za-z0-9_.*]+         B1, eave.*, *.base.*, a group
+struct member_ref : seq<not_at<reserved, not_at<one<'.'>>>,
+                        plus<sor<word_char, one<'.', '*'>>>> {};
 
 // list_sep  <- sp ',' sp_nl
 struct list_sep : seq<sp, one<','>, sp_nl> {};
@@ -153,12 +168,23 @@ struct factor;
 struct paren_open : one<'('> {};
 struct paren_close : one<')'> {};
 struct group : if_must<paren_open, sp_nl, expr, sp_nl, paren_close> {};
-// primary   <- quantity / group
-struct primary : sor<quantity, group> {};
-// factor    <- '-' sp factor / primary
+// call      <- name '(' sp_nl expr (list_sep expr)* sp_nl ')'       min, max, abs, sqrt
+struct call_head : seq<name, one<'('>> {};
+struct call_argument : seq<expr> {};
+struct call : if_must<call_head, sp_nl, call_argument, star<if_must<list_sep, call_argument>>,
+                      sp_nl, paren_close> {};
+// constant  <- name                                     a value named by 'let'
+struct constant : name {};
+// primary   <- quantity / group / call / constant
+struct primary : sor<quantity, group, call, constant> {};
+// power     <- primary (sp '^' sp_nl factor)?          right to left: 2^3^2 = 2^9
+struct caret : one<'^'> {};
+struct power_tail : if_must<seq<sp, caret>, sp_nl, factor> {};
+struct power : seq<primary, opt<power_tail>> {};
+// factor    <- '-' sp factor / power
 struct minus_sign : one<'-'> {};
 struct negation : if_must<minus_sign, sp, factor> {};
-struct factor : sor<negation, primary> {};
+struct factor : sor<negation, power> {};
 // product   <- factor (sp [*/] sp_nl factor)*
 struct product_tail : if_must<seq<sp, one<'*', '/'>>, sp_nl, factor> {};
 struct product : seq<factor, star<product_tail>> {};
@@ -174,6 +200,20 @@ struct title : if_must<one<'"'>, star<sor<seq<one<'\\'>, one<'"', '\\'>>, not_on
 struct model_begin : kw_model {};
 struct model_stmt : if_must<model_begin, sp, title> {};
 
+// let_stmt    <- 'let' sp name sp '=' sp expr
+struct let_name : name {};
+struct let_begin : kw_let {};
+struct let_stmt : if_must<let_begin, sp, let_name, sp, equals, sp, expr> {};
+
+// use_stmt    <- 'use' sp ('outside' sp)? (path / name)
+struct path : if_must<one<'"'>, star<sor<seq<one<'\\'>, one<'"', '\\'>>, not_one<'"', '\\', '\n', '\r'>>>,
+                      one<'"'>> {};
+struct use_outside : kw_outside {};
+struct use_module : name {};
+struct use_target : sor<path, use_module> {};
+struct use_begin : kw_use {};
+struct use_stmt : if_must<use_begin, sp, opt<use_outside, sp>, use_target> {};
+
 // report_stmt <- 'report' sp 'units' sp report_item (list_sep report_item)*
 // report_item <- ('displacement' sp)? unit
 struct displacement_role : kw_displacement {};
@@ -182,14 +222,23 @@ struct report_begin : kw_report {};
 struct report_stmt : if_must<report_begin, sp, kw_units, sp, report_item,
                              star<if_must<list_sep, report_item>>> {};
 
-// grid_stmt   <- 'grid' sp axis sp grid_line (list_sep grid_line)*
+// grid_stmt   <- 'grid' sp axis sp (grid_run / grid_line (list_sep grid_line)*)
 // grid_line   <- name sp '=' sp expr
+// grid_run    <- name '..' name sp 'spacing' sp expr (list_sep expr)* (sp 'from' sp expr)?
 struct grid_axis : sor<kw_x, kw_y> {};
 struct grid_line_name : name {};
 struct grid_line : if_must<grid_line_name, sp, equals, sp, expr> {};
+struct dots : string<'.', '.'> {};
+struct run_first : name {};
+struct run_last : name {};
+struct run_spacing : expr {};
+struct run_start : expr {};
+struct grid_run : if_must<seq<at<name, dots>, run_first, dots>, run_last, sp, kw_spacing, sp,
+                          run_spacing, star<if_must<list_sep, run_spacing>>,
+                          opt<sp, if_must<kw_from, sp, run_start>>> {};
+struct grid_lines : seq<grid_line, star<if_must<list_sep, grid_line>>> {};
 struct grid_begin : kw_grid {};
-struct grid_stmt : if_must<grid_begin, sp, grid_axis, sp, grid_line,
-                           star<if_must<list_sep, grid_line>>> {};
+struct grid_stmt : if_must<grid_begin, sp, grid_axis, sp, sor<grid_run, grid_lines>> {};
 
 // node_stmt   <- 'node' sp name sp 'at' sp coordinate (list_sep coordinate)*
 // coordinate  <- ('x' / 'y') sp '=' sp expr / name
@@ -221,18 +270,56 @@ struct section_begin : kw_section {};
 struct section_stmt : if_must<section_begin, sp, section_name, sp, section_material, sp, comma,
                               sp_nl, opt<section_shape, sp>, property_list> {};
 
-// member_stmt <- 'member' sp name sp 'from' sp name sp 'to' sp name sp 'section' sp name
-//                (sp 'hinge' sp 'at' sp name (list_sep name)*)?
-struct member_name : name {};
-struct member_start : name {};
-struct member_end : name {};
+// member_options <- 'section' sp name (sp 'hinge' sp 'at' sp name (list_sep name)*)?
+//                   (sp 'tag' sp name (list_sep name)*)?
 struct member_section : name {};
 struct hinge_node : name {};
 struct hinges : if_must<kw_hinge, sp, kw_at, sp, hinge_node, star<if_must<list_sep, hinge_node>>> {};
+struct tag_name : name {};
+struct tags : if_must<kw_tag, sp, tag_name, star<if_must<list_sep, tag_name>>> {};
+struct member_options : if_must<kw_section, sp, member_section, opt<sp, hinges>, opt<sp, tags>> {};
+
+// member_stmt <- 'member' sp name sp 'from' sp name sp 'to' sp name sp member_options
+struct member_name : name {};
+struct member_start : name {};
+struct member_end : name {};
 struct member_begin : kw_member {};
 struct member_stmt : if_must<member_begin, sp, member_name, sp, kw_from, sp, member_start, sp,
-                             kw_to, sp, member_end, sp, kw_section, sp, member_section,
-                             opt<sp, hinges>> {};
+                             kw_to, sp, member_end, sp, member_options> {};
+
+// line_range  <- name ('..' name)?                    A, C..F
+struct range_first : name {};
+struct range_last : name {};
+struct line_range : seq<range_first, opt<dots, must<range_last>>> {};
+struct line_ranges : seq<line_range, star<if_must<list_sep, line_range>>> {};
+// columns_stmt <- 'columns' sp 'on' sp line_range (list_sep line_range)*
+//                 sp 'from' sp name sp 'to' sp name sp member_options
+struct span_from : name {};
+struct span_to : name {};
+struct level_span : if_must<kw_from, sp, span_from, sp, kw_to, sp, span_to> {};
+struct line_span : if_must<kw_from, sp, span_from, sp, kw_to, sp, span_to> {};
+struct columns_begin : kw_columns {};
+struct columns_stmt : if_must<columns_begin, sp, kw_on, sp, line_ranges, sp, level_span, sp,
+                              member_options> {};
+// beams_stmt  <- 'beams' sp 'along' sp line_range (list_sep line_range)*
+//                sp 'from' sp name sp 'to' sp name sp member_options
+struct beams_begin : kw_beams {};
+struct beams_stmt : if_must<beams_begin, sp, kw_along, sp, line_ranges, sp, line_span, sp,
+                            member_options> {};
+// rafters_stmt <- 'rafters' sp name sp 'from' sp name (sp 'to' sp name)+ sp member_options
+struct rafter_run : name {};
+struct rafter_point : name {};
+struct rafter_next : if_must<kw_to, sp, rafter_point> {};
+struct rafters_begin : kw_rafters {};
+struct rafters_stmt : if_must<rafters_begin, sp, rafter_run, sp, kw_from, sp, rafter_point, sp,
+                              rafter_next, star<sp, rafter_next>, sp, member_options> {};
+
+// group_stmt  <- 'group' sp name sp '=' sp member_ref (list_sep member_ref)*
+struct group_name : name {};
+struct group_member : member_ref {};
+struct group_begin : kw_group {};
+struct group_stmt : if_must<group_begin, sp, group_name, sp, equals, sp, group_member,
+                            star<if_must<list_sep, group_member>>> {};
 
 // support_stmt <- 'support' sp support_kind sp 'at' sp name (list_sep name)* (sp spring_list)?
 // support_kind <- 'fixed' / 'pinned' / 'roller' (sp 'free' sp axis)? / 'spring'
@@ -260,7 +347,7 @@ struct direction : sor<kw_x, kw_y, kw_up, kw_down, kw_axial, kw_transverse> {};
 struct projected : kw_projected {};
 struct load_value : expr {};
 struct load_end_value : expr {};
-struct load_member : name {};
+struct load_member : member_ref {};
 struct load_node : name {};
 struct load_from : expr {};
 struct load_to : expr {};
@@ -396,8 +483,10 @@ struct case_stmt : if_must<case_begin, sp, case_name, sp, case_kind, sp, block_o
                            star<block_item>, block_close> {};
 
 struct unknown_statement : failure {};
-struct statement : sor<model_stmt, report_stmt, grid_stmt, node_stmt, material_stmt, section_stmt,
-                       member_stmt, support_stmt, case_stmt, raise<unknown_statement>> {};
+struct statement : sor<model_stmt, use_stmt, let_stmt, report_stmt, grid_stmt, node_stmt,
+                       material_stmt, section_stmt, member_stmt, columns_stmt, beams_stmt,
+                       rafters_stmt, group_stmt, support_stmt, case_stmt,
+                       raise<unknown_statement>> {};
 struct statement_line : seq<statement, sp, must<end_of_statement>> {};
 struct top_item : seq<not_at<eof>, recover<statement_line, skip_statement>, sp_nl> {};
 // file        <- sp_nl top_item* eof

@@ -10,16 +10,35 @@
 namespace firn::grammar {
 
 // ORDER KEYWORDS
-inline constexpr std::array<std::string_view, 45> keywords{
-    "at",        "axial",        "case",       "clockwise", "counterclockwise",
-    "dead",      "displacement", "down",       "fixed",     "free",
-    "from",      "grid",         "hinge",      "ishape",    "linear",
-    "live",      "material",     "member",     "model",     "moment",
-    "node",      "on",           "other",      "pinned",    "point",
-    "projected", "rectangle",    "report",     "roller",    "roof",
-    "rotation",  "section",      "self",       "snow",      "spring",
-    "support",   "to",           "transverse", "uniform",   "units",
-    "up",        "weight",       "wind",       "x",         "y",
+inline constexpr std::array<std::string_view, 55> keywords{
+    "along",      "at",
+    "axial",      "beams",
+    "case",       "clockwise",
+    "columns",    "counterclockwise",
+    "dead",       "displacement",
+    "down",       "fixed",
+    "free",       "from",
+    "grid",       "group",
+    "hinge",      "ishape",
+    "let",        "linear",
+    "live",       "material",
+    "member",     "model",
+    "moment",     "node",
+    "on",         "other",
+    "outside",    "pinned",
+    "point",      "projected",
+    "rafters",    "rectangle",
+    "report",     "roller",
+    "roof",       "rotation",
+    "section",    "self",
+    "snow",       "spacing",
+    "spring",     "support",
+    "tag",        "to",
+    "transverse", "uniform",
+    "units",      "up",
+    "use",        "weight",
+    "wind",       "x",
+    "y",
 };
 
 }  // namespace firn::grammar

@@ -16,6 +16,7 @@ struct RunArgs {
     std::string model;
     std::string format = "text";
     std::string output;
+    std::string stdlib;
     bool full = false;
 };
 
@@ -23,7 +24,10 @@ struct RunArgs {
 constexpr std::size_t kStationsPerMember = 11;
 
 int run(const RunArgs& args) {
-    Analysis a = analyse_file(args.model);
+    ImportOptions imports;
+    if (!args.stdlib.empty())
+        imports.stdlib_dir = args.stdlib;
+    Analysis a = analyse_file(args.model, nullptr, imports);
     std::string messages = render(a.diagnostics, a.sources);
     if (!a.ok) {
         std::fputs(messages.c_str(), stderr);
@@ -81,6 +85,10 @@ void add_run_command(CLI::App& app, int& status) {
                   "(values at tenths of each member)");
     cmd->add_option("-o,--output", args->output,
                     "Write the report to this file (atomically) instead of standard output");
+    cmd->add_option("--stdlib", args->stdlib,
+                    "Read library modules (use NAME) from this folder instead of the built-in "
+                    "library; for library development")
+        ->envname("FIRN_STDLIB");
     cmd->callback([args, &status] { status = run(*args); });
 }
 

@@ -4,7 +4,6 @@
 #include <chrono>
 
 #include "file_io.hpp"
-#include "parse.hpp"
 #include "resolve.hpp"
 
 namespace firn {
@@ -25,15 +24,15 @@ class Stopwatch {
 
 }  // namespace
 
-Analysis analyse_text(std::string name, std::string text, PhaseTimes* times) {
+Analysis analyse_text(std::string name, std::string text, PhaseTimes* times,
+                      const ImportOptions& options) {
     PhaseTimes local;
     PhaseTimes& t = times != nullptr ? *times : local;
     Analysis a;
     Stopwatch clock;
     a.model.source_name = name;
     FileId file = a.sources.add(std::move(name), std::move(text));
-    std::vector<syntax::Tree> trees;
-    trees.push_back(parse(a.sources, file, a.diagnostics));
+    std::vector<syntax::Tree> trees = load_model(a.sources, file, a.diagnostics, options);
     t.parse = clock.lap();
     if (a.diagnostics.has_errors())
         return a;
@@ -65,14 +64,14 @@ Analysis analyse_text(std::string name, std::string text, PhaseTimes* times) {
     return a;
 }
 
-Analysis analyse_file(const std::string& path, PhaseTimes* times) {
+Analysis analyse_file(const std::string& path, PhaseTimes* times, const ImportOptions& options) {
     std::string text, error;
     if (!read_file(path, text, error)) {
         Analysis a;
         a.diagnostics.error_without_place(error);
         return a;
     }
-    return analyse_text(path, std::move(text), times);
+    return analyse_text(path, std::move(text), times, options);
 }
 
 }  // namespace firn

@@ -5,6 +5,7 @@
 #include <string>
 
 #include "diag.hpp"
+#include "imports.hpp"
 #include "loads.hpp"
 #include "model.hpp"
 #include "results.hpp"
@@ -32,9 +33,12 @@ struct Analysis {
 };
 
 /// Parses, resolves and analyses a model held in memory, named `name` in messages.
-Analysis analyse_text(std::string name, std::string text, PhaseTimes* times = nullptr);
+/// `options` say where `use` finds the standard library.
+Analysis analyse_text(std::string name, std::string text, PhaseTimes* times = nullptr,
+                      const ImportOptions& options = {});
 
 /// The same for a model file; a file that cannot be read is reported as an error.
-Analysis analyse_file(const std::string& path, PhaseTimes* times = nullptr);
+Analysis analyse_file(const std::string& path, PhaseTimes* times = nullptr,
+                      const ImportOptions& options = {});
 
 }  // namespace firn

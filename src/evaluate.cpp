@@ -90,25 +90,131 @@ std::optional<Quantity> combine(const syntax::Expr& e, Quantity a, Quantity b,
 
 }  // namespace
 
-std::optional<Quantity> evaluate(const syntax::Expr& e, Diagnostics& diagnostics) {
-    using K = syntax::Expr::Kind;
-    if (e.kind == K::number)
-        return evaluate_number(e, diagnostics);
-    if (e.kind == K::group)
-        return evaluate(*e.rhs, diagnostics);
-    if (e.kind == K::negate) {
-        auto v = evaluate(*e.rhs, diagnostics);
-        if (v)
-            v->value = -v->value;
-        return v;
-    }
-    auto a = evaluate(*e.lhs, diagnostics);
-    auto b = evaluate(*e.rhs, diagnostics);
-    if (!a || !b)
+namespace {
+
+/// Exponents of a dimension raised to `exponent`, if they stay whole numbers.
+std::optional<Dimension> raise_dimension(Dimension d, double exponent) {
+    double force = d.force * exponent, length = d.length * exponent;
+    if (force != std::round(force) || length != std::round(length) || std::abs(force) > 100 ||
+        std::abs(length) > 100) {
         return std::nullopt;
-    auto result = combine(e, *a, *b, diagnostics);
+    }
+    return Dimension{static_cast<std::int8_t>(force), static_cast<std::int8_t>(length)};
+}
+
+std::optional<Quantity> evaluate_power(const syntax::Expr& e, Quantity base, Quantity exponent,
+                                       Diagnostics& diagnostics) {
+    if (!(exponent.dimension == dim::number)) {
+        diagnostics.error(e.rhs->where, fmt::format("a power must be a plain number, found {}",
+                                                    describe(exponent.dimension)));
+        return std::nullopt;
+    }
+    auto d = raise_dimension(base.dimension, exponent.value);
+    if (!d) {
+        diagnostics.error(e.where, fmt::format("{} to the power {:g} has no unit",
+                                               describe(base.dimension), exponent.value));
+        return std::nullopt;
+    }
+    return Quantity{std::pow(base.value, exponent.value), *d};
+}
+
+std::optional<Quantity> evaluate_call(const syntax::Expr& e, Diagnostics& diagnostics,
+                                      Scope* scope) {
+    const std::string& f = e.literal;
+    bool known = f == "min" || f == "max" || f == "abs" || f == "sqrt";
+    if (!known) {
+        std::vector<std::string> names(functions.begin(), functions.end());
+        diagnostics.error(e.where, fmt::format("unknown function '{}'; the functions are {}{}", f,
+                                               "min, max, abs and sqrt", did_you_mean(f, names)));
+        return std::nullopt;
+    }
+    bool one_argument = f == "abs" || f == "sqrt";
+    if (one_argument ? e.args.size() != 1 : e.args.size() < 2) {
+        diagnostics.error(e.where, fmt::format("{}() takes {}", f,
+                                               one_argument ? "one value" : "two or more values"));
+        return std::nullopt;
+    }
+    std::vector<Quantity> args;
+    for (const syntax::Expr& a : e.args) {
+        auto v = evaluate(a, diagnostics, scope);
+        if (!v)
+            return std::nullopt;
+        args.push_back(*v);
+    }
+    if (f == "abs")
+        return Quantity{std::abs(args[0].value), args[0].dimension};
+    if (f == "sqrt") {
+        auto d = raise_dimension(args[0].dimension, 0.5);
+        if (!d) {
+            diagnostics.error(e.where, fmt::format("the square root of {} has no unit",
+                                                   describe(args[0].dimension)));
+            return std::nullopt;
+        }
+        if (args[0].value < 0.0) {
+            diagnostics.error(e.args[0].where, "the square root of a negative value");
+            return std::nullopt;
+        }
+        return Quantity{std::sqrt(args[0].value), *d};
+    }
+    Quantity best = args[0];
+    for (std::size_t i = 1; i < args.size(); ++i) {
+        if (!(args[i].dimension == best.dimension)) {
+            diagnostics.error(e.args[i].where,
+                              fmt::format("{}() compares values of one kind: {} and {}", f,
+                                          describe(best.dimension), describe(args[i].dimension)));
+            return std::nullopt;
+        }
+        if (f == "min" ? args[i].value < best.value : args[i].value > best.value)
+            best = args[i];
+    }
+    return best;
+}
+
+std::optional<Quantity> evaluate_leaf(const syntax::Expr& e, Diagnostics& diagnostics,
+                                      Scope* scope) {
+    using K = syntax::Expr::Kind;
+    switch (e.kind) {
+        case K::number:
+            return evaluate_number(e, diagnostics);
+        case K::constant:
+            if (scope == nullptr) {
+                diagnostics.error(e.where, fmt::format("unknown value '{}'", e.literal));
+                return std::nullopt;
+            }
+            return scope->constant(e, diagnostics);
+        case K::call:
+            return evaluate_call(e, diagnostics, scope);
+        case K::group:
+            return evaluate(*e.rhs, diagnostics, scope);
+        default: {
+            auto v = evaluate(*e.rhs, diagnostics, scope);  // negate
+            if (v)
+                v->value = -v->value;
+            return v;
+        }
+    }
+}
+
+}  // namespace
+
+std::optional<Quantity> evaluate(const syntax::Expr& e, Diagnostics& diagnostics, Scope* scope) {
+    using K = syntax::Expr::Kind;
+    std::optional<Quantity> result;
+    if (e.lhs == nullptr) {
+        result = evaluate_leaf(e, diagnostics, scope);
+    } else {
+        auto a = evaluate(*e.lhs, diagnostics, scope);
+        auto b = evaluate(*e.rhs, diagnostics, scope);
+        if (!a || !b)
+            return std::nullopt;
+        result = e.kind == K::power ? evaluate_power(e, *a, *b, diagnostics)
+                                    : combine(e, *a, *b, diagnostics);
+    }
     if (result && !std::isfinite(result->value)) {
-        diagnostics.error(e.where, "this value is too large to be a finite number");
+        diagnostics.error(e.where, std::isnan(result->value)
+                                       ? "this value is not a number (a negative value to a "
+                                         "fractional power?)"
+                                       : "this value is too large to be a finite number");
         return std::nullopt;
     }
     return result;
@@ -138,8 +244,8 @@ std::string fraction_hint(const syntax::Expr& e, const Expected& expected, Dimen
 }  // namespace
 
 std::optional<double> evaluate_as(const syntax::Expr& e, const Expected& expected,
-                                  Diagnostics& diagnostics) {
-    std::optional<Quantity> q = evaluate(e, diagnostics);
+                                  Diagnostics& diagnostics, Scope* scope) {
+    std::optional<Quantity> q = evaluate(e, diagnostics, scope);
     if (!q)
         return std::nullopt;
     if (!(q->dimension == expected.dimension)) {

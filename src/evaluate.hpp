@@ -2,6 +2,7 @@
 // Part of the resolve stage.
 #pragma once
 
+#include <array>
 #include <optional>
 #include <string>
 #include <vector>
@@ -40,6 +41,15 @@ inline constexpr Expected rotational_stiffness{dim::moment, "a rotational stiffn
                                                "5000 kip*ft/rad"};
 }  // namespace expect
 
+/// The named values an expression may use (the model's `let` constants).
+class Scope {
+  public:
+    virtual ~Scope() = default;
+    /// The value of the constant `ref` names (an Expr of kind constant), or
+    /// nullopt after reporting why not (unknown, defined by itself, in error).
+    virtual std::optional<Quantity> constant(const syntax::Expr& ref, Diagnostics& diagnostics) = 0;
+};
+
 /// The size in SI and the dimension of a written unit; nullopt after reporting
 /// an unknown unit.
 std::optional<Quantity> unit_value(const std::vector<syntax::UnitFactor>& unit,
@@ -48,13 +58,18 @@ std::optional<Quantity> unit_value(const std::vector<syntax::UnitFactor>& unit,
 /// The unit as the user should write it: `kip*ft/in^2`.
 std::string unit_spelling(const std::vector<syntax::UnitFactor>& unit);
 
-/// Evaluates `expr`; nullopt after reporting an error (an unknown unit, a
-/// dimension mismatch, a number that is not finite).
-std::optional<Quantity> evaluate(const syntax::Expr& expr, Diagnostics& diagnostics);
+/// Evaluates `expr`; nullopt after reporting an error (an unknown unit or
+/// constant, a dimension mismatch, a number that is not finite). Without a
+/// scope, no constant is known.
+std::optional<Quantity> evaluate(const syntax::Expr& expr, Diagnostics& diagnostics,
+                                 Scope* scope = nullptr);
 
 /// Evaluates `expr` and checks it has the expected dimension, reporting
 /// "expected a length such as 12 ft, found 12" otherwise.
 std::optional<double> evaluate_as(const syntax::Expr& expr, const Expected& expected,
-                                  Diagnostics& diagnostics);
+                                  Diagnostics& diagnostics, Scope* scope = nullptr);
+
+/// The functions an expression may call, for messages and editor support.
+inline constexpr std::array<const char*, 4> functions{"abs", "max", "min", "sqrt"};
 
 }  // namespace firn

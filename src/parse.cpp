@@ -12,6 +12,7 @@
 #include <charconv>
 #include <cmath>
 #include <limits>
+#include <stdexcept>
 
 #include "grammar/errors.hpp"
 #include "grammar/grammar.hpp"
@@ -60,6 +61,12 @@ struct Builder {
     std::optional<syntax::Name> pending_name;
     std::optional<syntax::Axis> pending_axis;
     std::optional<syntax::Name> pending_role;
+    /// Open calls: the function's name and where its arguments start on `exprs`.
+    struct OpenCall {
+        syntax::Name function;
+        std::size_t first_argument;
+    };
+    std::vector<OpenCall> calls;
     bool pending_spring_fixed = false;
     int nesting = 0;
     std::uint32_t block_line = 0;
@@ -129,8 +136,9 @@ std::string Builder::found_at(const char* at, std::size_t& width) const {
 
 /// True if the text at `at` begins with a keyword that starts a top-level statement.
 bool starts_statement(const char* at, const char* end) {
-    static constexpr std::array<std::string_view, 9> words{
-        "model", "report", "grid", "node", "material", "section", "member", "support", "case"};
+    static constexpr std::array<std::string_view, 15> words{
+        "model",  "use",     "let",   "report",  "grid",  "node",    "material", "section",
+        "member", "columns", "beams", "rafters", "group", "support", "case"};
     for (std::string_view w : words) {
         if (static_cast<std::size_t>(end - at) < w.size())
             continue;
@@ -181,6 +189,7 @@ void Builder::recover_from(const pegtl::parse_error& e, const char* at, bool in_
     diagnostics.error(range(at, stop), std::move(message));
 
     exprs.clear();
+    calls.clear();
     unit.clear();
     pending_name.reset();
     pending_axis.reset();
@@ -346,6 +355,7 @@ void fold_binary(const Input& in, Builder& b) {
     e.kind = op == '*'   ? Expr::Kind::multiply
              : op == '/' ? Expr::Kind::divide
              : op == '+' ? Expr::Kind::add
+             : op == '^' ? Expr::Kind::power
                          : Expr::Kind::subtract;
     e.where = SourceRange{lhs.where.file, lhs.where.begin, rhs.where.end};
     e.lhs = std::make_unique<Expr>(std::move(lhs));
@@ -362,6 +372,57 @@ struct action<g::product_tail> {
 };
 template <>
 struct action<g::sum_tail> : action<g::product_tail> {};
+template <>
+struct action<g::caret> : action<g::paren_open> {};  // powers nest to the right
+template <>
+struct action<g::power_tail> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        fold_binary(in, b);
+        --b.nesting;
+    }
+};
+
+template <>
+struct action<g::constant> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        Expr e;
+        e.kind = Expr::Kind::constant;
+        e.literal = in.string();
+        e.where = b.range(in);
+        b.exprs.push_back(std::move(e));
+    }
+};
+
+template <>
+struct action<g::call_head> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.enter_nesting(in);
+        syntax::Name function{std::string(in.begin(), in.size() - 1),
+                              b.range(in.begin(), in.end() - 1)};
+        b.calls.push_back(Builder::OpenCall{std::move(function), b.exprs.size()});
+    }
+};
+
+template <>
+struct action<g::call> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        Builder::OpenCall open = std::move(b.calls.back());
+        b.calls.pop_back();
+        Expr e;
+        e.kind = Expr::Kind::call;
+        e.literal = std::move(open.function.text);
+        e.where = b.range(in);
+        auto first = b.exprs.begin() + static_cast<std::ptrdiff_t>(open.first_argument);
+        e.args.assign(std::make_move_iterator(first), std::make_move_iterator(b.exprs.end()));
+        b.exprs.erase(first, b.exprs.end());
+        b.exprs.push_back(std::move(e));
+        --b.nesting;
+    }
+};
 
 // ---------------------------------------------------------------- statements
 
@@ -427,6 +488,17 @@ std::size_t invalid_utf8_at(std::string_view text) {
     return std::string_view::npos;
 }
 
+/// The text between double quotes, with backslash escapes undone.
+std::string unquote(std::string_view quoted) {
+    std::string text;
+    for (std::size_t i = 1; i + 1 < quoted.size(); ++i) {
+        if (quoted[i] == '\\')
+            ++i;
+        text += quoted[i];
+    }
+    return text;
+}
+
 template <>
 struct action<g::title> {
     template <typename Input>
@@ -438,13 +510,50 @@ struct action<g::title> {
             throw pegtl::parse_error("a title must be UTF-8 text",
                                      pegtl::position(offset, 0, 0, ""));
         }
-        std::string text;
-        for (const char* p = in.begin() + 1; p + 1 < in.end(); ++p) {
-            if (*p == '\\')
-                ++p;
-            text += *p;
-        }
-        b.current<syntax::ModelTitle>().title = std::move(text);
+        b.current<syntax::ModelTitle>().title = unquote(in.string_view());
+    }
+};
+
+template <>
+struct action<g::let_begin> : begin_statement<syntax::LetDecl> {};
+
+template <>
+struct action<g::let_name> : store_name<&syntax::LetDecl::name> {};
+
+template <>
+struct action<g::let_stmt> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.current<syntax::LetDecl>().value = b.pop_expr();
+    }
+};
+
+template <>
+struct action<g::use_begin> : begin_statement<syntax::UseDecl> {};
+
+template <>
+struct action<g::use_outside> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.current<syntax::UseDecl>().outside = true;
+    }
+};
+
+template <>
+struct action<g::use_module> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::UseDecl>().module = b.name(in);
+    }
+};
+
+template <>
+struct action<g::path> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        auto& use = b.current<syntax::UseDecl>();
+        use.path = unquote(in.string_view());
+        use.path_where = b.range(in);
     }
 };
 
@@ -503,6 +612,38 @@ struct action<g::grid_line> {
     static void apply(const Input&, Builder& b) {
         b.current<syntax::Grid>().lines.push_back(
             syntax::Grid::Line{std::move(*b.pending_name), b.pop_expr()});
+    }
+};
+
+template <>
+struct action<g::run_first> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::Grid>().run.emplace().first = b.name(in);
+    }
+};
+
+template <>
+struct action<g::run_last> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::Grid>().run->last = b.name(in);
+    }
+};
+
+template <>
+struct action<g::run_spacing> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.current<syntax::Grid>().run->spacings.push_back(b.pop_expr());
+    }
+};
+
+template <>
+struct action<g::run_start> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.current<syntax::Grid>().run->start = b.pop_expr();
     }
 };
 
@@ -594,14 +735,109 @@ struct action<g::member_start> : store_name<&syntax::MemberDecl::start> {};
 template <>
 struct action<g::member_end> : store_name<&syntax::MemberDecl::end> {};
 
+/// The options (section, hinges, tags) of the member statement being read.
+syntax::MemberOptions& options_of(syntax::Statement& s) {
+    return std::visit(
+        [](auto& node) -> syntax::MemberOptions& {
+            if constexpr (requires { node.options; }) {
+                return node.options;
+            } else {
+                throw std::logic_error("member options outside a member statement");
+            }
+        },
+        s.node);
+}
+
 template <>
-struct action<g::member_section> : store_name<&syntax::MemberDecl::section> {};
+struct action<g::member_section> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        options_of(*b.statement).section = b.name(in);
+    }
+};
 
 template <>
 struct action<g::hinge_node> {
     template <typename Input>
     static void apply(const Input& in, Builder& b) {
-        b.current<syntax::MemberDecl>().hinges.push_back(b.name(in));
+        options_of(*b.statement).hinges.push_back(b.name(in));
+    }
+};
+
+template <>
+struct action<g::tag_name> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        options_of(*b.statement).tags.push_back(b.name(in));
+    }
+};
+
+template <>
+struct action<g::columns_begin> : begin_statement<syntax::ColumnsDecl> {};
+template <>
+struct action<g::beams_begin> : begin_statement<syntax::BeamsDecl> {};
+
+/// The line ranges of the `columns` or `beams` statement being read.
+std::vector<syntax::LineRange>& ranges_of(syntax::Statement& s) {
+    if (auto* c = std::get_if<syntax::ColumnsDecl>(&s.node))
+        return c->lines;
+    return std::get<syntax::BeamsDecl>(s.node).levels;
+}
+
+template <>
+struct action<g::range_first> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        ranges_of(*b.statement).push_back(syntax::LineRange{b.name(in), std::nullopt});
+    }
+};
+
+template <>
+struct action<g::range_last> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        ranges_of(*b.statement).back().last = b.name(in);
+    }
+};
+
+template <auto Which>
+struct store_span_end {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        if (auto* c = std::get_if<syntax::ColumnsDecl>(&b.statement->node)) {
+            c->*(Which ? &syntax::ColumnsDecl::to : &syntax::ColumnsDecl::from) = b.name(in);
+        } else {
+            auto& beams = b.current<syntax::BeamsDecl>();
+            beams.*(Which ? &syntax::BeamsDecl::to : &syntax::BeamsDecl::from) = b.name(in);
+        }
+    }
+};
+template <>
+struct action<g::span_from> : store_span_end<false> {};
+template <>
+struct action<g::span_to> : store_span_end<true> {};
+
+template <>
+struct action<g::rafters_begin> : begin_statement<syntax::RaftersDecl> {};
+template <>
+struct action<g::rafter_run> : store_name<&syntax::RaftersDecl::run> {};
+template <>
+struct action<g::rafter_point> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::RaftersDecl>().points.push_back(b.name(in));
+    }
+};
+
+template <>
+struct action<g::group_begin> : begin_statement<syntax::GroupDecl> {};
+template <>
+struct action<g::group_name> : store_name<&syntax::GroupDecl::name> {};
+template <>
+struct action<g::group_member> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::GroupDecl>().members.push_back(b.name(in));
     }
 };
 

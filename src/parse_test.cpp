@@ -76,12 +76,12 @@ TEST_CASE("units attach to numbers; arithmetic keeps precedence and parentheses"
 TEST_CASE("syntax errors: exact message, line and column") {
     using Catch::Matchers::Equals;
     CHECK(first_message("model \"no end\n") ==
-          "input:1:14: error: expected '\"' to close the title on this line, found the end of the "
+          "input:1:14: error: expected '\"' to close the text on this line, found the end of the "
           "line");
     CHECK(first_message("nod N1 at x = 0 ft, y = 0 ft\n") ==
-          "input:1:1: error: expected a statement (model, report, grid, node, material, section, "
-          "member, "
-          "support or case), found 'nod'; did you mean 'node'?");
+          "input:1:1: error: expected a statement (model, use, let, report, grid, node, material, "
+          "section, member, columns, beams, rafters, group, support or case), found 'nod'; did "
+          "you mean 'node'?");
     CHECK(first_message("node N2 at x = 0 ft y = 3 ft\n") ==
           "input:1:21: error: expected the end of the statement (a new line or ';'), found 'y' (a "
           "reserved word)");

@@ -54,18 +54,63 @@ std::string show_length(const Model& model, double metres) {
     return fmt::format("{:.{}f} {}", u.from_si(metres), u.decimals, u.name);
 }
 
-namespace {
+void Constants::add(const syntax::LetDecl& decl, Diagnostics& diagnostics) {
+    if (find_unit(decl.name.text) != nullptr) {
+        diagnostics.error(decl.name.where,
+                          fmt::format("'{}' is a unit; choose another name", decl.name.text));
+        return;
+    }
+    if (names_.add(decl.name, diagnostics))
+        entries_.push_back(Entry{&decl, Entry::State::waiting, std::nullopt});
+}
 
-constexpr double kMinMemberLength = 1e-6;  // m
+std::optional<Quantity> Constants::constant(const syntax::Expr& ref, Diagnostics& diagnostics) {
+    auto i = names_.find_quietly(ref.literal);
+    if (!i) {
+        diagnostics.error(ref.where, fmt::format("unknown value '{}'{}", ref.literal,
+                                                 did_you_mean(ref.literal, names_.names())));
+        return std::nullopt;
+    }
+    Entry& entry = entries_[*i];
+    if (entry.state == Entry::State::evaluating) {
+        auto first = std::find(evaluating_.begin(), evaluating_.end(), ref.literal);
+        std::vector<std::string> chain(first, evaluating_.end());
+        chain.push_back(ref.literal);
+        diagnostics.error(ref.where, fmt::format("value '{}' depends on itself: {}", ref.literal,
+                                                 fmt::join(chain, " -> ")));
+        return std::nullopt;
+    }
+    return value_of(entry, diagnostics);
+}
+
+std::optional<Quantity> Constants::value_of(Entry& entry, Diagnostics& diagnostics) {
+    if (entry.state == Entry::State::waiting) {
+        entry.state = Entry::State::evaluating;
+        evaluating_.push_back(entry.decl->name.text);
+        entry.value = evaluate(entry.decl->value, diagnostics, this);
+        evaluating_.pop_back();
+        entry.state = Entry::State::done;
+    }
+    return entry.value;
+}
+
+void Constants::evaluate_all(Diagnostics& diagnostics) {
+    for (Entry& entry : entries_)
+        value_of(entry, diagnostics);
+}
+
+namespace {
 
 /// The statements of all trees, grouped by kind, in source order.
 struct Collected {
     std::vector<const syntax::Statement*> titles, report_units;
     std::vector<const syntax::Grid*> grids;
+    std::vector<const syntax::LetDecl*> lets;
     std::vector<const syntax::NodeDecl*> nodes;
     std::vector<const syntax::MaterialDecl*> materials;
     std::vector<const syntax::SectionDecl*> sections;
-    std::vector<const syntax::MemberDecl*> members;
+    std::vector<const syntax::Statement*> members;  ///< member, columns, beams and rafters
+    std::vector<const syntax::GroupDecl*> groups;
     std::vector<const syntax::SupportDecl*> supports;
     std::vector<const syntax::CaseDecl*> cases;
     SourceRange file_start;
@@ -73,8 +118,9 @@ struct Collected {
 
 Collected collect(std::span<const syntax::Tree> trees) {
     Collected c;
+    // The model file is the last tree: every file comes after the files it uses.
     if (!trees.empty())
-        c.file_start = SourceRange{trees[0].file, {0, 1, 1}, {0, 1, 1}};
+        c.file_start = SourceRange{trees.back().file, {0, 1, 1}, {0, 1, 1}};
     for (const syntax::Tree& tree : trees) {
         for (const syntax::Statement& s : tree.statements) {
             std::visit(
@@ -92,8 +138,12 @@ Collected collect(std::span<const syntax::Tree> trees) {
                         c.materials.push_back(&node);
                     if constexpr (std::is_same_v<T, syntax::SectionDecl>)
                         c.sections.push_back(&node);
-                    if constexpr (std::is_same_v<T, syntax::MemberDecl>)
-                        c.members.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::LetDecl>)
+                        c.lets.push_back(&node);
+                    if constexpr (requires { node.options; })
+                        c.members.push_back(&s);
+                    if constexpr (std::is_same_v<T, syntax::GroupDecl>)
+                        c.groups.push_back(&node);
                     if constexpr (std::is_same_v<T, syntax::SupportDecl>)
                         c.supports.push_back(&node);
                     if constexpr (std::is_same_v<T, syntax::CaseDecl>)
@@ -161,35 +211,12 @@ void resolve_report_units(Resolver& r, const Collected& c) {
         r.model.units.moment = DisplayUnit{moment->first, moment->second, 3};
 }
 
-/// Grid lines by name: which axis and where.
-struct GridRef {
-    syntax::Axis axis;
-    double position;
-    bool valid;  ///< false if its position had an error (already reported)
-};
-
-std::vector<GridRef> resolve_grids(Resolver& r, const Collected& c) {
-    std::vector<GridRef> refs;
-    for (const syntax::Grid* grid : c.grids) {
-        for (const syntax::Grid::Line& line : grid->lines) {
-            auto v = r.value(line.at, expect::length);
-            if (v && !r.within(line.at, *v, kMaxCoordinate, "coordinate"))
-                v.reset();
-            if (!r.grid_lines.add(line.name, r.diagnostics))
-                continue;
-            GridLine g{line.name.text, v.value_or(0.0), line.name.where};
-            (grid->axis == syntax::Axis::x ? r.model.grid_x : r.model.grid_y).push_back(g);
-            refs.push_back(GridRef{grid->axis, g.position, v.has_value()});
-        }
-    }
-    return refs;
-}
-
 /// One coordinate of a node: `x = 12 ft` or a grid line name. Returns false
 /// if the coordinate is not known because of an error (reported once, where it is).
 bool resolve_coordinate(Resolver& r, const syntax::NodeDecl& decl,
-                        const syntax::NodeDecl::Coordinate& c, const std::vector<GridRef>& grid,
+                        const syntax::NodeDecl::Coordinate& c,
                         std::array<std::optional<double>, 2>& xy) {
+    const std::vector<GridRef>& grid = r.grid;
     syntax::Axis axis;
     std::optional<double> v;
     if (c.grid_line) {
@@ -216,13 +243,12 @@ bool resolve_coordinate(Resolver& r, const syntax::NodeDecl& decl,
     return v.has_value();
 }
 
-void resolve_nodes(Resolver& r, const Collected& c, const std::vector<GridRef>& grid) {
-    std::map<std::pair<long long, long long>, std::size_t> occupied;
+void resolve_nodes(Resolver& r, const Collected& c) {
     for (const syntax::NodeDecl* decl : c.nodes) {
         std::array<std::optional<double>, 2> xy;
         bool placed = true;
         for (const auto& coordinate : decl->coordinates) {
-            placed = resolve_coordinate(r, *decl, coordinate, grid, xy) && placed;
+            placed = resolve_coordinate(r, *decl, coordinate, xy) && placed;
         }
         if (!r.nodes.add(decl->name, r.diagnostics))
             continue;
@@ -236,19 +262,25 @@ void resolve_nodes(Resolver& r, const Collected& c, const std::vector<GridRef>& 
         placed = placed && complete;
         r.node_placed.push_back(placed);
         Node n{decl->name.text, xy[0].value_or(0.0), xy[1].value_or(0.0), decl->name.where};
-        // Coordinates are bounded, so rounding to micrometres cannot overflow.
-        auto key = std::pair{std::llround(n.x * 1e6), std::llround(n.y * 1e6)};
-        auto [it, fresh] = occupied.emplace(key, r.model.nodes.size());
+        auto [it, fresh] =
+            r.node_at.emplace(place_key(n.x, n.y), make_id<NodeId>(r.model.nodes.size()));
         if (!fresh && placed) {
+            const Node& other = r.model.nodes[at(it->second)];
             Diagnostic& d = r.diagnostics.warning(
                 decl->name.where,
                 fmt::format("node '{}' is at the same place as node '{}'; they are not connected",
-                            n.name, r.model.nodes[it->second].name));
-            d.note(r.model.nodes[it->second].where, "that node is here");
+                            n.name, other.name));
+            d.note(other.where, "that node is here");
         }
         r.model.nodes.push_back(std::move(n));
     }
     r.node_used.assign(r.model.nodes.size(), 0);
+}
+
+void resolve_constants(Resolver& r, const Collected& c) {
+    for (const syntax::LetDecl* decl : c.lets)
+        r.constants.add(*decl, r.diagnostics);
+    r.constants.evaluate_all(r.diagnostics);
 }
 
 /// Reads `key = value` properties against a list of what is allowed.
@@ -386,70 +418,6 @@ void resolve_sections(Resolver& r, const Collected& c) {
 namespace {
 using namespace resolve_detail;
 
-void resolve_hinges(Resolver& r, const syntax::MemberDecl& decl, Member& m) {
-    for (const syntax::Name& h : decl.hinges) {
-        auto node = r.lookup<NodeId>(r.nodes, h);
-        if (!node)
-            continue;
-        if (*node == m.start) {
-            m.hinge_start = true;
-        } else if (*node == m.end) {
-            m.hinge_end = true;
-        } else {
-            r.diagnostics.error(
-                h.where, fmt::format("node '{}' is not an end of member '{}'", h.text, m.name));
-        }
-    }
-}
-
-bool check_member_length(Resolver& r, const syntax::MemberDecl& decl, const Member& m) {
-    const Node& a = r.model.nodes[at(m.start)];
-    const Node& b = r.model.nodes[at(m.end)];
-    if (m.start == m.end) {
-        r.diagnostics.error(decl.end.where, fmt::format("member '{}' starts and ends at node '{}'",
-                                                        m.name, a.name));
-        return false;
-    }
-    if (std::hypot(b.x - a.x, b.y - a.y) < kMinMemberLength) {
-        r.diagnostics.error(
-            decl.name.where,
-            fmt::format("member '{}' has zero length: nodes '{}' and '{}' are at the same place",
-                        m.name, a.name, b.name));
-        return false;
-    }
-    return true;
-}
-
-void resolve_members(Resolver& r, const Collected& c) {
-    for (const syntax::MemberDecl* decl : c.members) {
-        auto start = r.lookup<NodeId>(r.nodes, decl->start);
-        auto end = r.lookup<NodeId>(r.nodes, decl->end);
-        auto section = r.lookup<SectionId>(r.sections, decl->section);
-        if (!r.members.add(decl->name, r.diagnostics))
-            continue;
-        Member m{decl->name.text,
-                 start.value_or(NodeId{}),
-                 end.value_or(NodeId{}),
-                 section.value_or(SectionId{}),
-                 false,
-                 false,
-                 decl->name.where};
-        bool valid = start && end && section;
-        if (start && end) {
-            r.node_used[at(*start)] = r.node_used[at(*end)] = 1;
-            resolve_hinges(r, *decl, m);
-            if (r.node_placed[at(*start)] && r.node_placed[at(*end)]) {
-                valid = check_member_length(r, *decl, m) && valid;
-            } else {
-                valid = false;
-            }
-        }
-        r.member_valid.push_back(valid);
-        r.member_section_known.push_back(section.has_value());
-        r.model.members.push_back(std::move(m));
-    }
-}
-
 std::array<Restraint, 3> restraints_of(syntax::SupportDecl::Kind kind, syntax::Axis roller_free) {
     using K = Restraint::Kind;
     Restraint fixed{K::fixed, 0.0}, free{K::free, 0.0};
@@ -521,16 +489,42 @@ Support::Kind support_kind(const syntax::SupportDecl& decl) {
     return Support::Kind::fixed;
 }
 
+/// The nodes a support names: nodes, intersections, or grid lines (every
+/// node of a member on the line).
+std::vector<std::pair<NodeId, syntax::Name>> support_nodes(Resolver& r,
+                                                           const std::vector<syntax::Name>& names) {
+    std::vector<std::pair<NodeId, syntax::Name>> found;
+    for (const syntax::Name& name : names) {
+        auto line = r.grid_lines.find_quietly(name.text);
+        if (!line || r.nodes.find_quietly(name.text)) {
+            if (auto node = r.find_node(name))
+                found.emplace_back(*node, name);
+            continue;
+        }
+        const GridRef& g = r.grid[*line];
+        std::size_t before = found.size();
+        for (std::size_t i = 0; i < r.model.nodes.size(); ++i) {
+            const Node& n = r.model.nodes[i];
+            double place = g.axis == syntax::Axis::x ? n.x : n.y;
+            if (g.valid && r.node_used[i] && std::abs(place - g.position) <= 1e-6)
+                found.emplace_back(make_id<NodeId>(i), name);
+        }
+        if (g.valid && found.size() == before) {
+            r.diagnostics.error(name.where,
+                                fmt::format("no member has a node on grid line '{}'", name.text));
+        }
+    }
+    return found;
+}
+
 void resolve_supports(Resolver& r, const Collected& c) {
-    std::vector<std::size_t> support_of(r.model.nodes.size(), SIZE_MAX);
+    std::vector<std::size_t> support_of;
     for (const syntax::SupportDecl* decl : c.supports) {
         auto restraint = restraints_of(decl->kind, decl->roller_free);
         resolve_springs(r, *decl, restraint);
-        for (const syntax::Name& name : decl->nodes) {
-            auto node = r.lookup<NodeId>(r.nodes, name);
-            if (!node)
-                continue;
-            std::size_t& existing = support_of[at(*node)];
+        for (const auto& [node, name] : support_nodes(r, decl->nodes)) {
+            support_of.resize(r.model.nodes.size(), SIZE_MAX);  // supports may add intersections
+            std::size_t& existing = support_of[at(node)];
             if (existing != SIZE_MAX) {
                 Diagnostic& d = r.diagnostics.error(
                     name.where, fmt::format("node '{}' already has a support", name.text));
@@ -538,7 +532,7 @@ void resolve_supports(Resolver& r, const Collected& c) {
                 continue;
             }
             existing = r.model.supports.size();
-            r.model.supports.push_back(Support{*node, support_kind(*decl), restraint, name.where});
+            r.model.supports.push_back(Support{node, support_kind(*decl), restraint, name.where});
         }
     }
 }
@@ -568,11 +562,13 @@ Model resolve(std::span<const syntax::Tree> trees, Diagnostics& diagnostics) {
     Collected c = collect(trees);
     resolve_title(r, c);
     resolve_report_units(r, c);
-    std::vector<GridRef> grid = resolve_grids(r, c);
-    resolve_nodes(r, c, grid);
+    resolve_constants(r, c);
+    resolve_grids(r, c.grids);
+    resolve_nodes(r, c);
     resolve_materials(r, c);
     resolve_sections(r, c);
-    resolve_members(r, c);
+    resolve_member_statements(r, c.members);
+    resolve_groups(r, c.groups);
     resolve_supports(r, c);
     resolve_cases(r, c.cases);
     check_whole_model(r, c);

@@ -2,6 +2,8 @@
 // (resolve.cpp for the structure, resolve_loads.cpp for load cases).
 #pragma once
 
+#include <cmath>
+#include <map>
 #include <optional>
 #include <string>
 #include <unordered_map>
@@ -25,6 +27,8 @@ class NameTable {
     std::optional<std::size_t> find(const syntax::Name& name, Diagnostics& diagnostics) const;
     std::optional<std::size_t> find_quietly(const std::string& name) const;
     std::size_t size() const { return names_.size(); }
+    const std::vector<std::string>& names() const { return names_; }
+    SourceRange where(std::size_t i) const { return where_[i]; }
 
   private:
     const char* what_;
@@ -38,10 +42,40 @@ class NameTable {
 inline constexpr double kMaxCoordinate = 1e5;  // m: a frame within 100 km of its origin
 inline constexpr double kMaxMagnitude = 1e15;  // any other SI value
 
+/// The model's `let` values, evaluated when first used, so their order in the
+/// files does not matter; a value defined by itself is reported with its chain.
+class Constants : public Scope {
+  public:
+    void add(const syntax::LetDecl& decl, Diagnostics& diagnostics);
+    std::optional<Quantity> constant(const syntax::Expr& ref, Diagnostics& diagnostics) override;
+    /// Evaluates every value, so an unused value's error is reported too.
+    void evaluate_all(Diagnostics& diagnostics);
+
+  private:
+    struct Entry {
+        const syntax::LetDecl* decl;
+        enum class State { waiting, evaluating, done } state = State::waiting;
+        std::optional<Quantity> value;
+    };
+    std::optional<Quantity> value_of(Entry& entry, Diagnostics& diagnostics);
+    NameTable names_{"value"};
+    std::vector<Entry> entries_;
+    std::vector<std::string> evaluating_;  ///< the chain being evaluated, for cycle messages
+};
+
+/// A grid line: which axis and where.
+struct GridRef {
+    syntax::Axis axis;
+    double position;
+    bool valid;  ///< false if its position had an error (already reported)
+};
+
 struct Resolver {
     explicit Resolver(Diagnostics& d) : diagnostics(d) {}
 
     Diagnostics& diagnostics;
+    Constants constants;
+    std::vector<GridRef> grid;  ///< parallel to the grid_lines table
     Model model;
     NameTable grid_lines{"grid line"};
     NameTable nodes{"node"};
@@ -49,6 +83,17 @@ struct Resolver {
     NameTable sections{"section"};
     NameTable members{"member"};
     NameTable cases{"load case"};
+    NameTable groups{"group"};
+    /// A group: its statement (none for a group made only by tags) and members.
+    struct Group {
+        const syntax::GroupDecl* decl = nullptr;
+        std::vector<MemberId> members;
+        enum class State { waiting, expanding, done } state = State::waiting;
+    };
+    std::vector<Group> group_entries;                           ///< parallel to `groups`
+    std::vector<std::pair<syntax::Name, MemberId>> tagged;      ///< `tag` clauses, for groups
+    std::unordered_map<std::string, NodeId> node_aliases;       ///< intersections at declared nodes
+    std::map<std::pair<long long, long long>, NodeId> node_at;  ///< nodes by place (micrometres)
     std::vector<char> node_used;               ///< per node: some member ends there
     std::vector<char> node_placed;             ///< per node: both coordinates known (no error)
     std::vector<char> member_valid;            ///< per member: nodes, section and length all good
@@ -56,8 +101,16 @@ struct Resolver {
     std::vector<char> section_material_known;  ///< per section: its material resolved
 
     std::optional<double> value(const syntax::Expr& e, const Expected& expected) {
-        return evaluate_as(e, expected, diagnostics);
+        return evaluate_as(e, expected, diagnostics, &constants);
     }
+    /// A node by name: a declared node, or the intersection of a column line and
+    /// a level (`A.eave`), which is created when first named. Reports unknown names.
+    std::optional<NodeId> find_node(const syntax::Name& name);
+    /// The node at (x, y), adding one named `name` if there is none there.
+    NodeId node_at_place(const std::string& name, double x, double y, SourceRange where);
+    /// The members a reference names: a member, a group, or a pattern with '*'.
+    /// Reports a reference that names nothing.
+    std::optional<std::vector<MemberId>> find_members(const syntax::Name& ref);
     /// True if |v| <= limit; reports "... is out of range" otherwise.
     bool within(const syntax::Expr& e, double v, double limit, const char* what);
     template <typename Id>
@@ -68,6 +121,21 @@ struct Resolver {
         return make_id<Id>(*i);
     }
 };
+
+/// Key of a place in the node_at map.
+inline std::pair<long long, long long> place_key(double x, double y) {
+    // Coordinates are bounded, so rounding to micrometres cannot overflow.
+    return {std::llround(x * 1e6), std::llround(y * 1e6)};
+}
+
+/// Reads the grid statements into r.model.grid_x, grid_y and r.grid.
+void resolve_grids(Resolver& r, const std::vector<const syntax::Grid*>& grids);
+
+/// Creates the members of member, columns, beams and rafters statements, in order.
+void resolve_member_statements(Resolver& r, const std::vector<const syntax::Statement*>& stmts);
+
+/// Reads group statements (after every member exists).
+void resolve_groups(Resolver& r, const std::vector<const syntax::GroupDecl*>& groups);
 
 /// Resolves the `case` statements of the trees into model.cases.
 void resolve_cases(Resolver& r, const std::vector<const syntax::CaseDecl*>& cases);

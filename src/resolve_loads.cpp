@@ -151,10 +151,23 @@ class LoadResolver {
     /// left out, so its error is not echoed by every load on it.
     std::vector<MemberId> members() {
         std::vector<MemberId> ids;
+        std::vector<char> listed(r_.model.members.size(), 0);
         for (const syntax::Name& name : decl_.targets) {
-            auto id = r_.lookup<MemberId>(r_.members, name);
-            if (id && r_.member_valid[at(*id)])
-                ids.push_back(*id);
+            auto found = r_.find_members(name);
+            if (!found)
+                continue;
+            for (MemberId id : *found) {
+                if (listed[at(id)]) {
+                    r_.diagnostics.warning(name.where,
+                                           fmt::format("member '{}' is listed twice; it takes "
+                                                       "this load once",
+                                                       r_.model.members[at(id)].name));
+                    continue;
+                }
+                listed[at(id)] = 1;
+                if (r_.member_valid[at(id)])
+                    ids.push_back(id);
+            }
         }
         return ids;
     }
@@ -162,7 +175,7 @@ class LoadResolver {
     std::vector<NodeId> nodes() {
         std::vector<NodeId> ids;
         for (const syntax::Name& name : decl_.targets) {
-            if (auto id = r_.lookup<NodeId>(r_.nodes, name))
+            if (auto id = r_.find_node(name))
                 ids.push_back(*id);
         }
         return ids;

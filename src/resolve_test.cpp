@@ -135,7 +135,7 @@ TEST_CASE("resolve errors: exact message, line and column") {
 
 TEST_CASE("load errors: exact message, line and column") {
     CHECK(first_message(with("case D dead {\n  uniform 1 kip/ft down on B9\n}\n")) ==
-          "input:10:28: error: unknown member 'B9'; did you mean 'B1'?");
+          "input:10:28: error: unknown member or group 'B9'; did you mean 'B1'?");
     CHECK(
         first_message(with("case D dead {\n  uniform 1 kip down on B1\n}\n")) ==
         "input:10:11: error: expected a force per length such as 0.5 kip/ft, found 1 kip, a force");

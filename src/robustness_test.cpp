@@ -29,10 +29,24 @@ TEST_CASE("Windows line endings and a UTF-8 byte order mark are accepted") {
 }
 
 TEST_CASE("NaN and infinity are not numbers the language reads") {
+    // Words in a value are names of constants; these are not defined.
     CHECK(first_message(std::string(kBaseModel) + "node N3 at x = nan, y = 0 ft\n") ==
-          "input:9:16: error: expected a value such as 12 ft, found 'nan'");
+          "input:9:16: error: unknown value 'nan'");
     CHECK(first_message(std::string(kBaseModel) + "node N3 at x = inf ft, y = 0 ft\n") ==
-          "input:9:16: error: expected a value such as 12 ft, found 'inf'");
+          "input:9:20: error: expected the end of the statement (a new line or ';'), found 'ft'");
+}
+
+TEST_CASE("deep powers and calls are refused with a located error") {
+    std::string powers;
+    std::string calls;
+    for (int i = 0; i < 50000; ++i) {
+        powers += "2^";
+        calls += "abs(";
+    }
+    CHECK(first_message(std::string(kBaseModel) + "let a = " + powers + "2\n") ==
+          "input:9:210: error: expressions nest too deeply (more than 100 levels)");
+    CHECK(first_message(std::string(kBaseModel) + "let a = " + calls + "2\n") ==
+          "input:9:409: error: expressions nest too deeply (more than 100 levels)");
 }
 
 TEST_CASE("deep nesting is refused with a located error, not a stack overflow") {

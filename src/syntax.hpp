@@ -27,15 +27,28 @@ struct UnitFactor {
     SourceRange where;
 };
 
-/// An arithmetic expression whose leaves are numbers with optional units.
+/// An arithmetic expression whose leaves are numbers with optional units and
+/// names of constants.
 struct Expr {
-    enum class Kind { number, negate, add, subtract, multiply, divide, group };
+    enum class Kind {
+        number,
+        constant,  ///< a named constant (`let`); `literal` holds the name
+        call,      ///< min, max, abs, sqrt; `literal` holds the function, `args` the arguments
+        negate,
+        add,
+        subtract,
+        multiply,
+        divide,
+        power,
+        group
+    };
     Kind kind = Kind::number;
-    std::string literal;             ///< the number as written (kind == number)
+    std::string literal;             ///< the number, constant or function as written
     double value = 0.0;              ///< the literal's value (kind == number)
     std::vector<UnitFactor> unit;    ///< the unit written after the number, if any
     std::optional<Name> bad_unit;    ///< a word after the number that is no unit
     std::unique_ptr<Expr> lhs, rhs;  ///< operands (rhs only for negate and group)
+    std::vector<Expr> args;          ///< arguments of a call
     SourceRange where;
 };
 
@@ -62,14 +75,38 @@ struct ReportUnits {
 
 enum class Axis { x, y };
 
-/// `grid x A = 0 ft, B = 24 ft`
+/// `grid x A = 0 ft, B = 24 ft`, or a run of lines named in sequence:
+/// `grid x A..F spacing 24 ft` (`from 10 ft` sets the first line's place).
 struct Grid {
     struct Line {
         Name name;
         Expr at;
     };
+    struct Run {
+        Name first;
+        Name last;
+        std::vector<Expr> spacings;  ///< one for every bay, or one for all
+        std::optional<Expr> start;   ///< where the first line is; 0 when not given
+    };
     Axis axis = Axis::x;
     std::vector<Line> lines;
+    std::optional<Run> run;
+};
+
+/// `let bay = 24 ft`
+struct LetDecl {
+    Name name;
+    Expr value;
+};
+
+/// `use materials` (a module of the standard library) or `use "site.firn"`
+/// (a file, relative to the file that uses it); `use outside "../x.firn"`
+/// allows a file outside the model's folder.
+struct UseDecl {
+    std::optional<Name> module;
+    std::string path;  ///< the file, when no module is named
+    SourceRange path_where;
+    bool outside = false;
 };
 
 /// `node N1 at x = 0 ft, y = 12 ft` or `node N2 at A, eave`
@@ -100,13 +137,58 @@ struct SectionDecl {
     std::vector<Property> properties;
 };
 
+/// What every member statement ends with: `section girder hinge at N2 tag roof`.
+struct MemberOptions {
+    Name section;
+    std::vector<Name> hinges;
+    std::vector<Name> tags;  ///< groups the members join
+};
+
 /// `member B1 from N2 to N3 section girder hinge at N2`
 struct MemberDecl {
     Name name;
     Name start;
     Name end;
-    Name section;
-    std::vector<Name> hinges;
+    MemberOptions options;
+};
+
+/// A grid line, or a run of lines in position order: `A`, `A..D`.
+struct LineRange {
+    Name first;
+    std::optional<Name> last;
+};
+
+/// `columns on A, C..E from base to roof section post`: one member between each
+/// pair of adjacent levels on every line, named `A.base.floor`.
+struct ColumnsDecl {
+    std::vector<LineRange> lines;
+    Name from;  ///< lowest level
+    Name to;    ///< highest level
+    MemberOptions options;
+};
+
+/// `beams along floor, roof from A to D section girder`: one member between each
+/// pair of adjacent column lines on every level, named `floor.A.B`.
+struct BeamsDecl {
+    std::vector<LineRange> levels;
+    Name from;
+    Name to;
+    MemberOptions options;
+};
+
+/// `rafters gable from A.eave to C.ridge to E.eave section rafter`: a sloped run
+/// through the points, split at every column line it crosses; members are named
+/// `gable.A.B`, and the nodes where it crosses a line `B.gable`.
+struct RaftersDecl {
+    Name run;
+    std::vector<Name> points;
+    MemberOptions options;
+};
+
+/// `group roof = eave.*, R1`
+struct GroupDecl {
+    Name name;
+    std::vector<Name> members;  ///< names, group names and patterns with '*'
 };
 
 /// `support fixed at N1, N4`, `support roller free y at N3`,
@@ -134,8 +216,8 @@ struct LoadDecl {
     SourceRange direction_where;
     bool projected = false;
     bool clockwise = false;
-    bool on_members = true;  ///< `on MEMBERS` (true) or `at NODES` (false)
-    std::vector<Name> targets;
+    bool on_members = true;        ///< `on MEMBERS` (true) or `at NODES` (false)
+    std::vector<Name> targets;     ///< nodes, or members, groups and patterns with '*'
     std::optional<Expr> from, to;  ///< part of a member
     std::optional<Expr> at;        ///< point and moment on a member
 };
@@ -151,7 +233,8 @@ struct CaseDecl {
 
 /// One statement of a model file and the source range it covers.
 struct Statement {
-    std::variant<ModelTitle, ReportUnits, Grid, NodeDecl, MaterialDecl, SectionDecl, MemberDecl,
+    std::variant<ModelTitle, ReportUnits, Grid, LetDecl, UseDecl, NodeDecl, MaterialDecl,
+                 SectionDecl, MemberDecl, ColumnsDecl, BeamsDecl, RaftersDecl, GroupDecl,
                  SupportDecl, CaseDecl>
         node;
     SourceRange where;

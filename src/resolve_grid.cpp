@@ -1,0 +1,526 @@
+// resolve_grid: grid lines (listed or in runs such as A..F), the nodes at their
+// intersections, and the statements that create members: `member`, and the
+// generators `columns`, `beams` and `rafters`.
+//
+// Generated members run left to right and bottom to top, and take their names
+// from the grid (`eave.A.B`, `A.base.floor`, `gable.B.C`), so a name does not
+// change when an unrelated line is added.
+#include <fmt/format.h>
+#include <algorithm>
+#include <cctype>
+#include <cmath>
+
+#include "resolve_internal.hpp"
+
+namespace firn::resolve_detail {
+namespace {
+
+constexpr double kMinMemberLength = 1e-6;  // m
+constexpr double kOnLine = 1e-6;           // m: a point this close to a line lies on it
+constexpr std::size_t kMaxRunLines = 10000;
+
+// ---------------------------------------------------------------- grid runs
+
+bool all_upper(std::string_view s) {
+    return !s.empty() &&
+           std::all_of(s.begin(), s.end(), [](char c) { return c >= 'A' && c <= 'Z'; });
+}
+
+/// Lettered lines skip I and O, which read as 1 and 0 on drawings (common practice).
+constexpr std::string_view kGridLetters = "ABCDEFGHJKLMNPQRSTUVWXYZ";
+
+/// The position of a lettered name in the sequence A..Z, AA..AZ, BA.. (I and O
+/// skipped), or nullopt if it uses I or O.
+std::optional<std::size_t> letter_index(std::string_view name) {
+    std::size_t index = 0;
+    for (char c : name) {
+        auto digit = kGridLetters.find(c);
+        if (digit == std::string_view::npos)
+            return std::nullopt;
+        index = index * kGridLetters.size() + digit + 1;
+        if (index > kMaxRunLines * 10)
+            return std::nullopt;
+    }
+    return index - 1;
+}
+
+std::string letter_name(std::size_t index) {
+    std::string name;
+    for (std::size_t n = index + 1; n > 0; n = (n - 1) / kGridLetters.size())
+        name.insert(name.begin(), kGridLetters[(n - 1) % kGridLetters.size()]);
+    return name;
+}
+
+/// Splits `L12` into ("L", 12); numbers with more than 9 digits are refused.
+std::optional<std::pair<std::string, long>> prefix_number(std::string_view name) {
+    std::size_t digits = name.size();
+    while (digits > 0 && name[digits - 1] >= '0' && name[digits - 1] <= '9')
+        --digits;
+    if (digits == name.size() || name.size() - digits > 9)
+        return std::nullopt;
+    return std::pair{std::string(name.substr(0, digits)),
+                     std::stol(std::string(name.substr(digits)))};
+}
+
+/// The names of the lines from `first` to `last`, or nullopt after an error.
+std::optional<std::vector<std::string>> run_names(Resolver& r, const syntax::Grid::Run& run) {
+    const std::string& a = run.first.text;
+    const std::string& b = run.last.text;
+    std::vector<std::string> names;
+    SourceRange where{run.first.where.file, run.first.where.begin, run.last.where.end};
+    if (all_upper(a) && all_upper(b)) {
+        auto i = letter_index(a), j = letter_index(b);
+        if (!i || !j) {
+            r.diagnostics.error(where,
+                                "lettered grid lines skip I and O (they read as 1 and 0); "
+                                "start and end the run on other letters");
+            return std::nullopt;
+        }
+        for (std::size_t k = *i; k <= *j && names.size() <= kMaxRunLines; ++k)
+            names.push_back(letter_name(k));
+    } else if (auto pa = prefix_number(a), pb = prefix_number(b);
+               pa && pb && pa->first == pb->first) {
+        for (long k = pa->second; k <= pb->second && names.size() <= kMaxRunLines; ++k)
+            names.push_back(fmt::format("{}{}", pa->first, k));
+    } else {
+        r.diagnostics.error(where,
+                            "a run of grid lines goes from letter to letter (A..F), number "
+                            "to number (1..9) or prefix and number to the same prefix "
+                            "(L1..L4)");
+        return std::nullopt;
+    }
+    if (names.size() < 2 || names.size() > kMaxRunLines) {
+        r.diagnostics.error(where, names.size() < 2
+                                       ? fmt::format("the run {}..{} must go forwards and name "
+                                                     "at least two lines",
+                                                     a, b)
+                                       : fmt::format("a run has at most {} lines", kMaxRunLines));
+        return std::nullopt;
+    }
+    return names;
+}
+
+/// Places of the lines of a run from its spacings, or nullopt after an error.
+std::optional<std::vector<double>> run_places(Resolver& r, const syntax::Grid::Run& run,
+                                              std::size_t lines) {
+    std::size_t bays = lines - 1;
+    if (run.spacings.size() != 1 && run.spacings.size() != bays) {
+        r.diagnostics.error(
+            run.spacings[0].where,
+            fmt::format("grid lines {}..{} make {} bays: give one spacing for "
+                        "all of them or {} spacings, found {}",
+                        run.first.text, run.last.text, bays, bays, run.spacings.size()));
+        return std::nullopt;
+    }
+    double place = 0.0;
+    if (run.start) {
+        auto v = r.value(*run.start, expect::length);
+        if (!v || !r.within(*run.start, *v, kMaxCoordinate, "coordinate"))
+            return std::nullopt;
+        place = *v;
+    }
+    std::vector<double> spacing;
+    for (const syntax::Expr& e : run.spacings) {
+        auto v = r.value(e, expect::length);
+        if (v && !(*v > 0.0)) {
+            r.diagnostics.error(e.where, "a spacing must be greater than zero");
+            v.reset();
+        }
+        if (!v || !r.within(e, *v, kMaxCoordinate, "spacing"))
+            return std::nullopt;
+        spacing.push_back(*v);
+    }
+    std::vector<double> places{place};
+    for (std::size_t k = 0; k < bays; ++k) {
+        place += spacing[spacing.size() == 1 ? 0 : k];
+        places.push_back(place);
+    }
+    if (std::abs(place) > kMaxCoordinate) {
+        r.diagnostics.error(
+            run.spacings.back().where,
+            fmt::format("the run's last line is out of range (beyond {:g} m)", kMaxCoordinate));
+        return std::nullopt;
+    }
+    return places;
+}
+
+void add_grid_line(Resolver& r, syntax::Axis axis, const syntax::Name& name,
+                   std::optional<double> place) {
+    if (!r.grid_lines.add(name, r.diagnostics))
+        return;
+    GridLine g{name.text, place.value_or(0.0), name.where};
+    (axis == syntax::Axis::x ? r.model.grid_x : r.model.grid_y).push_back(g);
+    r.grid.push_back(GridRef{axis, g.position, place.has_value()});
+}
+
+void resolve_run(Resolver& r, const syntax::Grid& grid) {
+    const syntax::Grid::Run& run = *grid.run;
+    auto names = run_names(r, run);
+    if (!names)
+        return;
+    auto places = run_places(r, run, names->size());
+    SourceRange where{run.first.where.file, run.first.where.begin, run.last.where.end};
+    for (std::size_t k = 0; k < names->size(); ++k) {
+        add_grid_line(r, grid.axis, syntax::Name{(*names)[k], where},
+                      places ? std::optional((*places)[k]) : std::nullopt);
+    }
+}
+
+}  // namespace
+
+void resolve_grids(Resolver& r, const std::vector<const syntax::Grid*>& grids) {
+    for (const syntax::Grid* grid : grids) {
+        if (grid->run) {
+            resolve_run(r, *grid);
+            continue;
+        }
+        for (const syntax::Grid::Line& line : grid->lines) {
+            auto v = r.value(line.at, expect::length);
+            if (v && !r.within(line.at, *v, kMaxCoordinate, "coordinate"))
+                v.reset();
+            add_grid_line(r, grid->axis, line.name, v);
+        }
+    }
+}
+
+// ---------------------------------------------------------------- nodes
+
+namespace {
+
+/// The column line and level an intersection name such as `A.eave` joins.
+std::optional<std::pair<std::size_t, std::size_t>> intersection(const Resolver& r,
+                                                                const std::string& name) {
+    for (std::size_t dot = name.find('.'); dot != std::string::npos;
+         dot = name.find('.', dot + 1)) {
+        auto x = r.grid_lines.find_quietly(name.substr(0, dot));
+        auto y = r.grid_lines.find_quietly(name.substr(dot + 1));
+        if (x && y && r.grid[*x].axis == syntax::Axis::x && r.grid[*y].axis == syntax::Axis::y)
+            return std::pair{*x, *y};
+    }
+    return std::nullopt;
+}
+
+}  // namespace
+
+NodeId Resolver::node_at_place(const std::string& name, double x, double y, SourceRange where) {
+    auto [it, fresh] = node_at.emplace(place_key(x, y), make_id<NodeId>(model.nodes.size()));
+    if (!fresh) {
+        if (model.nodes[at(it->second)].name != name)
+            node_aliases.emplace(name, it->second);
+        return it->second;
+    }
+    nodes.add(syntax::Name{name, where}, diagnostics);
+    model.nodes.push_back(Node{name, x, y, where});
+    node_placed.push_back(1);
+    node_used.push_back(0);
+    return it->second;
+}
+
+std::optional<NodeId> Resolver::find_node(const syntax::Name& name) {
+    if (auto i = nodes.find_quietly(name.text))
+        return make_id<NodeId>(*i);
+    if (auto it = node_aliases.find(name.text); it != node_aliases.end())
+        return it->second;
+    if (auto lines = intersection(*this, name.text)) {
+        const GridRef& x = grid[lines->first];
+        const GridRef& y = grid[lines->second];
+        if (!x.valid || !y.valid)
+            return std::nullopt;  // the line's own error is reported
+        return node_at_place(name.text, x.position, y.position, name.where);
+    }
+    return lookup<NodeId>(nodes, name);  // reports it unknown
+}
+
+// ---------------------------------------------------------------- members
+
+namespace {
+
+/// A member a statement asks for, before it is added.
+struct NewMember {
+    std::string name;
+    NodeId start, end;
+    SourceRange where;
+};
+
+bool check_member_length(Resolver& r, const NewMember& m, SourceRange end_where) {
+    const Node& a = r.model.nodes[at(m.start)];
+    const Node& b = r.model.nodes[at(m.end)];
+    if (m.start == m.end) {
+        r.diagnostics.error(
+            end_where, fmt::format("member '{}' starts and ends at node '{}'", m.name, a.name));
+        return false;
+    }
+    if (std::hypot(b.x - a.x, b.y - a.y) < kMinMemberLength) {
+        r.diagnostics.error(
+            m.where,
+            fmt::format("member '{}' has zero length: nodes '{}' and '{}' are at the same place",
+                        m.name, a.name, b.name));
+        return false;
+    }
+    return true;
+}
+
+/// Adds the members of one statement with its section, hinges and tags.
+class MemberAdder {
+  public:
+    MemberAdder(Resolver& r, const syntax::MemberOptions& options)
+        : r_(r), options_(options), section_(r.lookup<SectionId>(r.sections, options.section)) {
+        for (const syntax::Name& h : options.hinges)
+            hinges_.push_back(r.find_node(h));
+        hinge_used_.assign(hinges_.size(), 0);
+    }
+
+    /// `placed`: both nodes are known and placed (otherwise the member is kept
+    /// but marked invalid, its error already reported).
+    void add(const NewMember& m, bool placed, SourceRange end_where) {
+        all_placed_ = all_placed_ && placed;
+        if (!r_.members.add(syntax::Name{m.name, m.where}, r_.diagnostics))
+            return;
+        Member member{m.name, m.start, m.end,  section_.value_or(SectionId{}),
+                      false,  false,   m.where};
+        bool valid = section_.has_value() && placed;
+        if (placed) {
+            r_.node_used[at(m.start)] = r_.node_used[at(m.end)] = 1;
+            valid = check_member_length(r_, m, end_where) && valid;
+            set_hinges(member);
+        }
+        MemberId id = make_id<MemberId>(r_.model.members.size());
+        for (const syntax::Name& tag : options_.tags)
+            r_.tagged.emplace_back(tag, id);
+        r_.member_valid.push_back(valid);
+        r_.member_section_known.push_back(section_.has_value());
+        r_.model.members.push_back(std::move(member));
+    }
+
+    /// Reports a hinge at a node where no member of the statement ends (unless
+    /// a member's nodes had errors: the hinge may be right and the node wrong).
+    void finish(const char* what) {
+        if (!all_placed_)
+            return;
+        for (std::size_t i = 0; i < hinges_.size(); ++i) {
+            if (hinges_[i] && !hinge_used_[i]) {
+                r_.diagnostics.error(
+                    options_.hinges[i].where,
+                    fmt::format("node '{}' is not an end of {}", options_.hinges[i].text, what));
+            }
+        }
+    }
+
+  private:
+    void set_hinges(Member& m) {
+        for (std::size_t i = 0; i < hinges_.size(); ++i) {
+            if (hinges_[i] == m.start || hinges_[i] == m.end) {
+                m.hinge_start = m.hinge_start || hinges_[i] == m.start;
+                m.hinge_end = m.hinge_end || hinges_[i] == m.end;
+                hinge_used_[i] = 1;
+            }
+        }
+    }
+
+    Resolver& r_;
+    const syntax::MemberOptions& options_;
+    std::optional<SectionId> section_;
+    std::vector<std::optional<NodeId>> hinges_;
+    std::vector<char> hinge_used_;
+    bool all_placed_ = true;
+};
+
+bool placed(const Resolver& r, std::optional<NodeId> n) {
+    return n && r.node_placed[at(*n)];
+}
+
+void resolve_member(Resolver& r, const syntax::MemberDecl& decl) {
+    auto start = r.find_node(decl.start);
+    auto end = r.find_node(decl.end);
+    MemberAdder adder(r, decl.options);
+    NewMember m{decl.name.text, start.value_or(NodeId{}), end.value_or(NodeId{}), decl.name.where};
+    adder.add(m, placed(r, start) && placed(r, end), decl.end.where);
+    adder.finish(fmt::format("member '{}'", decl.name.text).c_str());
+}
+
+/// The grid line `name` on `axis`, or nullopt after an error.
+std::optional<std::size_t> grid_line_on(Resolver& r, const syntax::Name& name, syntax::Axis axis) {
+    auto i = r.grid_lines.find(name, r.diagnostics);
+    if (!i)
+        return std::nullopt;
+    if (r.grid[*i].axis != axis) {
+        r.diagnostics.error(name.where,
+                            fmt::format("'{}' is a {}, not a {}", name.text,
+                                        axis == syntax::Axis::x ? "level" : "column line",
+                                        axis == syntax::Axis::x ? "column line" : "level"));
+        return std::nullopt;
+    }
+    if (!r.grid[*i].valid)
+        return std::nullopt;
+    return i;
+}
+
+/// Lines of `axis` from `a` to `b` inclusive, in position order.
+std::vector<std::size_t> lines_between(const Resolver& r, syntax::Axis axis, std::size_t a,
+                                       std::size_t b) {
+    double lo = std::min(r.grid[a].position, r.grid[b].position);
+    double hi = std::max(r.grid[a].position, r.grid[b].position);
+    std::vector<std::size_t> lines;
+    for (std::size_t i = 0; i < r.grid.size(); ++i) {
+        const GridRef& g = r.grid[i];
+        if (g.axis == axis && g.valid && g.position >= lo - kOnLine && g.position <= hi + kOnLine)
+            lines.push_back(i);
+    }
+    std::stable_sort(lines.begin(), lines.end(), [&](std::size_t p, std::size_t q) {
+        return r.grid[p].position < r.grid[q].position;
+    });
+    return lines;
+}
+
+/// The lines a list of names and runs (A, C..F) covers, in the order given,
+/// each with the place in the statement that named it.
+std::vector<std::pair<std::size_t, SourceRange>> expand_ranges(
+    Resolver& r, const std::vector<syntax::LineRange>& ranges, syntax::Axis axis) {
+    std::vector<std::pair<std::size_t, SourceRange>> lines;
+    for (const syntax::LineRange& range : ranges) {
+        auto first = grid_line_on(r, range.first, axis);
+        auto last = range.last ? grid_line_on(r, *range.last, axis) : first;
+        if (!first || !last)
+            continue;
+        SourceRange where = range.first.where;
+        if (range.last)
+            where.end = range.last->where.end;
+        for (std::size_t i : lines_between(r, axis, *first, *last))
+            lines.emplace_back(i, where);
+    }
+    return lines;
+}
+
+/// Nodes along one grid line between two crossing lines, each at an intersection.
+template <typename Emit>
+void split_along(Resolver& r, std::size_t along, const std::vector<std::size_t>& crossing,
+                 SourceRange where, Emit emit) {
+    const std::string& line = r.grid_lines.names()[along];
+    bool vertical = r.grid[along].axis == syntax::Axis::x;
+    for (std::size_t k = 0; k + 1 < crossing.size(); ++k) {
+        auto node = [&](std::size_t c) {
+            const GridRef& g = r.grid[c];
+            const std::string& cross = r.grid_lines.names()[c];
+            std::string name =
+                vertical ? fmt::format("{}.{}", line, cross) : fmt::format("{}.{}", cross, line);
+            double x = vertical ? r.grid[along].position : g.position;
+            double y = vertical ? g.position : r.grid[along].position;
+            return r.node_at_place(name, x, y, where);
+        };
+        NewMember m{fmt::format("{}.{}.{}", line, r.grid_lines.names()[crossing[k]],
+                                r.grid_lines.names()[crossing[k + 1]]),
+                    node(crossing[k]), node(crossing[k + 1]), where};
+        emit(m);
+    }
+}
+
+/// `columns on A, C..E from base to roof` and `beams along roof from A to D`.
+template <typename Decl>
+void resolve_grid_members(Resolver& r, const Decl& decl,
+                          const std::vector<syntax::LineRange>& along, syntax::Axis along_axis,
+                          const char* what) {
+    syntax::Axis across = along_axis == syntax::Axis::x ? syntax::Axis::y : syntax::Axis::x;
+    auto from = grid_line_on(r, decl.from, across);
+    auto to = grid_line_on(r, decl.to, across);
+    auto lines = expand_ranges(r, along, along_axis);
+    MemberAdder adder(r, decl.options);
+    if (from && to) {
+        std::vector<std::size_t> crossing = lines_between(r, across, *from, *to);
+        if (crossing.size() < 2) {
+            r.diagnostics.error(decl.to.where,
+                                fmt::format("{} need two different {}s", what,
+                                            across == syntax::Axis::y ? "level" : "column line"));
+        }
+        for (const auto& [line, where] : lines) {
+            split_along(r, line, crossing, where,
+                        [&](const NewMember& m) { adder.add(m, true, decl.to.where); });
+        }
+    }
+    adder.finish(fmt::format("a member of these {}", what).c_str());
+}
+
+/// The name a rafter end takes in member names: its column line if it is on one.
+std::string point_label(const Resolver& r, NodeId n) {
+    for (std::size_t i = 0; i < r.grid.size(); ++i) {
+        if (r.grid[i].axis == syntax::Axis::x && r.grid[i].valid &&
+            std::abs(r.grid[i].position - r.model.nodes[at(n)].x) <= kOnLine) {
+            return r.grid_lines.names()[i];
+        }
+    }
+    return r.model.nodes[at(n)].name;
+}
+
+/// One straight piece of a run of rafters, split where it crosses column lines.
+void rafter_piece(Resolver& r, const syntax::RaftersDecl& decl, NodeId a, NodeId b,
+                  SourceRange where, MemberAdder& adder) {
+    Node pa = r.model.nodes[at(a)], pb = r.model.nodes[at(b)];
+    if (pa.x > pb.x) {
+        std::swap(pa, pb);
+        std::swap(a, b);
+    }
+    std::vector<NodeId> points{a};
+    std::vector<std::size_t> crossing;
+    for (std::size_t i = 0; i < r.grid.size(); ++i) {
+        const GridRef& g = r.grid[i];
+        if (g.axis == syntax::Axis::x && g.valid && g.position > pa.x + kOnLine &&
+            g.position < pb.x - kOnLine) {
+            crossing.push_back(i);
+        }
+    }
+    std::stable_sort(crossing.begin(), crossing.end(), [&](std::size_t p, std::size_t q) {
+        return r.grid[p].position < r.grid[q].position;
+    });
+    for (std::size_t i : crossing) {
+        double t = (r.grid[i].position - pa.x) / (pb.x - pa.x);
+        std::string name = fmt::format("{}.{}", r.grid_lines.names()[i], decl.run.text);
+        points.push_back(
+            r.node_at_place(name, r.grid[i].position, pa.y + t * (pb.y - pa.y), where));
+    }
+    points.push_back(b);
+    for (std::size_t k = 0; k + 1 < points.size(); ++k) {
+        NewMember m{fmt::format("{}.{}.{}", decl.run.text, point_label(r, points[k]),
+                                point_label(r, points[k + 1])),
+                    points[k], points[k + 1], where};
+        adder.add(m, true, where);
+    }
+}
+
+void resolve_rafters(Resolver& r, const syntax::RaftersDecl& decl) {
+    std::vector<std::optional<NodeId>> points;
+    for (const syntax::Name& p : decl.points)
+        points.push_back(r.find_node(p));
+    MemberAdder adder(r, decl.options);
+    for (std::size_t k = 0; k + 1 < points.size(); ++k) {
+        if (!placed(r, points[k]) || !placed(r, points[k + 1]))
+            continue;
+        const Node& a = r.model.nodes[at(*points[k])];
+        const Node& b = r.model.nodes[at(*points[k + 1])];
+        if (std::abs(a.x - b.x) <= kOnLine) {
+            r.diagnostics.error(decl.points[k + 1].where,
+                                fmt::format("rafters from '{}' to '{}' would be vertical; use "
+                                            "columns for that",
+                                            decl.points[k].text, decl.points[k + 1].text));
+            continue;
+        }
+        rafter_piece(r, decl, *points[k], *points[k + 1], decl.run.where, adder);
+    }
+    adder.finish("these rafters");
+}
+
+}  // namespace
+
+void resolve_member_statements(Resolver& r, const std::vector<const syntax::Statement*>& stmts) {
+    for (const syntax::Statement* s : stmts) {
+        if (const auto* m = std::get_if<syntax::MemberDecl>(&s->node)) {
+            resolve_member(r, *m);
+        } else if (const auto* c = std::get_if<syntax::ColumnsDecl>(&s->node)) {
+            resolve_grid_members(r, *c, c->lines, syntax::Axis::x, "columns");
+        } else if (const auto* b = std::get_if<syntax::BeamsDecl>(&s->node)) {
+            resolve_grid_members(r, *b, b->levels, syntax::Axis::y, "beams");
+        } else if (const auto* f = std::get_if<syntax::RaftersDecl>(&s->node)) {
+            resolve_rafters(r, *f);
+        }
+    }
+}
+
+}  // namespace firn::resolve_detail

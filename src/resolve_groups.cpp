@@ -1,0 +1,119 @@
+// resolve_groups: member groups (`group` statements and `tag` clauses) and the
+// member references lists accept: a member, a group, or a pattern with '*'.
+#include <fmt/format.h>
+#include <algorithm>
+
+#include "resolve_internal.hpp"
+
+namespace firn::resolve_detail {
+namespace {
+
+/// True if `text` matches `pattern`, where '*' stands for any run of characters.
+bool glob_match(std::string_view pattern, std::string_view text) {
+    std::size_t p = 0, t = 0, star = std::string_view::npos, resume = 0;
+    while (t < text.size()) {
+        if (p < pattern.size() && pattern[p] == '*') {
+            star = p++;
+            resume = t;
+        } else if (p < pattern.size() && pattern[p] == text[t]) {
+            ++p;
+            ++t;
+        } else if (star != std::string_view::npos) {
+            p = star + 1;
+            t = ++resume;
+        } else {
+            return false;
+        }
+    }
+    while (p < pattern.size() && pattern[p] == '*')
+        ++p;
+    return p == pattern.size();
+}
+
+std::optional<std::vector<MemberId>> members_matching(Resolver& r, const syntax::Name& pattern) {
+    std::vector<MemberId> ids;
+    for (std::size_t i = 0; i < r.model.members.size(); ++i) {
+        if (glob_match(pattern.text, r.model.members[i].name))
+            ids.push_back(make_id<MemberId>(i));
+    }
+    if (ids.empty()) {
+        r.diagnostics.error(pattern.where, fmt::format("no member matches '{}'", pattern.text));
+        return std::nullopt;
+    }
+    return ids;
+}
+
+/// Appends `more` to `ids`, leaving out members already there.
+void append_unique(std::vector<MemberId>& ids, const std::vector<MemberId>& more) {
+    for (MemberId id : more) {
+        if (std::find(ids.begin(), ids.end(), id) == ids.end())
+            ids.push_back(id);
+    }
+}
+
+std::optional<std::vector<MemberId>> group_members(Resolver& r, std::size_t g,
+                                                   const syntax::Name& ref) {
+    Resolver::Group& group = r.group_entries[g];
+    using State = Resolver::Group::State;
+    if (group.state == State::expanding) {
+        r.diagnostics.error(ref.where, fmt::format("group '{}' contains itself", ref.text));
+        return std::nullopt;
+    }
+    if (group.state == State::waiting) {
+        group.state = State::expanding;
+        for (const syntax::Name& item : group.decl->members) {
+            if (auto ids = r.find_members(item))
+                append_unique(group.members, *ids);
+        }
+        group.state = State::done;
+    }
+    return group.members;
+}
+
+}  // namespace
+
+std::optional<std::vector<MemberId>> Resolver::find_members(const syntax::Name& ref) {
+    if (ref.text.find('*') != std::string::npos)
+        return members_matching(*this, ref);
+    if (auto i = members.find_quietly(ref.text))
+        return std::vector<MemberId>{make_id<MemberId>(*i)};
+    if (auto g = groups.find_quietly(ref.text))
+        return group_members(*this, *g, ref);
+    std::vector<std::string> known = members.names();
+    known.insert(known.end(), groups.names().begin(), groups.names().end());
+    diagnostics.error(ref.where, fmt::format("unknown member or group '{}'{}", ref.text,
+                                             did_you_mean(ref.text, known)));
+    return std::nullopt;
+}
+
+void resolve_groups(Resolver& r, const std::vector<const syntax::GroupDecl*>& groups) {
+    auto clashes = [&](const syntax::Name& name) {
+        if (!r.members.find_quietly(name.text))
+            return false;
+        r.diagnostics.error(
+            name.where,
+            fmt::format("'{}' is a member; a group needs a name of its own", name.text));
+        return true;
+    };
+    for (const syntax::GroupDecl* decl : groups) {
+        if (!clashes(decl->name) && r.groups.add(decl->name, r.diagnostics))
+            r.group_entries.push_back(Resolver::Group{decl, {}, Resolver::Group::State::waiting});
+    }
+    for (const auto& [tag, member] : r.tagged) {
+        auto g = r.groups.find_quietly(tag.text);
+        if (!g) {
+            if (clashes(tag))
+                continue;
+            r.groups.add(tag, r.diagnostics);
+            r.group_entries.push_back(Resolver::Group{nullptr, {}, Resolver::Group::State::done});
+            g = r.group_entries.size() - 1;
+        }
+        append_unique(r.group_entries[*g].members, {member});
+    }
+    for (std::size_t g = 0; g < r.group_entries.size(); ++g) {
+        if (r.group_entries[g].decl != nullptr)
+            group_members(r, g, r.group_entries[g].decl->name);
+    }
+}
+
+}  // namespace firn::resolve_detail
