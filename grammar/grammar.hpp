@@ -95,13 +95,13 @@ struct kw_y : TAO_PEGTL_KEYWORD("y") {};
 template <typename... Words> struct keyword_list : sor<Words...> {
     static constexpr std::size_t size = sizeof...(Words);
 };
-// reserved  <- any keyword
+// reserved  <- any keyword of `keywords` (not the contextual ones)
 struct reserved : keyword_list<
     kw_along, kw_at, kw_axial, kw_beams, kw_case, kw_clockwise, kw_columns,
     kw_counterclockwise, kw_dead, kw_displacement, kw_down, kw_fixed, kw_free, kw_from, kw_grid,
     kw_group, kw_hinge, kw_ishape, kw_let, kw_linear, kw_live, kw_material, kw_member, kw_model,
     kw_moment, kw_node, kw_on, kw_other, kw_outside, kw_pinned, kw_point, kw_projected,
-    kw_rafters, kw_rectangle, kw_report, kw_roller, kw_roof, kw_rotation, kw_section, kw_self,
+    kw_rafters, kw_rectangle, kw_report, kw_roller, kw_rotation, kw_section, kw_self,
     kw_snow, kw_spacing, kw_spring, kw_support, kw_tag, kw_to, kw_transverse, kw_uniform,
     kw_units, kw_up, kw_use, kw_weight, kw_wind, kw_x, kw_y> {};
 static_assert(reserved::size == keywords.size(), "ORDER KEYWORDS: grammar and keywords.hpp disagree");

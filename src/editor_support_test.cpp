@@ -44,7 +44,10 @@ nlohmann::json read_support_json(const std::string& relative) {
 }
 
 Words language_keywords() {
-    return {firn::grammar::keywords.begin(), firn::grammar::keywords.end()};
+    Words words{firn::grammar::keywords.begin(), firn::grammar::keywords.end()};
+    words.insert(firn::grammar::contextual_keywords.begin(),
+                 firn::grammar::contextual_keywords.end());
+    return words;
 }
 
 Words language_units() {

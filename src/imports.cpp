@@ -22,14 +22,21 @@ std::string builtin_name(const std::string& module) {
     return fmt::format("<stdlib>/{}.firn", module);
 }
 
+/// `path` made absolute, with symbolic links resolved where they exist.
+fs::path absolute_path(const fs::path& path) {
+    std::error_code ec;
+    fs::path absolute = fs::absolute(path, ec);
+    fs::path canonical = fs::weakly_canonical(absolute, ec);
+    return ec ? absolute.lexically_normal() : canonical;
+}
+
 /// True if `path` lies in the folder tree of `root` (both compared as absolute
 /// paths with symbolic links resolved where they exist).
 bool inside(const fs::path& root, const fs::path& path) {
-    std::error_code ec;
-    fs::path a = fs::weakly_canonical(root.empty() ? fs::path(".") : root, ec);
-    fs::path b = fs::weakly_canonical(path, ec);
-    auto [ra, rb] = std::mismatch(a.begin(), a.end(), b.begin(), b.end());
-    return ra == a.end();
+    fs::path a = absolute_path(root.empty() ? fs::path(".") : root);
+    fs::path b = absolute_path(path);
+    fs::path relative = b.lexically_relative(a);
+    return !relative.empty() && *relative.begin() != "..";
 }
 
 class Loader {
@@ -119,11 +126,7 @@ class Loader {
     }
 
     /// What identifies a file however it is reached: its absolute path.
-    static std::string key_of(const std::string& path) {
-        std::error_code ec;
-        fs::path canonical = fs::weakly_canonical(path, ec);
-        return ec ? path : canonical.string();
-    }
+    static std::string key_of(const std::string& path) { return absolute_path(path).string(); }
 
     /// False if `key` is loaded (a file used twice loads once) or is being
     /// loaded (a cycle, reported with its chain).
