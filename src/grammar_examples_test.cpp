@@ -1,9 +1,12 @@
 // Every example in grammar/REFERENCE.md and every model in examples/ parses.
 #include <catch2/catch.hpp>
+#include <cctype>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
 
+#include "evaluate.hpp"
+#include "grammar/keywords.hpp"
 #include "parse.hpp"
 
 using namespace firn;
@@ -46,6 +49,42 @@ TEST_CASE("every example in grammar/REFERENCE.md parses") {
     for (std::size_t i = 0; i < blocks.size(); ++i) {
         INFO("example " << i + 1 << ":\n" << blocks[i]);
         CHECK(parse_errors("example", blocks[i]).empty());
+    }
+}
+
+namespace {
+
+/// True if `word` appears in `text` as a whole word.
+bool has_word(const std::string& text, std::string_view word) {
+    auto word_char = [](char c) { return std::isalnum(static_cast<unsigned char>(c)) || c == '_'; };
+    for (std::size_t at = text.find(word); at != std::string::npos; at = text.find(word, at + 1)) {
+        bool starts = at == 0 || !word_char(text[at - 1]);
+        bool ends = at + word.size() == text.size() || !word_char(text[at + word.size()]);
+        if (starts && ends)
+            return true;
+    }
+    return false;
+}
+
+}  // namespace
+
+TEST_CASE("the reference's examples use every keyword, function and operator") {
+    auto blocks =
+        firn_blocks(read(std::filesystem::path(FIRN_SOURCE_DIR) / "grammar" / "REFERENCE.md"));
+    std::string all;
+    for (const std::string& b : blocks)
+        all += b;
+    std::vector<std::string_view> words(grammar::keywords.begin(), grammar::keywords.end());
+    words.insert(words.end(), grammar::contextual_keywords.begin(),
+                 grammar::contextual_keywords.end());
+    words.insert(words.end(), functions.begin(), functions.end());
+    for (std::string_view w : words) {
+        INFO("no example in grammar/REFERENCE.md uses '" << w << "'");
+        CHECK(has_word(all, w));
+    }
+    for (std::string_view op : {"..", "^", "*", "/", "+", "-", "(", ";", "\"", "="}) {
+        INFO("no example in grammar/REFERENCE.md uses '" << op << "'");
+        CHECK(all.find(op) != std::string::npos);
     }
 }
 
