@@ -68,7 +68,37 @@ void write_cases(std::string& out, std::size_t bays, std::size_t storeys, std::s
     }
 }
 
+std::string level(std::size_t j) {
+    return fmt::format("L{}", j);
+}
+
 }  // namespace
+
+std::string generated_frame(std::size_t bays, std::size_t storeys, std::size_t cases) {
+    std::string out = fmt::format(
+        "# Generated with generators: {} bays x {} storeys, {} load cases\n"
+        "model \"Bench frame {}x{}\"\nreport units kip, ft\n\n"
+        "grid x 1..{} spacing 24 ft\ngrid y L0..L{} spacing 12 ft\n"
+        "material steel E = 29000 ksi, density = 490 pcf\n"
+        "section col steel, A = 14.1 in2, I = 272 in4\n"
+        "section beam steel, A = 11.8 in2, I = 510 in4\n"
+        "columns on 1..{} from L0 to L{} section col\n"
+        "beams along L1..L{} from 1 to {} section beam\n"
+        "support fixed at L0\n\n",
+        bays, storeys, cases, bays, storeys, bays + 1, storeys, bays + 1, storeys, storeys,
+        bays + 1);
+    for (std::size_t k = 0; k < cases; ++k) {
+        out += fmt::format("case K{} other {{\n", k);
+        if (k == 0)
+            out += "  self weight\n";
+        out += fmt::format("  uniform {} kip/ft down on {}.*\n",
+                           1.0 + 0.01 * static_cast<double>(k), level(k % storeys + 1));
+        out += fmt::format("  point {} kip x at ", 0.5 + 0.01 * static_cast<double>(k));
+        write_list(out, storeys, [](std::size_t j) { return fmt::format("1.{}", level(j + 1)); });
+        out += "\n}\n";
+    }
+    return out;
+}
 
 std::string rectangular_frame(std::size_t bays, std::size_t storeys, std::size_t cases) {
     std::string out = fmt::format(

@@ -11,4 +11,8 @@ namespace firn::bench {
 /// storey (cycling through the storeys) and pushes every level sideways.
 std::string rectangular_frame(std::size_t bays, std::size_t storeys, std::size_t cases);
 
+/// The same frame and cases written with a grid run, generators and member
+/// patterns: a few lines for the structure, one per load.
+std::string generated_frame(std::size_t bays, std::size_t storeys, std::size_t cases);
+
 }  // namespace firn::bench
