@@ -1,9 +1,15 @@
 # Runs one command-line case: tests/cli/NAME.args holds the arguments (one per
 # line, paths relative to the repository); NAME.stdout, NAME.stderr and
-# NAME.status hold what firn must print and its exit status.
+# NAME.status hold what firn must print and its exit status. An optional NAME.env
+# holds environment settings (NAME=VALUE, one per line) for the run.
 # Invoked by CTest:  cmake -DFIRN=<firn> -DCASE=tests/cli/NAME -P tests/cli.cmake
 file(STRINGS "${CASE}.args" args)
-execute_process(COMMAND ${FIRN} ${args}
+set(env "")
+if(EXISTS "${CASE}.env")
+  file(STRINGS "${CASE}.env" settings)
+  set(env ${CMAKE_COMMAND} -E env ${settings})
+endif()
+execute_process(COMMAND ${env} ${FIRN} ${args}
                 OUTPUT_VARIABLE out ERROR_VARIABLE err RESULT_VARIABLE status)
 file(READ "${CASE}.status" expected_status)
 string(STRIP "${expected_status}" expected_status)
