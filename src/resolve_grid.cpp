@@ -30,16 +30,16 @@ bool all_upper(std::string_view s) {
 constexpr std::string_view kGridLetters = "ABCDEFGHJKLMNPQRSTUVWXYZ";
 
 /// The position of a lettered name in the sequence A..Z, AA..AZ, BA.. (I and O
-/// skipped), or nullopt if it uses I or O.
+/// skipped), or nullopt if it uses I or O. Long names saturate: such a run is
+/// refused as too long anyway.
 std::optional<std::size_t> letter_index(std::string_view name) {
+    constexpr std::size_t kSaturated = kMaxRunLines * kGridLetters.size();
     std::size_t index = 0;
     for (char c : name) {
         auto digit = kGridLetters.find(c);
         if (digit == std::string_view::npos)
             return std::nullopt;
-        index = index * kGridLetters.size() + digit + 1;
-        if (index > kMaxRunLines * 10)
-            return std::nullopt;
+        index = std::min(index * kGridLetters.size() + digit + 1, kSaturated);
     }
     return index - 1;
 }
@@ -51,15 +51,18 @@ std::string letter_name(std::size_t index) {
     return name;
 }
 
-/// Splits `L12` into ("L", 12); numbers with more than 9 digits are refused.
-std::optional<std::pair<std::string, long>> prefix_number(std::string_view name) {
+/// Splits `L12` into ("L", 12); numbers of more than 18 digits saturate (such a
+/// run is refused as too long anyway).
+std::optional<std::pair<std::string, long long>> prefix_number(std::string_view name) {
     std::size_t digits = name.size();
     while (digits > 0 && name[digits - 1] >= '0' && name[digits - 1] <= '9')
         --digits;
-    if (digits == name.size() || name.size() - digits > 9)
+    if (digits == name.size())
         return std::nullopt;
-    return std::pair{std::string(name.substr(0, digits)),
-                     std::stol(std::string(name.substr(digits)))};
+    long long number = 0;
+    for (char c : name.substr(digits))
+        number = std::min(number * 10 + (c - '0'), 100'000'000'000'000'000LL);
+    return std::pair{std::string(name.substr(0, digits)), number};
 }
 
 /// The names of the lines from `first` to `last`, or nullopt after an error.
@@ -80,7 +83,7 @@ std::optional<std::vector<std::string>> run_names(Resolver& r, const syntax::Gri
             names.push_back(letter_name(k));
     } else if (auto pa = prefix_number(a), pb = prefix_number(b);
                pa && pb && pa->first == pb->first) {
-        for (long k = pa->second; k <= pb->second && names.size() <= kMaxRunLines; ++k)
+        for (long long k = pa->second; k <= pb->second && names.size() <= kMaxRunLines; ++k)
             names.push_back(fmt::format("{}{}", pa->first, k));
     } else {
         r.diagnostics.error(where,
