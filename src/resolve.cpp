@@ -489,6 +489,20 @@ Support::Kind support_kind(const syntax::SupportDecl& decl) {
     return Support::Kind::fixed;
 }
 
+/// True if `name` is a node or may be an intersection (which find_node checks).
+bool is_node_name(const Resolver& r, const std::string& name) {
+    return r.nodes.find_quietly(name) || name.find('.') != std::string::npos;
+}
+
+/// A support may name a node or a grid line, so a plain unknown name is
+/// matched against both.
+void report_unknown_support_place(Resolver& r, const syntax::Name& name) {
+    std::vector<std::string> known = r.nodes.names();
+    known.insert(known.end(), r.grid_lines.names().begin(), r.grid_lines.names().end());
+    r.diagnostics.error(name.where, fmt::format("unknown node or grid line '{}'{}", name.text,
+                                                did_you_mean(name.text, known)));
+}
+
 /// The nodes a support names: nodes, intersections, or grid lines (every
 /// node of a member on the line).
 std::vector<std::pair<NodeId, syntax::Name>> support_nodes(Resolver& r,
@@ -496,6 +510,10 @@ std::vector<std::pair<NodeId, syntax::Name>> support_nodes(Resolver& r,
     std::vector<std::pair<NodeId, syntax::Name>> found;
     for (const syntax::Name& name : names) {
         auto line = r.grid_lines.find_quietly(name.text);
+        if (!line && !is_node_name(r, name.text)) {
+            report_unknown_support_place(r, name);
+            continue;
+        }
         if (!line || r.nodes.find_quietly(name.text)) {
             if (auto node = r.find_node(name))
                 found.emplace_back(*node, name);
@@ -509,7 +527,7 @@ std::vector<std::pair<NodeId, syntax::Name>> support_nodes(Resolver& r,
             if (g.valid && r.node_used[i] && std::abs(place - g.position) <= 1e-6)
                 found.emplace_back(make_id<NodeId>(i), name);
         }
-        if (g.valid && found.size() == before) {
+        if (g.valid && found.size() == before && !r.members_missing) {
             r.diagnostics.error(name.where,
                                 fmt::format("no member has a node on grid line '{}'", name.text));
         }

@@ -65,39 +65,66 @@ std::optional<std::pair<std::string, long long>> prefix_number(std::string_view 
     return std::pair{std::string(name.substr(0, digits)), number};
 }
 
+/// The range of the whole run `A..F`, for messages about it.
+SourceRange run_range(const syntax::Grid::Run& run) {
+    return SourceRange{run.first.where.file, run.first.where.begin, run.last.where.end};
+}
+
+/// The names of a lettered run, or nullopt after reporting the end that uses I or O.
+std::optional<std::vector<std::string>> lettered_names(Resolver& r, const syntax::Grid::Run& run) {
+    auto i = letter_index(run.first.text), j = letter_index(run.last.text);
+    if (!i || !j) {
+        const syntax::Name& bad = i ? run.last : run.first;
+        r.diagnostics.error(bad.where,
+                            fmt::format("lettered grid lines skip I and O (they read as 1 and 0), "
+                                        "so a run cannot start or end at '{}'",
+                                        bad.text));
+        return std::nullopt;
+    }
+    std::vector<std::string> names;
+    for (std::size_t k = *i; k <= *j && names.size() <= kMaxRunLines; ++k)
+        names.push_back(letter_name(k));
+    return names;
+}
+
 /// The names of the lines from `first` to `last`, or nullopt after an error.
 std::optional<std::vector<std::string>> run_names(Resolver& r, const syntax::Grid::Run& run) {
     const std::string& a = run.first.text;
     const std::string& b = run.last.text;
     std::vector<std::string> names;
-    SourceRange where{run.first.where.file, run.first.where.begin, run.last.where.end};
     if (all_upper(a) && all_upper(b)) {
-        auto i = letter_index(a), j = letter_index(b);
-        if (!i || !j) {
-            r.diagnostics.error(where,
-                                "lettered grid lines skip I and O (they read as 1 and 0); "
-                                "start and end the run on other letters");
+        auto lettered = lettered_names(r, run);
+        if (!lettered)
             return std::nullopt;
-        }
-        for (std::size_t k = *i; k <= *j && names.size() <= kMaxRunLines; ++k)
-            names.push_back(letter_name(k));
+        names = std::move(*lettered);
     } else if (auto pa = prefix_number(a), pb = prefix_number(b);
                pa && pb && pa->first == pb->first) {
         for (long long k = pa->second; k <= pb->second && names.size() <= kMaxRunLines; ++k)
             names.push_back(fmt::format("{}{}", pa->first, k));
     } else {
-        r.diagnostics.error(where,
+        r.diagnostics.error(run_range(run),
                             "a run of grid lines goes from letter to letter (A..F), number "
                             "to number (1..9) or prefix and number to the same prefix "
                             "(L1..L4)");
         return std::nullopt;
     }
-    if (names.size() < 2 || names.size() > kMaxRunLines) {
-        r.diagnostics.error(where, names.size() < 2
-                                       ? fmt::format("the run {}..{} must go forwards and name "
-                                                     "at least two lines",
-                                                     a, b)
-                                       : fmt::format("a run has at most {} lines", kMaxRunLines));
+    // The two short cases are told apart: a reversed run is fixed by swapping
+    // its ends, a one-line run by writing the line on its own.
+    if (names.empty()) {
+        r.diagnostics.error(run_range(run),
+                            fmt::format("the run {}..{} goes backwards; write {}..{}", a, b, b, a));
+        return std::nullopt;
+    }
+    if (names.size() == 1) {
+        r.diagnostics.error(run_range(run),
+                            fmt::format("the run {}..{} names only one line; write one line "
+                                        "with its place, as in: {} = 0 ft",
+                                        a, b, a));
+        return std::nullopt;
+    }
+    if (names.size() > kMaxRunLines) {
+        r.diagnostics.error(run_range(run),
+                            fmt::format("a run has at most {} lines", kMaxRunLines));
         return std::nullopt;
     }
     return names;
@@ -108,11 +135,12 @@ std::optional<std::vector<double>> run_places(Resolver& r, const syntax::Grid::R
                                               std::size_t lines) {
     std::size_t bays = lines - 1;
     if (run.spacings.size() != 1 && run.spacings.size() != bays) {
+        SourceRange all{run.spacings.front().where.file, run.spacings.front().where.begin,
+                        run.spacings.back().where.end};
         r.diagnostics.error(
-            run.spacings[0].where,
-            fmt::format("grid lines {}..{} make {} bays: give one spacing for "
-                        "all of them or {} spacings, found {}",
-                        run.first.text, run.last.text, bays, bays, run.spacings.size()));
+            all, fmt::format("grid lines {}..{} make {} bays: give one spacing for "
+                             "all of them or {} spacings, found {}",
+                             run.first.text, run.last.text, bays, bays, run.spacings.size()));
         return std::nullopt;
     }
     double place = 0.0;
@@ -147,9 +175,26 @@ std::optional<std::vector<double>> run_places(Resolver& r, const syntax::Grid::R
     return places;
 }
 
+const char* axis_noun(syntax::Axis axis) {
+    return axis == syntax::Axis::x ? "column line" : "level";
+}
+
+/// Column lines and levels share one set of names; a clash across the two is
+/// told as such, since "already defined" alone points at a line of the other kind.
+bool other_axis_clash(Resolver& r, syntax::Axis axis, const syntax::Name& name) {
+    auto i = r.grid_lines.find_quietly(name.text);
+    if (!i || r.grid[*i].axis == axis)
+        return false;
+    r.diagnostics
+        .error(name.where, fmt::format("'{}' is already a {}; a {} needs a name of its own",
+                                       name.text, axis_noun(r.grid[*i].axis), axis_noun(axis)))
+        .note(r.grid_lines.where(*i), "first defined here");
+    return true;
+}
+
 void add_grid_line(Resolver& r, syntax::Axis axis, const syntax::Name& name,
                    std::optional<double> place) {
-    if (!r.grid_lines.add(name, r.diagnostics))
+    if (other_axis_clash(r, axis, name) || !r.grid_lines.add(name, r.diagnostics))
         return;
     GridLine g{name.text, place.value_or(0.0), name.where};
     (axis == syntax::Axis::x ? r.model.grid_x : r.model.grid_y).push_back(g);
@@ -162,10 +207,46 @@ void resolve_run(Resolver& r, const syntax::Grid& grid) {
     if (!names)
         return;
     auto places = run_places(r, run, names->size());
-    SourceRange where{run.first.where.file, run.first.where.begin, run.last.where.end};
+    SourceRange where = run_range(run);
     for (std::size_t k = 0; k < names->size(); ++k) {
         add_grid_line(r, grid.axis, syntax::Name{(*names)[k], where},
                       places ? std::optional((*places)[k]) : std::nullopt);
+    }
+}
+
+/// Two lines of one kind at one place would give zero-length members between
+/// them in every generator that crosses them; the later line is refused (and
+/// left out of generators) so the slip is reported once, where it was made.
+void refuse_coincident_lines(Resolver& r) {
+    std::vector<std::size_t> order(r.grid.size());
+    for (std::size_t i = 0; i < order.size(); ++i)
+        order[i] = i;
+    auto before = [&](std::size_t p, std::size_t q) {
+        const GridRef &a = r.grid[p], &b = r.grid[q];
+        return std::tie(a.axis, a.position, p) < std::tie(b.axis, b.position, q);
+    };
+    std::sort(order.begin(), order.end(), before);
+    std::size_t first = 0;  // the first-defined valid line of the current place
+    for (std::size_t k = 0; k < order.size(); ++k) {
+        GridRef& g = r.grid[order[k]];
+        if (!g.valid)
+            continue;
+        const GridRef& f = r.grid[first];
+        bool same =
+            k > 0 && f.valid && f.axis == g.axis && std::abs(f.position - g.position) <= kOnLine;
+        if (!same) {
+            first = order[k];
+            continue;
+        }
+        std::size_t later = std::max(first, order[k]), earlier = std::min(first, order[k]);
+        const auto& names = r.grid_lines.names();
+        r.diagnostics
+            .error(r.grid_lines.where(later),
+                   fmt::format("{} '{}' is at the same place as {} '{}'", axis_noun(g.axis),
+                               names[later], axis_noun(g.axis), names[earlier]))
+            .note(r.grid_lines.where(earlier), "that line is here");
+        r.grid[later].valid = false;
+        first = earlier;
     }
 }
 
@@ -184,6 +265,7 @@ void resolve_grids(Resolver& r, const std::vector<const syntax::Grid*>& grids) {
             add_grid_line(r, grid->axis, line.name, v);
         }
     }
+    refuse_coincident_lines(r);
 }
 
 // ---------------------------------------------------------------- nodes
@@ -201,6 +283,66 @@ std::optional<std::pair<std::size_t, std::size_t>> intersection(const Resolver& 
             return std::pair{*x, *y};
     }
     return std::nullopt;
+}
+
+/// The part of a (one-line) name from byte `offset`, `length` bytes long.
+SourceRange part_of(const syntax::Name& name, std::size_t offset, std::size_t length) {
+    SourceRange where = name.where;
+    where.begin.offset += static_cast<std::uint32_t>(offset);
+    where.begin.column += static_cast<std::uint32_t>(offset);
+    where.end = where.begin;
+    where.end.offset += static_cast<std::uint32_t>(length);
+    where.end.column += static_cast<std::uint32_t>(length);
+    return where;
+}
+
+std::vector<std::string> line_names(const Resolver& r, syntax::Axis axis) {
+    std::vector<std::string> names;
+    for (std::size_t i = 0; i < r.grid.size(); ++i) {
+        if (r.grid[i].axis == axis)
+            names.push_back(r.grid_lines.names()[i]);
+    }
+    return names;
+}
+
+/// Reports why `name` is not the intersection it looks like, at the part to
+/// fix: `Q.eave` (no column line Q), `A.eve` (no level eve), `eave.A` (level
+/// first). Returns false if no part of the name is a grid line.
+bool explain_intersection(Resolver& r, const syntax::Name& name) {
+    const std::string& text = name.text;
+    for (std::size_t dot = text.find('.'); dot != std::string::npos;
+         dot = text.find('.', dot + 1)) {
+        std::string left = text.substr(0, dot), right = text.substr(dot + 1);
+        auto x = r.grid_lines.find_quietly(left), y = r.grid_lines.find_quietly(right);
+        bool x_is_line = x && r.grid[*x].axis == syntax::Axis::x;
+        bool y_is_level = y && r.grid[*y].axis == syntax::Axis::y;
+        if (x && y && !x_is_line && !y_is_level) {
+            r.diagnostics.error(name.where, fmt::format("'{}' names the level first; write the "
+                                                        "column line first: '{}.{}'",
+                                                        text, right, left));
+            return true;
+        }
+        if (x && y) {
+            r.diagnostics.error(name.where,
+                                fmt::format("'{}' and '{}' are both {}s; an intersection joins a "
+                                            "column line and a level",
+                                            left, right, axis_noun(r.grid[*x].axis)));
+            return true;
+        }
+        if (x_is_line && !y) {
+            r.diagnostics.error(part_of(name, dot + 1, right.size()),
+                                fmt::format("unknown level '{}' in '{}'{}", right, text,
+                                            did_you_mean(right, line_names(r, syntax::Axis::y))));
+            return true;
+        }
+        if (y_is_level && !x) {
+            r.diagnostics.error(part_of(name, 0, dot),
+                                fmt::format("unknown column line '{}' in '{}'{}", left, text,
+                                            did_you_mean(left, line_names(r, syntax::Axis::x))));
+            return true;
+        }
+    }
+    return false;
 }
 
 }  // namespace
@@ -230,6 +372,14 @@ std::optional<NodeId> Resolver::find_node(const syntax::Name& name) {
         if (!x.valid || !y.valid)
             return std::nullopt;  // the line's own error is reported
         return node_at_place(name.text, x.position, y.position, name.where);
+    }
+    if (explain_intersection(*this, name))
+        return std::nullopt;
+    if (members.find_quietly(name.text)) {
+        diagnostics.error(name.where, fmt::format("'{}' is a member; a node is expected here, "
+                                                  "such as one of its ends",
+                                                  name.text));
+        return std::nullopt;
     }
     return lookup<NodeId>(nodes, name);  // reports it unknown
 }
@@ -383,8 +533,10 @@ std::vector<std::pair<std::size_t, SourceRange>> expand_ranges(
     for (const syntax::LineRange& range : ranges) {
         auto first = grid_line_on(r, range.first, axis);
         auto last = range.last ? grid_line_on(r, *range.last, axis) : first;
-        if (!first || !last)
+        if (!first || !last) {
+            r.members_missing = true;
             continue;
+        }
         SourceRange where = range.first.where;
         if (range.last)
             where.end = range.last->where.end;
@@ -417,11 +569,47 @@ void split_along(Resolver& r, std::size_t along, const std::vector<std::size_t>&
     }
 }
 
+bool on_axis(const Resolver& r, const syntax::Name& name, syntax::Axis axis) {
+    auto i = r.grid_lines.find_quietly(name.text);
+    return i && r.grid[*i].axis == axis;
+}
+
+/// `columns on base from A to D` or `beams along A from base to eave`: every
+/// line is of the other kind, so the other generator was meant. One message
+/// says so, instead of one per name.
+template <typename Decl>
+bool report_swapped(Resolver& r, const Decl& decl, const std::vector<syntax::LineRange>& along,
+                    syntax::Axis along_axis) {
+    syntax::Axis across = along_axis == syntax::Axis::x ? syntax::Axis::y : syntax::Axis::x;
+    bool swapped = on_axis(r, decl.from, along_axis) && on_axis(r, decl.to, along_axis);
+    std::vector<std::string> ranges;
+    for (const syntax::LineRange& range : along) {
+        swapped = swapped && on_axis(r, range.first, across) &&
+                  (!range.last || on_axis(r, *range.last, across));
+        ranges.push_back(range.last ? fmt::format("{}..{}", range.first.text, range.last->text)
+                                    : range.first.text);
+    }
+    if (!swapped)
+        return false;
+    bool columns = along_axis == syntax::Axis::x;
+    r.diagnostics.error(
+        along.front().first.where,
+        fmt::format("'{}' is a {}, not a {}; for {} {} it, write '{} {} from {} to {}'",
+                    along.front().first.text, axis_noun(across), axis_noun(along_axis),
+                    columns ? "beams" : "columns", columns ? "along" : "on",
+                    columns ? "beams along" : "columns on", fmt::join(ranges, ", "), decl.from.text,
+                    decl.to.text));
+    r.members_missing = true;
+    return true;
+}
+
 /// `columns on A, C..E from base to roof` and `beams along roof from A to D`.
 template <typename Decl>
 void resolve_grid_members(Resolver& r, const Decl& decl,
                           const std::vector<syntax::LineRange>& along, syntax::Axis along_axis,
                           const char* what) {
+    if (report_swapped(r, decl, along, along_axis))
+        return;
     syntax::Axis across = along_axis == syntax::Axis::x ? syntax::Axis::y : syntax::Axis::x;
     auto from = grid_line_on(r, decl.from, across);
     auto to = grid_line_on(r, decl.to, across);
@@ -430,6 +618,7 @@ void resolve_grid_members(Resolver& r, const Decl& decl,
     if (from && to) {
         std::vector<std::size_t> crossing = lines_between(r, across, *from, *to);
         if (crossing.size() < 2) {
+            r.members_missing = true;
             r.diagnostics.error(decl.to.where,
                                 fmt::format("{} need two different {}s", what,
                                             across == syntax::Axis::y ? "level" : "column line"));
@@ -439,6 +628,7 @@ void resolve_grid_members(Resolver& r, const Decl& decl,
                         [&](const NewMember& m) { adder.add(m, true, decl.to.where); });
         }
     }
+    r.members_missing = r.members_missing || !from || !to;
     adder.finish(fmt::format("a member of these {}", what).c_str());
 }
 
@@ -494,8 +684,10 @@ void resolve_rafters(Resolver& r, const syntax::RaftersDecl& decl) {
         points.push_back(r.find_node(p));
     MemberAdder adder(r, decl.options);
     for (std::size_t k = 0; k + 1 < points.size(); ++k) {
-        if (!placed(r, points[k]) || !placed(r, points[k + 1]))
+        if (!placed(r, points[k]) || !placed(r, points[k + 1])) {
+            r.members_missing = true;
             continue;
+        }
         const Node& a = r.model.nodes[at(*points[k])];
         const Node& b = r.model.nodes[at(*points[k + 1])];
         if (std::abs(a.x - b.x) <= kOnLine) {
@@ -503,6 +695,7 @@ void resolve_rafters(Resolver& r, const syntax::RaftersDecl& decl) {
                                 fmt::format("rafters from '{}' to '{}' would be vertical; use "
                                             "columns for that",
                                             decl.points[k].text, decl.points[k + 1].text));
+            r.members_missing = true;
             continue;
         }
         rafter_piece(r, decl, *points[k], *points[k + 1], decl.run.where, adder);

@@ -2,6 +2,7 @@
 // member references lists accept: a member, a group, or a pattern with '*'.
 #include <fmt/format.h>
 #include <algorithm>
+#include <set>
 
 #include "resolve_internal.hpp"
 
@@ -37,7 +38,8 @@ std::optional<std::vector<MemberId>> members_matching(Resolver& r, const syntax:
             ids.push_back(make_id<MemberId>(i));
     }
     if (ids.empty()) {
-        r.diagnostics.error(pattern.where, fmt::format("no member matches '{}'", pattern.text));
+        if (!r.members_missing)
+            r.diagnostics.error(pattern.where, fmt::format("no member matches '{}'", pattern.text));
         return std::nullopt;
     }
     return ids;
@@ -56,15 +58,21 @@ std::optional<std::vector<MemberId>> group_members(Resolver& r, std::size_t g,
     Resolver::Group& group = r.group_entries[g];
     using State = Resolver::Group::State;
     if (group.state == State::expanding) {
-        r.diagnostics.error(ref.where, fmt::format("group '{}' contains itself", ref.text));
+        auto first = std::find(r.expanding_groups.begin(), r.expanding_groups.end(), ref.text);
+        std::vector<std::string> chain(first, r.expanding_groups.end());
+        chain.push_back(ref.text);
+        r.diagnostics.error(ref.where, fmt::format("group '{}' contains itself: {}", ref.text,
+                                                   fmt::join(chain, " -> ")));
         return std::nullopt;
     }
     if (group.state == State::waiting) {
         group.state = State::expanding;
+        r.expanding_groups.push_back(group.decl->name.text);
         for (const syntax::Name& item : group.decl->members) {
             if (auto ids = r.find_members(item))
                 append_unique(group.members, *ids);
         }
+        r.expanding_groups.pop_back();
         group.state = State::done;
     }
     return group.members;
@@ -79,6 +87,8 @@ std::optional<std::vector<MemberId>> Resolver::find_members(const syntax::Name& 
         return std::vector<MemberId>{make_id<MemberId>(*i)};
     if (auto g = groups.find_quietly(ref.text))
         return group_members(*this, *g, ref);
+    if (members_missing)
+        return std::nullopt;  // it may name a member a statement with an error did not make
     std::vector<std::string> known = members.names();
     known.insert(known.end(), groups.names().begin(), groups.names().end());
     diagnostics.error(ref.where, fmt::format("unknown member or group '{}'{}", ref.text,
@@ -99,11 +109,15 @@ void resolve_groups(Resolver& r, const std::vector<const syntax::GroupDecl*>& gr
         if (!clashes(decl->name) && r.groups.add(decl->name, r.diagnostics))
             r.group_entries.push_back(Resolver::Group{decl, {}, Resolver::Group::State::waiting});
     }
+    std::set<std::pair<FileId, std::uint32_t>> refused;  // clashing tags, reported once each
     for (const auto& [tag, member] : r.tagged) {
         auto g = r.groups.find_quietly(tag.text);
         if (!g) {
-            if (clashes(tag))
+            std::pair place{tag.where.file, tag.where.begin.offset};
+            if (refused.contains(place) || clashes(tag)) {
+                refused.insert(place);
                 continue;
+            }
             r.groups.add(tag, r.diagnostics);
             r.group_entries.push_back(Resolver::Group{nullptr, {}, Resolver::Group::State::done});
             g = r.group_entries.size() - 1;

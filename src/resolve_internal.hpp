@@ -100,6 +100,13 @@ struct Resolver {
     std::vector<char> member_section_known;    ///< per member: its section resolved
     std::vector<char> section_material_known;  ///< per section: its material resolved
 
+    /// A member statement made fewer members than it asked for because of an
+    /// error (an unknown line, say); references that then name no member are not
+    /// reported, as they may name the members that are missing.
+    bool members_missing = false;
+    /// The groups being expanded, outermost first, for "contains itself" messages.
+    std::vector<std::string> expanding_groups;
+
     std::optional<double> value(const syntax::Expr& e, const Expected& expected) {
         return evaluate_as(e, expected, diagnostics, &constants);
     }

@@ -147,6 +147,23 @@ class LoadResolver {
         return Span{std::clamp(*from, 0.0, length), std::clamp(*to, 0.0, length)};
     }
 
+    /// One warning per list item that repeats members (a group or pattern may
+    /// repeat many), naming them.
+    void warn_listed_again(const syntax::Name& item, const std::vector<std::string>& again) {
+        if (again.size() == 1) {
+            r_.diagnostics.warning(
+                item.where,
+                fmt::format("member '{}' is listed twice; it takes this load once", again[0]));
+        } else if (again.size() > 1) {
+            std::string last = again.back();
+            std::vector<std::string> rest(again.begin(), again.end() - 1);
+            r_.diagnostics.warning(item.where,
+                                   fmt::format("members '{}' and '{}' are listed twice; each takes "
+                                               "this load once",
+                                               fmt::join(rest, "', '"), last));
+        }
+    }
+
     /// The members a load names. A member that has an error of its own is
     /// left out, so its error is not echoed by every load on it.
     std::vector<MemberId> members() {
@@ -156,18 +173,17 @@ class LoadResolver {
             auto found = r_.find_members(name);
             if (!found)
                 continue;
+            std::vector<std::string> again;
             for (MemberId id : *found) {
                 if (listed[at(id)]) {
-                    r_.diagnostics.warning(name.where,
-                                           fmt::format("member '{}' is listed twice; it takes "
-                                                       "this load once",
-                                                       r_.model.members[at(id)].name));
+                    again.push_back(r_.model.members[at(id)].name);
                     continue;
                 }
                 listed[at(id)] = 1;
                 if (r_.member_valid[at(id)])
                     ids.push_back(id);
             }
+            warn_listed_again(name, again);
         }
         return ids;
     }
