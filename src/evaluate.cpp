@@ -123,9 +123,19 @@ std::optional<Quantity> evaluate_call(const syntax::Expr& e, Diagnostics& diagno
     const std::string& f = e.literal;
     bool known = f == "min" || f == "max" || f == "abs" || f == "sqrt";
     if (!known) {
-        std::vector<std::string> names(functions.begin(), functions.end());
-        diagnostics.error(e.where, fmt::format("unknown function '{}'; the functions are {}{}", f,
-                                               "min, max, abs and sqrt", did_you_mean(f, names)));
+        // A near miss is named alone; the whole list only helps when nothing is close.
+        std::string best =
+            closest_match(f, std::vector<std::string>(functions.begin(), functions.end()));
+        SourceRange name = e.where;
+        name.end = name.begin;
+        name.end.offset += static_cast<std::uint32_t>(f.size());
+        name.end.column += static_cast<std::uint32_t>(f.size());
+        diagnostics.error(name, best.empty() ? fmt::format("unknown function '{}'; the functions "
+                                                           "are min, max, abs and sqrt",
+                                                           f)
+                                             : fmt::format("unknown function '{}'; did you mean "
+                                                           "'{}'?",
+                                                           f, best));
         return std::nullopt;
     }
     bool one_argument = f == "abs" || f == "sqrt";
@@ -229,6 +239,8 @@ std::string found_text(const syntax::Expr& e, Dimension found) {
             return e.literal;
         return fmt::format("{} {}, {}", e.literal, unit_spelling(e.unit), describe(found));
     }
+    if (e.kind == syntax::Expr::Kind::constant)  // the name leads back to its `let`
+        return fmt::format("'{}', {}", e.literal, describe(found));
     return describe(found);
 }
 

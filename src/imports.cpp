@@ -106,10 +106,12 @@ class Loader {
         std::vector<std::string> names;
         for (const StdlibModule& m : embedded_stdlib())
             names.emplace_back(m.name);
-        diagnostics_.error(
-            module.where,
-            fmt::format("unknown library module '{}'{}; the library has {}", module.text,
-                        did_you_mean(module.text, names), fmt::join(names, ", ")));
+        // A near miss is named alone; the whole list only helps when nothing is close.
+        std::string hint = did_you_mean(module.text, names);
+        if (hint.empty())
+            hint = fmt::format("; the library has {}", fmt::join(names, ", "));
+        diagnostics_.error(module.where,
+                           fmt::format("unknown library module '{}'{}", module.text, hint));
     }
 
     void load_file(const std::string& path, SourceRange where, bool library) {
