@@ -70,6 +70,9 @@ struct Builder {
     bool pending_spring_fixed = false;
     int nesting = 0;
     std::uint32_t block_line = 0;
+    /// The open block's missing '}' is reported: the statements after it are
+    /// not reported again, one by one, as loads that are not loads.
+    bool block_close_reported = false;
     std::size_t syntax_errors = 0;
     std::uint32_t next_comment_offset = 0;
 
@@ -108,6 +111,10 @@ struct Builder {
     }
 
     void recover_from(const pegtl::parse_error& e, const char* at, bool in_block);
+    /// Drops the draft of the broken statement (or load).
+    void reset_draft(bool in_block);
+    /// Counts a reported syntax error; stops reading the file after too many.
+    void count_error();
     std::string found_at(const char* at, std::size_t& width) const;
 };
 
@@ -119,9 +126,11 @@ std::string Builder::found_at(const char* at, std::size_t& width) const {
         return "the end of the file";
     if (*at == '\n' || *at == '\r')
         return "the end of the line";
+    if (*at == ' ' || *at == '\t')  // where the grammar allows no space, as in `A.. D`
+        return *at == ' ' ? "a space" : "a tab";
     if (is_word_char(*at)) {
         const char* p = at;
-        while (p < end && p - at < 64 && (is_word_char(*p) || *p == '.'))
+        while (p < end && p - at < 64 && (is_word_char(*p) || *p == '.' || *p == '*'))
             ++p;
         std::string word(at, p);
         width = word.size();
@@ -165,7 +174,48 @@ std::vector<std::string> keywords_in(std::string_view message) {
     return found;
 }
 
+bool is_pattern_char(char c) {
+    return is_word_char(c) || c == '.' || c == '*';
+}
+
+/// The member pattern (`A.*`, `*.base`) that an error at `at` falls in, or an
+/// empty view: a name is read up to the '*', so a pattern written where a
+/// node or a name is due fails inside it, with a message about what follows.
+std::string_view pattern_around(const char* at, const char* begin, const char* end) {
+    if (at >= end || !is_pattern_char(*at))
+        return {};
+    const char* first = at;
+    while (first > begin && is_pattern_char(first[-1]))
+        --first;
+    const char* last = at;
+    while (last < end && is_pattern_char(*last))
+        ++last;
+    std::string_view word(first, static_cast<std::size_t>(last - first));
+    bool named = std::any_of(word.begin(), word.end(), is_word_char);
+    bool starred = word.find('*') != std::string_view::npos;
+    // `**` is an operator slip in an expression (a power), not a pattern.
+    if (!named || !starred || word.find("**") != std::string_view::npos)
+        return {};
+    return word;
+}
+
 void Builder::recover_from(const pegtl::parse_error& e, const char* at, bool in_block) {
+    const char* text_end = base + sources.file(file).text.size();
+    bool unclosed_block = in_block && block_line > 0 && starts_statement(at, text_end);
+    if (unclosed_block && block_close_reported) {
+        reset_draft(in_block);
+        return;
+    }
+    std::string_view pattern = pattern_around(at, base, text_end);
+    if (!pattern.empty()) {
+        diagnostics.error(range(pattern.data(), pattern.data() + pattern.size()),
+                          fmt::format("'{}' is a pattern; a pattern with '*' names members and "
+                                      "may be used only in a group or after 'on' in a load",
+                                      pattern));
+        reset_draft(in_block);
+        count_error();
+        return;
+    }
     std::size_t width = 1;
     std::string found = found_at(at, width);
     std::string message(e.message());
@@ -181,13 +231,18 @@ void Builder::recover_from(const pegtl::parse_error& e, const char* at, bool in_
         found.find("reserved") == std::string::npos) {
         message += did_you_mean(found.substr(1, width), keywords_in(e.message()));
     }
-    if (in_block && block_line > 0 && starts_statement(at, base + sources.file(file).text.size())) {
+    if (unclosed_block) {
         message +=
             fmt::format(" (is the '}}' of the case block opened at line {} missing?)", block_line);
+        block_close_reported = true;
     }
-    const char* stop = std::min(at + width, base + sources.file(file).text.size());
+    const char* stop = std::min(at + width, text_end);
     diagnostics.error(range(at, stop), std::move(message));
+    reset_draft(in_block);
+    count_error();
+}
 
+void Builder::reset_draft(bool in_block) {
     exprs.clear();
     calls.clear();
     unit.clear();
@@ -198,6 +253,9 @@ void Builder::recover_from(const pegtl::parse_error& e, const char* at, bool in_
     load.reset();
     if (!in_block)
         statement.reset();
+}
+
+void Builder::count_error() {
     if (++syntax_errors >= kMaxSyntaxErrors)
         throw TooManyErrors{};
 }
@@ -929,6 +987,7 @@ struct action<g::block_open> {
     template <typename Input>
     static void apply(const Input& in, Builder& b) {
         b.block_line = b.range(in).begin.line;
+        b.block_close_reported = false;
     }
 };
 
