@@ -535,20 +535,33 @@ std::vector<std::pair<NodeId, syntax::Name>> support_nodes(Resolver& r,
     return found;
 }
 
+/// A node given a second support; `name` is the node or the grid line it is on.
+void report_second_support(Resolver& r, const syntax::Name& name, NodeId node,
+                           const Support& first) {
+    const std::string& node_name = r.model.nodes[at(node)].name;
+    std::string message = name.text == node_name
+                              ? fmt::format("node '{}' already has a support", node_name)
+                              : fmt::format("'{}' names node '{}', which already has a support",
+                                            name.text, node_name);
+    r.diagnostics.error(name.where, std::move(message)).note(first.where, "that support is here");
+}
+
 void resolve_supports(Resolver& r, const Collected& c) {
     std::vector<std::size_t> support_of;
     for (const syntax::SupportDecl* decl : c.supports) {
         auto restraint = restraints_of(decl->kind, decl->roller_free);
         resolve_springs(r, *decl, restraint);
+        std::optional<Position> reported;  // a grid line's nodes: one error for the line
         for (const auto& [node, name] : support_nodes(r, decl->nodes)) {
             support_of.resize(r.model.nodes.size(), SIZE_MAX);  // supports may add intersections
             std::size_t& existing = support_of[at(node)];
-            if (existing != SIZE_MAX) {
-                Diagnostic& d = r.diagnostics.error(
-                    name.where, fmt::format("node '{}' already has a support", name.text));
-                d.note(r.model.supports[existing].where, "that support is here");
-                continue;
+            if (existing != SIZE_MAX &&
+                (!reported || reported->offset != name.where.begin.offset)) {
+                report_second_support(r, name, node, r.model.supports[existing]);
+                reported = name.where.begin;
             }
+            if (existing != SIZE_MAX)
+                continue;
             existing = r.model.supports.size();
             r.model.supports.push_back(Support{node, support_kind(*decl), restraint, name.where});
         }

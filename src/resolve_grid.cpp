@@ -115,14 +115,15 @@ std::optional<std::vector<std::string>> run_names(Resolver& r, const syntax::Gri
                             fmt::format("the run {}..{} goes backwards; write {}..{}", a, b, b, a));
         return std::nullopt;
     }
-    if (names.size() == 1) {
+    if (names.size() == 1 && a == b) {
         r.diagnostics.error(run_range(run),
-                            fmt::format("the run {}..{} names only one line; write one line "
-                                        "with its place, as in: {} = 0 ft",
+                            fmt::format("the run {}..{} names only one line; write a single "
+                                        "line as '{} =' and its place",
                                         a, b, a));
         return std::nullopt;
     }
-    if (names.size() > kMaxRunLines) {
+    // Two different names giving one line are long names saturated by letter_index.
+    if (names.size() > kMaxRunLines || names.size() == 1) {
         r.diagnostics.error(run_range(run),
                             fmt::format("a run has at most {} lines", kMaxRunLines));
         return std::nullopt;
@@ -201,11 +202,43 @@ void add_grid_line(Resolver& r, syntax::Axis axis, const syntax::Name& name,
     r.grid.push_back(GridRef{axis, g.position, place.has_value()});
 }
 
+/// After an error in a run, the names it was probably meant to define: every
+/// single letter (I and O included) or number between its ends, in either
+/// order, or else just its ends.
+std::vector<std::string> meant_names(const syntax::Grid::Run& run) {
+    const std::string& a = run.first.text;
+    const std::string& b = run.last.text;
+    std::vector<std::string> names;
+    auto pa = prefix_number(a), pb = prefix_number(b);
+    if (a.size() == 1 && b.size() == 1 && all_upper(a) && all_upper(b)) {
+        for (char c = std::min(a[0], b[0]); c <= std::max(a[0], b[0]); ++c)
+            names.emplace_back(1, c);
+    } else if (pa && pb && pa->first == pb->first) {
+        auto [lo, hi] = std::minmax(pa->second, pb->second);
+        for (long long k = lo; k <= hi && names.size() <= kMaxRunLines; ++k)
+            names.push_back(fmt::format("{}{}", pa->first, k));
+    } else {
+        names = {a, b};
+    }
+    return names;
+}
+
+/// Defines the lines a run with an error was meant to have, without places,
+/// so statements naming them are quiet instead of repeating the run's error.
+void add_unplaced_lines(Resolver& r, const syntax::Grid& grid) {
+    for (const std::string& name : meant_names(*grid.run)) {
+        if (!r.grid_lines.find_quietly(name))
+            add_grid_line(r, grid.axis, syntax::Name{name, run_range(*grid.run)}, std::nullopt);
+    }
+}
+
 void resolve_run(Resolver& r, const syntax::Grid& grid) {
     const syntax::Grid::Run& run = *grid.run;
     auto names = run_names(r, run);
-    if (!names)
+    if (!names) {
+        add_unplaced_lines(r, grid);
         return;
+    }
     auto places = run_places(r, run, names->size());
     SourceRange where = run_range(run);
     for (std::size_t k = 0; k < names->size(); ++k) {
@@ -427,8 +460,11 @@ class MemberAdder {
     /// but marked invalid, its error already reported).
     void add(const NewMember& m, bool placed, SourceRange end_where) {
         all_placed_ = all_placed_ && placed;
-        if (!r_.members.add(syntax::Name{m.name, m.where}, r_.diagnostics))
+        if (auto first = r_.members.find_quietly(m.name)) {
+            note_duplicate(m, *first);
             return;
+        }
+        r_.members.add(syntax::Name{m.name, m.where}, r_.diagnostics);
         Member member{m.name, m.start, m.end,  section_.value_or(SectionId{}),
                       false,  false,   m.where};
         bool valid = section_.has_value() && placed;
@@ -448,6 +484,7 @@ class MemberAdder {
     /// Reports a hinge at a node where no member of the statement ends (unless
     /// a member's nodes had errors: the hinge may be right and the node wrong).
     void finish(const char* what) {
+        report_duplicates();
         if (!all_placed_)
             return;
         for (std::size_t i = 0; i < hinges_.size(); ++i) {
@@ -460,6 +497,39 @@ class MemberAdder {
     }
 
   private:
+    /// Names a statement makes that are taken, by the place in the statement
+    /// that made them, with the first taken name's index.
+    struct Duplicates {
+        SourceRange where;
+        std::size_t first;
+        std::vector<std::string> names;
+    };
+
+    void note_duplicate(const NewMember& m, std::size_t first) {
+        auto same_place = [&](const Duplicates& d) {
+            return d.where.file == m.where.file && d.where.begin.offset == m.where.begin.offset;
+        };
+        auto it = std::find_if(duplicates_.begin(), duplicates_.end(), same_place);
+        if (it == duplicates_.end())
+            it = duplicates_.insert(it, Duplicates{m.where, first, {}});
+        it->names.push_back(m.name);
+    }
+
+    /// One error per place that made taken names (a generator over a line
+    /// already done makes several), naming them all.
+    void report_duplicates() {
+        for (const Duplicates& d : duplicates_) {
+            std::vector<std::string> rest(d.names.begin(), d.names.end() - 1);
+            std::string message =
+                rest.empty() ? fmt::format("member '{}' is already defined", d.names.back())
+                             : fmt::format("members '{}' and '{}' are already defined",
+                                           fmt::join(rest, "', '"), d.names.back());
+            r_.diagnostics.error(d.where, std::move(message))
+                .note(r_.members.where(d.first), "first defined here");
+        }
+        duplicates_.clear();
+    }
+
     void set_hinges(Member& m) {
         for (std::size_t i = 0; i < hinges_.size(); ++i) {
             if (hinges_[i] == m.start || hinges_[i] == m.end) {
@@ -475,6 +545,7 @@ class MemberAdder {
     std::optional<SectionId> section_;
     std::vector<std::optional<NodeId>> hinges_;
     std::vector<char> hinge_used_;
+    std::vector<Duplicates> duplicates_;
     bool all_placed_ = true;
 };
 
@@ -492,10 +563,23 @@ void resolve_member(Resolver& r, const syntax::MemberDecl& decl) {
 }
 
 /// The grid line `name` on `axis`, or nullopt after an error.
+/// Reports a line a generator names that does not exist. Single letters and
+/// numbers are never near misses, so a short grid is listed instead.
+void report_unknown_line(Resolver& r, const syntax::Name& name, syntax::Axis axis) {
+    constexpr std::size_t kListed = 8;
+    std::vector<std::string> names = line_names(r, axis);
+    std::string hint = did_you_mean(name.text, r.grid_lines.names());
+    if (hint.empty() && !names.empty() && names.size() <= kListed)
+        hint = fmt::format("; the {}s are {}", axis_noun(axis), fmt::join(names, ", "));
+    r.diagnostics.error(name.where, fmt::format("unknown grid line '{}'{}", name.text, hint));
+}
+
 std::optional<std::size_t> grid_line_on(Resolver& r, const syntax::Name& name, syntax::Axis axis) {
-    auto i = r.grid_lines.find(name, r.diagnostics);
-    if (!i)
+    auto i = r.grid_lines.find_quietly(name.text);
+    if (!i) {
+        report_unknown_line(r, name, axis);
         return std::nullopt;
+    }
     if (r.grid[*i].axis != axis) {
         r.diagnostics.error(name.where,
                             fmt::format("'{}' is a {}, not a {}", name.text,
@@ -620,8 +704,8 @@ void resolve_grid_members(Resolver& r, const Decl& decl,
         if (crossing.size() < 2) {
             r.members_missing = true;
             r.diagnostics.error(decl.to.where,
-                                fmt::format("{} need two different {}s", what,
-                                            across == syntax::Axis::y ? "level" : "column line"));
+                                fmt::format("{} from '{}' to '{}' need two different {}s", what,
+                                            decl.from.text, decl.to.text, axis_noun(across)));
         }
         for (const auto& [line, where] : lines) {
             split_along(r, line, crossing, where,
@@ -690,6 +774,14 @@ void resolve_rafters(Resolver& r, const syntax::RaftersDecl& decl) {
         }
         const Node& a = r.model.nodes[at(*points[k])];
         const Node& b = r.model.nodes[at(*points[k + 1])];
+        if (*points[k] == *points[k + 1]) {
+            r.diagnostics.error(decl.points[k + 1].where,
+                                fmt::format("rafters from '{}' to '{}' have no length: both are "
+                                            "the same point",
+                                            decl.points[k].text, decl.points[k + 1].text));
+            r.members_missing = true;
+            continue;
+        }
         if (std::abs(a.x - b.x) <= kOnLine) {
             r.diagnostics.error(decl.points[k + 1].where,
                                 fmt::format("rafters from '{}' to '{}' would be vertical; use "
