@@ -31,6 +31,37 @@ bool glob_match(std::string_view pattern, std::string_view text) {
     return p == pattern.size();
 }
 
+/// The pattern with each piece between dots that is in no member name
+/// replaced by the closest piece that is (`eaves.*` -> `eave.*`), if the result
+/// matches some member; otherwise "".
+std::string pattern_near_miss(const Resolver& r, const std::string& pattern) {
+    std::vector<std::string> pieces;
+    for (const Member& m : r.model.members) {
+        for (std::size_t at = 0, dot = 0; dot != std::string::npos; at = dot + 1) {
+            dot = m.name.find('.', at);
+            pieces.push_back(m.name.substr(at, dot == std::string::npos ? dot : dot - at));
+        }
+    }
+    std::sort(pieces.begin(), pieces.end());
+    pieces.erase(std::unique(pieces.begin(), pieces.end()), pieces.end());
+    std::string fixed;
+    for (std::size_t at = 0, dot = 0; dot != std::string::npos; at = dot + 1) {
+        dot = pattern.find('.', at);
+        std::string piece = pattern.substr(at, dot == std::string::npos ? dot : dot - at);
+        bool known = piece.find('*') != std::string::npos ||
+                     std::binary_search(pieces.begin(), pieces.end(), piece);
+        std::string near = known ? piece : closest_match(piece, pieces);
+        if (at > 0)
+            fixed += '.';
+        fixed += near.empty() ? piece : near;
+    }
+    for (const Member& m : r.model.members) {
+        if (fixed != pattern && glob_match(fixed, m.name))
+            return fixed;
+    }
+    return {};
+}
+
 std::optional<std::vector<MemberId>> members_matching(Resolver& r, const syntax::Name& pattern) {
     std::vector<MemberId> ids;
     for (std::size_t i = 0; i < r.model.members.size(); ++i) {
@@ -38,8 +69,13 @@ std::optional<std::vector<MemberId>> members_matching(Resolver& r, const syntax:
             ids.push_back(make_id<MemberId>(i));
     }
     if (ids.empty()) {
-        if (!r.members_missing)
-            r.diagnostics.error(pattern.where, fmt::format("no member matches '{}'", pattern.text));
+        if (r.members_missing)
+            return std::nullopt;
+        std::string near = pattern_near_miss(r, pattern.text);
+        r.diagnostics.error(
+            pattern.where,
+            fmt::format("no member matches '{}'{}", pattern.text,
+                        near.empty() ? "" : fmt::format("; did you mean '{}'?", near)));
         return std::nullopt;
     }
     return ids;
