@@ -178,11 +178,36 @@ bool is_pattern_char(char c) {
     return is_word_char(c) || c == '.' || c == '*';
 }
 
+/// True if `message` is that of a rule that reads a name (of a node, a grid
+/// line, a group, ...), where a pattern is not allowed.
+bool expects_name(std::string_view message) {
+    static const std::array<const char*, 25> rules{
+        g::errors::message<g::node_name>,        g::errors::message<g::coordinate>,
+        g::errors::message<g::material_name>,    g::errors::message<g::section_name>,
+        g::errors::message<g::section_material>, g::errors::message<g::member_name>,
+        g::errors::message<g::member_start>,     g::errors::message<g::member_end>,
+        g::errors::message<g::member_section>,   g::errors::message<g::hinge_node>,
+        g::errors::message<g::support_node>,     g::errors::message<g::case_name>,
+        g::errors::message<g::node_list>,        g::errors::message<g::load_node>,
+        g::errors::message<g::let_name>,         g::errors::message<g::run_last>,
+        g::errors::message<g::line_ranges>,      g::errors::message<g::line_range>,
+        g::errors::message<g::range_last>,       g::errors::message<g::span_from>,
+        g::errors::message<g::span_to>,          g::errors::message<g::rafter_run>,
+        g::errors::message<g::rafter_point>,     g::errors::message<g::group_name>,
+        g::errors::message<g::tag_name>};
+    return std::find(rules.begin(), rules.end(), message) != rules.end();
+}
+
 /// The member pattern (`A.*`, `*.base`) that an error at `at` falls in, or an
-/// empty view: a name is read up to the '*', so a pattern written where a
-/// node or a name is due fails inside it, with a message about what follows.
-std::string_view pattern_around(const char* at, const char* begin, const char* end) {
+/// empty view. A name is read up to the '*', so a pattern written where a name
+/// is due fails inside it (`A.*`: at the '.'), whatever was expected next; or
+/// at its start if it starts with '*', when a name was expected there.
+std::string_view pattern_around(const char* at, const char* begin, const char* end,
+                                std::string_view message) {
     if (at >= end || !is_pattern_char(*at))
+        return {};
+    bool inside = at > begin && is_pattern_char(at[-1]);
+    if (!inside && !(*at == '*' && expects_name(message)))
         return {};
     const char* first = at;
     while (first > begin && is_pattern_char(first[-1]))
@@ -206,7 +231,7 @@ void Builder::recover_from(const pegtl::parse_error& e, const char* at, bool in_
         reset_draft(in_block);
         return;
     }
-    std::string_view pattern = pattern_around(at, base, text_end);
+    std::string_view pattern = pattern_around(at, base, text_end, e.message());
     if (!pattern.empty()) {
         diagnostics.error(range(pattern.data(), pattern.data() + pattern.size()),
                           fmt::format("'{}' is a pattern; a pattern with '*' names members and "
