@@ -18,4 +18,7 @@ enum ExitStatus : int {
 /// `firn run MODEL`: analyse a model and print its report. Sets `status` when run.
 void add_run_command(CLI::App& app, int& status);
 
+/// `firn fmt [--check] [--stdout] FILE...`: rewrite model files in the canonical layout.
+void add_fmt_command(CLI::App& app, int& status);
+
 }  // namespace firn

@@ -38,6 +38,7 @@ int main(int argc, char** argv) {
     app.set_version_flag("--version", "firn 0.1.0");
     app.require_subcommand(1);
     firn::add_run_command(app, status);
+    firn::add_fmt_command(app, status);
     if (is_unknown_command(app, argc, argv))
         return firn::exit_model_error;
     try {

@@ -1,7 +1,8 @@
 # Runs one command-line case: tests/cli/NAME.args holds the arguments (one per
 # line, paths relative to the repository); NAME.stdout, NAME.stderr and
 # NAME.status hold what firn must print and its exit status. An optional NAME.env
-# holds environment settings (NAME=VALUE, one per line) for the run.
+# holds environment settings (NAME=VALUE, one per line) for the run, and an
+# optional NAME.stdin is given to firn as its standard input.
 # Invoked by CTest:  cmake -DFIRN=<firn> -DCASE=tests/cli/NAME -P tests/cli.cmake
 file(STRINGS "${CASE}.args" args)
 set(env "")
@@ -9,7 +10,11 @@ if(EXISTS "${CASE}.env")
   file(STRINGS "${CASE}.env" settings)
   set(env ${CMAKE_COMMAND} -E env ${settings})
 endif()
-execute_process(COMMAND ${env} ${FIRN} ${args}
+set(input "")
+if(EXISTS "${CASE}.stdin")
+  set(input INPUT_FILE "${CASE}.stdin")
+endif()
+execute_process(COMMAND ${env} ${FIRN} ${args} ${input}
                 OUTPUT_VARIABLE out ERROR_VARIABLE err RESULT_VARIABLE status)
 file(READ "${CASE}.status" expected_status)
 string(STRIP "${expected_status}" expected_status)
