@@ -73,6 +73,7 @@ struct Builder {
     /// The open block's missing '}' is reported: the statements after it are
     /// not reported again, one by one, as loads that are not loads.
     bool block_close_reported = false;
+    const char* block_open = nullptr;  ///< the '{' of the open block
     std::size_t syntax_errors = 0;
     std::uint32_t next_comment_offset = 0;
 
@@ -111,6 +112,7 @@ struct Builder {
     }
 
     void recover_from(const pegtl::parse_error& e, const char* at, bool in_block);
+    void report_unclosed_block();
     /// Drops the draft of the broken statement (or load).
     void reset_draft(bool in_block);
     /// Counts a reported syntax error; stops reading the file after too many.
@@ -231,6 +233,11 @@ void Builder::recover_from(const pegtl::parse_error& e, const char* at, bool in_
         reset_draft(in_block);
         return;
     }
+    if (e.message() == g::errors::message<g::block_close> && block_line > 0) {
+        report_unclosed_block();
+        reset_draft(in_block);
+        return;
+    }
     std::string_view pattern = pattern_around(at, base, text_end, e.message());
     if (!pattern.empty()) {
         diagnostics.error(range(pattern.data(), pattern.data() + pattern.size()),
@@ -246,9 +253,6 @@ void Builder::recover_from(const pegtl::parse_error& e, const char* at, bool in_
     std::string message(e.message());
     if (message.rfind("parse error matching", 0) == 0)
         message = "this is not valid here";
-    if (message == g::errors::message<g::block_close> && block_line > 0) {
-        message += fmt::format(" opened at line {}", block_line);
-    }
     bool expected_something = message.rfind("expected", 0) == 0;
     if (expected_something)
         message += ", found " + found;
@@ -264,6 +268,18 @@ void Builder::recover_from(const pegtl::parse_error& e, const char* at, bool in_
     const char* stop = std::min(at + width, text_end);
     diagnostics.error(range(at, stop), std::move(message));
     reset_draft(in_block);
+    count_error();
+}
+
+/// The file ends inside a case block. The error is put at the '{' that is
+/// never closed: the end of the file is no place to look at, and a '}'
+/// reported missing before a statement inside the block was this same slip.
+void Builder::report_unclosed_block() {
+    if (block_close_reported)
+        return;
+    block_close_reported = true;
+    diagnostics.error(range(block_open, block_open + 1),
+                      "this case block is never closed: expected '}' before the end of the file");
     count_error();
 }
 
@@ -1012,6 +1028,7 @@ struct action<g::block_open> {
     template <typename Input>
     static void apply(const Input& in, Builder& b) {
         b.block_line = b.range(in).begin.line;
+        b.block_open = in.begin();
         b.block_close_reported = false;
     }
 };

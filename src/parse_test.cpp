@@ -112,12 +112,14 @@ TEST_CASE("syntax errors: exact message, line and column") {
           "did you mean 'pinned'?");
 }
 
-TEST_CASE("an unclosed case block names the line that opened it") {
+TEST_CASE("an unclosed case block is reported once, at its '{' or where it runs into a statement") {
     CHECK(messages_for("case L live {\n  uniform 3 kip/ft down on M1\n") ==
-          "input:3:1: error: expected '}' to close the case block opened at line 1, found the end "
-          "of the file\n"
-          "    \n"
-          "    ^\n");
+          "input:1:13: error: this case block is never closed: expected '}' before the end of the "
+          "file\n"
+          "    case L live {\n"
+          "                ^\n");
+    CHECK(messages_for("case L live {\n  uniform 3 kip/ft down on M1\ngrid x A = 3 ft\n")
+              .find("never closed") == std::string::npos);
     CHECK(first_message("case L live {\n  uniform 3 kip/ft down on M1\ngrid x A = 3 ft\n") ==
           "input:3:1: error: expected a load (uniform, linear, point, moment or self weight) or "
           "'}', found "
