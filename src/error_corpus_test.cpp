@@ -6,6 +6,7 @@
 // A diagnostic in the model file is written without its file name; one in
 // another file keeps its name relative to tests/errors (`parts/x.firn:1:5: ...`).
 // Only first lines are compared: notes ("first defined here") are not.
+#include <fmt/format.h>
 #include <algorithm>
 #include <catch2/catch.hpp>
 #include <filesystem>
@@ -87,7 +88,7 @@ std::vector<std::string> reported_lines(const Analysis& analysis, const fs::path
 std::string listed(const std::vector<std::string>& lines) {
     std::string out;
     for (const std::string& line : lines)
-        out += "  " + line + "\n";
+        out += fmt::format("  {}\n", line);
     return out.empty() ? "  (none)\n" : out;
 }
 
