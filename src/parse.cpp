@@ -24,9 +24,12 @@ namespace g = grammar;
 namespace pegtl = tao::pegtl;
 using syntax::Expr;
 
-/// Expressions deeper than this are refused, so hostile input cannot
+/// Expressions nested deeper than this are refused, so hostile input cannot
 /// exhaust the stack.
 constexpr int kMaxNesting = 100;
+/// The same for the depth of an expression's tree, which a long chain such as
+/// `1 ft + 1 ft + ...` builds without nesting; the tree is walked recursively.
+constexpr std::uint32_t kMaxDepth = 1000;
 /// After this many syntax errors the rest of the file is not read.
 constexpr std::size_t kMaxSyntaxErrors = 50;
 
@@ -417,9 +420,19 @@ struct action<g::paren_open> {
 template <>
 struct action<g::minus_sign> : action<g::paren_open> {};
 
+/// Refuses an expression whose tree has grown too deep.
+template <typename Input>
+void check_depth(const Expr& e, const Input& in) {
+    if (e.depth > kMaxDepth) {
+        throw pegtl::parse_error(
+            fmt::format("this expression is too long (more than {} operations)", kMaxDepth), in);
+    }
+}
+
 Expr unary(Expr::Kind kind, Expr operand, SourceRange where) {
     Expr e;
     e.kind = kind;
+    e.depth = operand.depth + 1;
     e.rhs = std::make_unique<Expr>(std::move(operand));
     e.where = where;
     return e;
@@ -430,6 +443,7 @@ struct action<g::group> {
     template <typename Input>
     static void apply(const Input& in, Builder& b) {
         b.exprs.push_back(unary(Expr::Kind::group, b.pop_expr(), b.range(in)));
+        check_depth(b.exprs.back(), in);
         --b.nesting;
     }
 };
@@ -439,6 +453,7 @@ struct action<g::negation> {
     template <typename Input>
     static void apply(const Input& in, Builder& b) {
         b.exprs.push_back(unary(Expr::Kind::negate, b.pop_expr(), b.range(in)));
+        check_depth(b.exprs.back(), in);
         --b.nesting;
     }
 };
@@ -457,6 +472,8 @@ void fold_binary(const Input& in, Builder& b) {
              : op == '^' ? Expr::Kind::power
                          : Expr::Kind::subtract;
     e.where = SourceRange{lhs.where.file, lhs.where.begin, rhs.where.end};
+    e.depth = std::max(lhs.depth, rhs.depth) + 1;
+    check_depth(e, in);
     e.lhs = std::make_unique<Expr>(std::move(lhs));
     e.rhs = std::make_unique<Expr>(std::move(rhs));
     b.exprs.push_back(std::move(e));
@@ -518,6 +535,9 @@ struct action<g::call> {
         auto first = b.exprs.begin() + static_cast<std::ptrdiff_t>(open.first_argument);
         e.args.assign(std::make_move_iterator(first), std::make_move_iterator(b.exprs.end()));
         b.exprs.erase(first, b.exprs.end());
+        for (const Expr& a : e.args)
+            e.depth = std::max(e.depth, a.depth + 1);
+        check_depth(e, in);
         b.exprs.push_back(std::move(e));
         --b.nesting;
     }

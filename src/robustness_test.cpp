@@ -36,6 +36,18 @@ TEST_CASE("NaN and infinity are not numbers the language reads") {
           "input:9:20: error: expected the end of the statement (a new line or ';'), found 'ft'");
 }
 
+TEST_CASE("a very long chain of terms is refused with a located error") {
+    std::string chain = "1 ft";
+    for (int i = 0; i < 200000; ++i)
+        chain += " + 1 ft";
+    // The 1000th "+" makes a tree 1001 levels deep; "let a = " takes 8 columns,
+    // each term 7.
+    CHECK(first_message(std::string(kBaseModel) + "let a = " + chain + "\n") ==
+          "input:9:7006: error: this expression is too long (more than 1000 operations)");
+    std::string inside = "(((((" + chain.substr(0, 4 + 7 * 299) + ")))))";
+    CHECK(messages_for(std::string(kBaseModel) + "let a = " + inside + "\n").empty());
+}
+
 TEST_CASE("deep powers and calls are refused with a located error") {
     std::string powers;
     std::string calls;

@@ -3,6 +3,7 @@
 // them meaning. Every node keeps its source range.
 #pragma once
 
+#include <cstdint>
 #include <memory>
 #include <optional>
 #include <string>
@@ -49,6 +50,7 @@ struct Expr {
     std::optional<Name> bad_unit;    ///< a word after the number that is no unit
     std::unique_ptr<Expr> lhs, rhs;  ///< operands (rhs only for negate and group)
     std::vector<Expr> args;          ///< arguments of a call
+    std::uint32_t depth = 1;         ///< levels of the tree below and including this one
     SourceRange where;
 };
 
