@@ -762,6 +762,15 @@ void rafter_piece(Resolver& r, const syntax::RaftersDecl& decl, NodeId a, NodeId
     }
 }
 
+/// Why no rafter can run from `a` to `b`, or nullptr if one can.
+const char* unusable_piece(const Resolver& r, NodeId a, NodeId b) {
+    if (a == b)
+        return "have no length: both are the same point";
+    if (std::abs(r.model.nodes[at(a)].x - r.model.nodes[at(b)].x) <= kOnLine)
+        return "would be vertical; use columns for that";
+    return nullptr;
+}
+
 void resolve_rafters(Resolver& r, const syntax::RaftersDecl& decl) {
     std::vector<std::optional<NodeId>> points;
     for (const syntax::Name& p : decl.points)
@@ -772,21 +781,10 @@ void resolve_rafters(Resolver& r, const syntax::RaftersDecl& decl) {
             r.members_missing = true;
             continue;
         }
-        const Node& a = r.model.nodes[at(*points[k])];
-        const Node& b = r.model.nodes[at(*points[k + 1])];
-        if (*points[k] == *points[k + 1]) {
+        if (const char* why = unusable_piece(r, *points[k], *points[k + 1])) {
             r.diagnostics.error(decl.points[k + 1].where,
-                                fmt::format("rafters from '{}' to '{}' have no length: both are "
-                                            "the same point",
-                                            decl.points[k].text, decl.points[k + 1].text));
-            r.members_missing = true;
-            continue;
-        }
-        if (std::abs(a.x - b.x) <= kOnLine) {
-            r.diagnostics.error(decl.points[k + 1].where,
-                                fmt::format("rafters from '{}' to '{}' would be vertical; use "
-                                            "columns for that",
-                                            decl.points[k].text, decl.points[k + 1].text));
+                                fmt::format("rafters from '{}' to '{}' {}", decl.points[k].text,
+                                            decl.points[k + 1].text, why));
             r.members_missing = true;
             continue;
         }
