@@ -19,7 +19,7 @@ struct errors {
 #define FIRN_ERROR(rule, text) \
     template <> inline constexpr const char* errors::message<rule> = text;
 
-FIRN_ERROR(unknown_statement, "expected a statement (model, use, let, report, grid, node, material, section, member, columns, beams, rafters, group, support or case)")
+FIRN_ERROR(unknown_statement, "expected a statement (model, use, let, report, grid, node, material, section, member, columns, beams, rafters, group, support, case, snow, roof or amend)")
 FIRN_ERROR(end_of_statement, "expected the end of the statement (a new line or ';')")
 FIRN_ERROR(title, "expected the model title in double quotes, as in: model \"Frame on line 3\"")
 FIRN_ERROR(one<'"'>, "expected '\"' to close the text on this line")
@@ -98,6 +98,17 @@ FIRN_ERROR(rafter_point, "expected a node or a grid intersection such as C.ridge
 FIRN_ERROR(rafter_next, "expected 'to' and the next point of the run, such as C.ridge")
 FIRN_ERROR(group_name, "expected a group name")
 FIRN_ERROR(group_member, "expected a member, a group or a pattern such as eave.*")
+
+FIRN_ERROR(setting, "expected a setting such as pg = 40 psf")
+FIRN_ERROR(reason, "expected the reason in double quotes, as in: because \"county amendment 12\"")
+FIRN_ERROR(because, "expected 'because' and the reason in double quotes")
+FIRN_ERROR(settings_block, "expected '{' to open the settings")
+FIRN_ERROR(snow_name, "expected a name for the snow cases, as in: snow S {")
+FIRN_ERROR(roof_name, "expected a roof name, as in: roof main on eave.* {")
+FIRN_ERROR(roof_on, "expected 'on' and the roof's members, as in: roof main on eave.* {")
+FIRN_ERROR(roof_members, "expected the roof's members, a group or a pattern such as eave.*")
+FIRN_ERROR(roof_member, "expected a member, a group or a pattern such as eave.*")
+FIRN_ERROR(amend_name, "expected the name of the library value to amend")
 
 #undef FIRN_ERROR
 // clang-format on

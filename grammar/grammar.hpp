@@ -36,8 +36,10 @@ struct word_char : ranges<'a', 'z', 'A', 'Z', '0', '9', '_'> {};
 
 // ORDER KEYWORDS: one rule per word of grammar/keywords.hpp.
 struct kw_along : TAO_PEGTL_KEYWORD("along") {};
+struct kw_amend : TAO_PEGTL_KEYWORD("amend") {};
 struct kw_at : TAO_PEGTL_KEYWORD("at") {};
 struct kw_axial : TAO_PEGTL_KEYWORD("axial") {};
+struct kw_because : TAO_PEGTL_KEYWORD("because") {};
 struct kw_beams : TAO_PEGTL_KEYWORD("beams") {};
 struct kw_case : TAO_PEGTL_KEYWORD("case") {};
 struct kw_clockwise : TAO_PEGTL_KEYWORD("clockwise") {};
@@ -97,7 +99,7 @@ template <typename... Words> struct keyword_list : sor<Words...> {
 };
 // reserved  <- any keyword of `keywords` (not the contextual ones)
 struct reserved : keyword_list<
-    kw_along, kw_at, kw_axial, kw_beams, kw_case, kw_clockwise, kw_columns,
+    kw_along, kw_amend, kw_at, kw_axial, kw_because, kw_beams, kw_case, kw_clockwise, kw_columns,
     kw_counterclockwise, kw_dead, kw_displacement, kw_down, kw_fixed, kw_free, kw_from, kw_grid,
     kw_group, kw_hinge, kw_ishape, kw_let, kw_linear, kw_live, kw_material, kw_member, kw_model,
     kw_moment, kw_node, kw_on, kw_other, kw_outside, kw_pinned, kw_point, kw_projected,
@@ -482,10 +484,44 @@ struct case_begin : kw_case {};
 struct case_stmt : if_must<case_begin, sp, case_name, sp, case_kind, sp, block_open, sp_nl,
                            star<block_item>, block_close> {};
 
+// ---------------------------------------------------------------- snow data
+
+// setting     <- name sp '=' sp expr (sp 'because' sp quoted)?
+//                a value of the snow site or a roof; an enumerated value is a word
+struct setting_key : name {};
+struct reason : if_must<one<'"'>, star<sor<seq<one<'\\'>, one<'"', '\\'>>, not_one<'"', '\\', '\n', '\r'>>>,
+                        one<'"'>> {};
+struct because : if_must<kw_because, sp, reason> {};
+struct setting : if_must<setting_key, sp, equals, sp, expr, opt<sp, because>> {};
+struct setting_line : seq<setting, sp, must<end_of_statement>> {};
+struct setting_item : seq<not_at<sor<block_close, eof>>, recover<setting_line, skip_in_block>, sp_nl> {};
+struct settings_block : if_must<block_open, sp_nl, star<setting_item>, block_close> {};
+
+// snow_stmt   <- 'snow' sp name sp '{' sp_nl (setting sp_nl)* '}'      site data; cases NAME.*
+struct snow_name : name {};
+struct snow_begin : kw_snow {};
+struct snow_stmt : if_must<snow_begin, sp, snow_name, sp, settings_block> {};
+
+// roof_stmt   <- 'roof' sp name sp 'on' sp member_ref (list_sep member_ref)* sp '{' ... '}'
+struct roof_name : name {};
+struct roof_member : member_ref {};
+struct roof_members : seq<roof_member, star<if_must<list_sep, roof_member>>> {};
+struct roof_begin : kw_roof {};
+struct roof_on : kw_on {};
+struct roof_stmt : if_must<roof_begin, sp, roof_name, sp, roof_on, sp, roof_members, sp,
+                           settings_block> {};
+
+// amend_stmt  <- 'amend' sp name sp '=' sp expr sp 'because' sp quoted
+//                replaces a value of the library, with the reason
+struct amend_name : name {};
+struct amend_begin : kw_amend {};
+struct amend_stmt : if_must<amend_begin, sp, amend_name, sp, equals, sp, expr, sp, because> {};
+
 struct unknown_statement : failure {};
 struct statement : sor<model_stmt, use_stmt, let_stmt, report_stmt, grid_stmt, node_stmt,
                        material_stmt, section_stmt, member_stmt, columns_stmt, beams_stmt,
-                       rafters_stmt, group_stmt, support_stmt, case_stmt,
+                       rafters_stmt, group_stmt, support_stmt, case_stmt, snow_stmt, roof_stmt,
+                       amend_stmt,
                        raise<unknown_statement>> {};
 struct statement_line : seq<statement, sp, must<end_of_statement>> {};
 struct top_item : seq<not_at<eof>, recover<statement_line, skip_statement>, sp_nl> {};

@@ -10,34 +10,19 @@
 namespace firn::grammar {
 
 // ORDER KEYWORDS
-inline constexpr std::array<std::string_view, 54> keywords{
-    "along",    "at",
-    "axial",    "beams",
-    "case",     "clockwise",
-    "columns",  "counterclockwise",
-    "dead",     "displacement",
-    "down",     "fixed",
-    "free",     "from",
-    "grid",     "group",
-    "hinge",    "ishape",
-    "let",      "linear",
-    "live",     "material",
-    "member",   "model",
-    "moment",   "node",
-    "on",       "other",
-    "outside",  "pinned",
-    "point",    "projected",
-    "rafters",  "rectangle",
-    "report",   "roller",
-    "rotation", "section",
-    "self",     "snow",
-    "spacing",  "spring",
-    "support",  "tag",
-    "to",       "transverse",
-    "uniform",  "units",
-    "up",       "use",
-    "weight",   "wind",
-    "x",        "y",
+inline constexpr std::array<std::string_view, 56> keywords{
+    "along",     "amend",        "at",         "axial",     "because",
+    "beams",     "case",         "clockwise",  "columns",   "counterclockwise",
+    "dead",      "displacement", "down",       "fixed",     "free",
+    "from",      "grid",         "group",      "hinge",     "ishape",
+    "let",       "linear",       "live",       "material",  "member",
+    "model",     "moment",       "node",       "on",        "other",
+    "outside",   "pinned",       "point",      "projected", "rafters",
+    "rectangle", "report",       "roller",     "rotation",  "section",
+    "self",      "snow",         "spacing",    "spring",    "support",
+    "tag",       "to",           "transverse", "uniform",   "units",
+    "up",        "use",          "weight",     "wind",      "x",
+    "y",
 };
 
 /// Words that are keywords only where the grammar expects them, and otherwise

@@ -5,6 +5,7 @@
 
 #include "file_io.hpp"
 #include "resolve.hpp"
+#include "snow.hpp"
 
 namespace firn {
 namespace {
@@ -44,6 +45,9 @@ Analysis analyse_text(std::string name, std::string text, PhaseTimes* times,
     if (a.diagnostics.has_errors())
         return a;
 
+    derive_snow(a.model, a.diagnostics);
+    if (a.diagnostics.has_errors())
+        return a;
     a.loads = derive_loads(a.model, a.diagnostics);
     t.loads = clock.lap();
     if (a.diagnostics.has_errors())

@@ -5,6 +5,7 @@
 
 #include <array>
 #include <cstdint>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -152,6 +153,68 @@ struct LoadCase {
     SourceRange where;
 };
 
+/// The values of a snow standard that its library module gives (for ASCE 7-16,
+/// stdlib/asce7_16.firn), in SI; angles in radians. C++ holds the formulas.
+struct SnowTables {
+    double pf_factor = 0.0;                     ///< 0.7 of Eq. 7.3-1
+    double pm_pg_limit = 0.0;                   ///< pg up to which pm = Is pg
+    double pm_max_slope = 0.0;                  ///< pm applies to roofs flatter than this
+    double Cs_knee[3][2] = {};                  ///< [warm, cold ventilated, cold][slippery, other]
+    double Cs_zero_slope = 0.0;                 ///< Cs = 0 from this slope on
+    double warm_slippery_R_unventilated = 0.0;  ///< insulation for the warm slippery curve
+    double warm_slippery_R_ventilated = 0.0;
+    double rain_pg_limit = 0.0;      ///< rain-on-snow applies for 0 < pg <= this
+    double rain_surcharge = 0.0;     ///< Pa
+    double rain_W_per_degree = 0.0;  ///< slope limit in degrees = W / this (m)
+};
+
+/// A factor of the snow provisions: its value and, when the user gave it
+/// instead of the table, the reason they stated.
+struct SnowFactor {
+    double value = 0.0;
+    std::string table;   ///< where the value comes from: "Table 7.3-1"
+    std::string reason;  ///< non-empty when overridden
+};
+
+/// The site's snow data (a `snow` statement): its cases are named NAME.balanced, ...
+struct SnowSite {
+    std::string name;
+    std::string standard;  ///< the library module, e.g. asce7_16
+    double pg = 0.0;       ///< ground snow load, Pa
+    std::string terrain, exposure, thermal, risk;
+    SnowFactor Ce, Ct, Is;
+    SnowTables tables;
+    SourceRange where;
+};
+
+/// A roof surface (a `roof` statement): members in order along the roof.
+struct Roof {
+    std::string name;
+    std::vector<MemberId> members;
+    double tributary = 0.0;     ///< m: width of roof each member carries
+    bool slippery = false;      ///< an unobstructed slippery surface
+    double insulation_R = 0.0;  ///< thermal resistance, ft^2*h*F/Btu (0: not given)
+    bool ventilated = false;
+    SourceRange where;
+};
+
+/// A library value replaced by `amend`, for the trace.
+struct Amendment {
+    std::string name;
+    double value = 0.0;  ///< SI
+    Dimension dimension;
+    std::string reason;
+    SourceRange where;
+};
+
+/// One line of the snow trace: a derived value with its formula, the values put
+/// in, the result and the clause; or a sentence saying why a provision does not apply.
+struct TraceLine {
+    std::string text;
+    std::string clause;
+    bool heading = false;  ///< starts a part: the site's data, or a roof
+};
+
 /// The whole resolved model. Vectors keep declaration order.
 struct Model {
     std::string title;
@@ -165,6 +228,10 @@ struct Model {
     std::vector<Member> members;
     std::vector<Support> supports;
     std::vector<LoadCase> cases;
+    std::optional<SnowSite> snow;
+    std::vector<Roof> roofs;
+    std::vector<Amendment> amendments;
+    std::vector<TraceLine> snow_trace;  ///< filled by derive_snow
 };
 
 /// Human words for enums, used by the report and in messages.

@@ -64,6 +64,7 @@ struct Builder {
     std::optional<syntax::Name> pending_name;
     std::optional<syntax::Axis> pending_axis;
     std::optional<syntax::Name> pending_role;
+    std::optional<std::pair<std::string, SourceRange>> pending_reason;  ///< `because "..."`
     /// Open calls: the function's name and where its arguments start on `exprs`.
     struct OpenCall {
         syntax::Name function;
@@ -73,6 +74,7 @@ struct Builder {
     bool pending_spring_fixed = false;
     int nesting = 0;
     std::uint32_t block_line = 0;
+    const char* block_kind = "case";  ///< what the open block belongs to, for messages
     /// The open block's missing '}' is reported: the statements after it are
     /// not reported again, one by one, as loads that are not loads.
     bool block_close_reported = false;
@@ -148,11 +150,19 @@ std::string Builder::found_at(const char* at, std::size_t& width) const {
     return fmt::format("'{}'", *at);
 }
 
+/// True if only spaces stand between the start of its line and `at`.
+bool starts_line(const char* at, const char* begin) {
+    while (at > begin && (at[-1] == ' ' || at[-1] == '\t'))
+        --at;
+    return at == begin || at[-1] == '\n';
+}
+
 /// True if the text at `at` begins with a keyword that starts a top-level statement.
 bool starts_statement(const char* at, const char* end) {
-    static constexpr std::array<std::string_view, 15> words{
-        "model",  "use",     "let",   "report",  "grid",  "node",    "material", "section",
-        "member", "columns", "beams", "rafters", "group", "support", "case"};
+    static constexpr std::array<std::string_view, 18> words{
+        "snow",    "roof",  "amend",   "model",    "use",     "let",
+        "report",  "grid",  "node",    "material", "section", "member",
+        "columns", "beams", "rafters", "group",    "support", "case"};
     for (std::string_view w : words) {
         if (static_cast<std::size_t>(end - at) < w.size())
             continue;
@@ -231,7 +241,8 @@ std::string_view pattern_around(const char* at, const char* begin, const char* e
 
 void Builder::recover_from(const pegtl::parse_error& e, const char* at, bool in_block) {
     const char* text_end = base + sources.file(file).text.size();
-    bool unclosed_block = in_block && block_line > 0 && starts_statement(at, text_end);
+    bool unclosed_block =
+        in_block && block_line > 0 && starts_line(at, base) && starts_statement(at, text_end);
     if (unclosed_block && block_close_reported) {
         reset_draft(in_block);
         return;
@@ -264,8 +275,8 @@ void Builder::recover_from(const pegtl::parse_error& e, const char* at, bool in_
         message += did_you_mean(found.substr(1, width), keywords_in(e.message()));
     }
     if (unclosed_block) {
-        message +=
-            fmt::format(" (is the '}}' of the case block opened at line {} missing?)", block_line);
+        message += fmt::format(" (is the '}}' of the {} block opened at line {} missing?)",
+                               block_kind, block_line);
         block_close_reported = true;
     }
     const char* stop = std::min(at + width, text_end);
@@ -282,7 +293,9 @@ void Builder::report_unclosed_block() {
         return;
     block_close_reported = true;
     diagnostics.error(range(block_open, block_open + 1),
-                      "this case block is never closed: expected '}' before the end of the file");
+                      fmt::format("this {} block is never closed: expected '}}' before the end of "
+                                  "the file",
+                                  block_kind));
     count_error();
 }
 
@@ -293,6 +306,7 @@ void Builder::reset_draft(bool in_block) {
     pending_name.reset();
     pending_axis.reset();
     pending_role.reset();
+    pending_reason.reset();
     nesting = 0;
     load.reset();
     if (!in_block)
@@ -1049,6 +1063,9 @@ struct action<g::block_open> {
     static void apply(const Input& in, Builder& b) {
         b.block_line = b.range(in).begin.line;
         b.block_open = in.begin();
+        b.block_kind = std::holds_alternative<syntax::SnowDecl>(b.statement->node)   ? "snow"
+                       : std::holds_alternative<syntax::RoofDecl>(b.statement->node) ? "roof"
+                                                                                     : "case";
         b.block_close_reported = false;
     }
 };
@@ -1058,6 +1075,69 @@ struct action<g::block_close> {
     template <typename Input>
     static void apply(const Input&, Builder& b) {
         b.block_line = 0;
+    }
+};
+
+// ---------------------------------------------------------------- snow data
+
+template <>
+struct action<g::snow_begin> : begin_statement<syntax::SnowDecl> {};
+template <>
+struct action<g::snow_name> : store_name<&syntax::SnowDecl::name> {};
+template <>
+struct action<g::roof_begin> : begin_statement<syntax::RoofDecl> {};
+template <>
+struct action<g::roof_name> : store_name<&syntax::RoofDecl::name> {};
+template <>
+struct action<g::roof_member> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::RoofDecl>().members.push_back(b.name(in));
+    }
+};
+
+template <>
+struct action<g::setting_key> : action<g::grid_line_name> {};
+
+template <>
+struct action<g::reason> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.pending_reason = std::pair{unquote(in.string_view()), b.range(in)};
+    }
+};
+
+template <>
+struct action<g::setting> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        syntax::Setting setting{std::move(*b.pending_name), b.pop_expr(), std::nullopt, {}};
+        if (b.pending_reason) {
+            setting.reason = std::move(b.pending_reason->first);
+            setting.reason_where = b.pending_reason->second;
+        }
+        b.pending_reason.reset();
+        if (auto* snow = std::get_if<syntax::SnowDecl>(&b.statement->node)) {
+            snow->settings.push_back(std::move(setting));
+        } else {
+            b.current<syntax::RoofDecl>().settings.push_back(std::move(setting));
+        }
+    }
+};
+
+template <>
+struct action<g::amend_begin> : begin_statement<syntax::AmendDecl> {};
+template <>
+struct action<g::amend_name> : store_name<&syntax::AmendDecl::name> {};
+template <>
+struct action<g::amend_stmt> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        auto& amend = b.current<syntax::AmendDecl>();
+        amend.value = b.pop_expr();
+        amend.reason = std::move(b.pending_reason->first);
+        amend.reason_where = b.pending_reason->second;
+        b.pending_reason.reset();
     }
 };
 

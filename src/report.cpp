@@ -199,12 +199,21 @@ void write_members(std::string& out, const Model& model) {
     out += '\n';
 }
 
+/// The width of the material column: the materials the sections use (a
+/// library may bring many more).
+std::size_t used_material_width(const Model& model) {
+    std::size_t width = std::string_view("material").size();
+    for (const Section& s : model.sections)
+        width = std::max(width, model.materials[at(s.material)].name.size());
+    return width;
+}
+
 void write_sections(std::string& out, const Model& model) {
     const DisplayUnits& u = model.units;
     out += "Sections\n";
     Table t(out);
     t.name_column("section", name_width(model.sections, "section"))
-        .name_column("material", name_width(model.materials, "material"))
+        .name_column("material", used_material_width(model))
         .name_column("shape", 9)
         .number_column("A", u.area)
         .number_column("I", u.inertia)
@@ -219,6 +228,24 @@ void write_sections(std::string& out, const Model& model) {
             .number(s.area, u.area)
             .number(s.inertia, u.inertia);
         t.number(m.elastic_modulus, u.modulus).number(m.unit_weight, u.unit_weight).end_row();
+    }
+    out += '\n';
+}
+
+/// The snow trace: each derived value with its formula and clause.
+void write_snow(std::string& out, const Model& model) {
+    if (model.snow_trace.empty())
+        return;
+    out += "== Snow loads ==\n";
+    for (const TraceLine& t : model.snow_trace) {
+        if (t.heading) {
+            out += fmt::format("\n{}\n", t.text);
+            continue;
+        }
+        out += fmt::format("  {}", t.text);
+        if (!t.clause.empty())
+            out += fmt::format("   [{}]", t.clause);
+        out += '\n';
     }
     out += '\n';
 }
@@ -447,6 +474,7 @@ void write_text_report(const Model& model, const Results& results, const ReportO
     write_members(out, model);
     write_sections(out, model);
     write_case_list(out, model);
+    write_snow(out, model);
     for (std::size_t c = 0; c < model.cases.size(); ++c) {
         sink(out);
         out.clear();

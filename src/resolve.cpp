@@ -61,7 +61,7 @@ void Constants::add(const syntax::LetDecl& decl, Diagnostics& diagnostics) {
         return;
     }
     if (names_.add(decl.name, diagnostics))
-        entries_.push_back(Entry{&decl, Entry::State::waiting, std::nullopt});
+        entries_.push_back(Entry{&decl, nullptr, Entry::State::waiting, std::nullopt});
 }
 
 std::optional<Quantity> Constants::constant(const syntax::Expr& ref, Diagnostics& diagnostics) {
@@ -83,11 +83,68 @@ std::optional<Quantity> Constants::constant(const syntax::Expr& ref, Diagnostics
     return value_of(entry, diagnostics);
 }
 
+/// "; the values of 'a.b' are a.b.c, a.b.d" for a dotted name whose group
+/// exists (library tables are named so), or a did-you-mean otherwise.
+std::string Constants::siblings(const std::string& name) const {
+    std::string prefix = name.substr(0, name.rfind('.') + 1);
+    std::vector<std::string> found;
+    for (const std::string& n : names_.names()) {
+        if (!prefix.empty() && n.starts_with(prefix))
+            found.push_back(n);
+    }
+    if (found.empty())
+        return did_you_mean(name, names_.names());
+    return fmt::format("; the values of '{}' are {}", prefix.substr(0, prefix.size() - 1),
+                       fmt::join(found, ", "));
+}
+
+void Constants::amend(const syntax::AmendDecl& decl, Diagnostics& diagnostics) {
+    auto i = names_.find_quietly(decl.name.text);
+    if (!i) {
+        diagnostics.error(decl.name.where, fmt::format("there is no value '{}' to amend{}",
+                                                       decl.name.text, siblings(decl.name.text)));
+        return;
+    }
+    Entry& entry = entries_[*i];
+    if (entry.amended != nullptr) {
+        Diagnostic& d = diagnostics.error(
+            decl.name.where, fmt::format("value '{}' is already amended", decl.name.text));
+        d.note(entry.amended->name.where, "first amended here");
+        return;
+    }
+    entry.amended = &decl;
+}
+
+/// The amendment's value, which must be of the same kind as the value it replaces.
+std::optional<Quantity> Constants::amended_value(const Entry& entry,
+                                                 std::optional<Quantity> original,
+                                                 Diagnostics& diagnostics) {
+    const syntax::AmendDecl& decl = *entry.amended;
+    auto amended = evaluate(decl.value, diagnostics, this);
+    if (original && amended && !(original->dimension == amended->dimension)) {
+        diagnostics.error(
+            decl.value.where,
+            fmt::format("'{}' is {}; its amendment must be too, found {}", decl.name.text,
+                        describe(original->dimension), describe(amended->dimension)));
+        return std::nullopt;
+    }
+    return amended;
+}
+
+std::optional<Quantity> Constants::lookup(const std::string& name, Diagnostics& diagnostics) {
+    auto i = names_.find_quietly(name);
+    if (!i)
+        return std::nullopt;
+    return value_of(entries_[*i], diagnostics);
+}
+
 std::optional<Quantity> Constants::value_of(Entry& entry, Diagnostics& diagnostics) {
     if (entry.state == Entry::State::waiting) {
         entry.state = Entry::State::evaluating;
         evaluating_.push_back(entry.decl->name.text);
         entry.value = evaluate(entry.decl->value, diagnostics, this);
+        if (entry.amended != nullptr)
+            entry.value = amended_value(entry, entry.value, diagnostics);
         evaluating_.pop_back();
         entry.state = Entry::State::done;
     }
@@ -111,6 +168,10 @@ struct Collected {
     std::vector<const syntax::SectionDecl*> sections;
     std::vector<const syntax::Statement*> members;  ///< member, columns, beams and rafters
     std::vector<const syntax::GroupDecl*> groups;
+    std::vector<const syntax::SnowDecl*> snow;
+    std::vector<const syntax::RoofDecl*> roofs;
+    std::vector<const syntax::AmendDecl*> amends;
+    std::vector<const syntax::Statement*> snow_statements;
     std::vector<const syntax::SupportDecl*> supports;
     std::vector<const syntax::CaseDecl*> cases;
     SourceRange file_start;
@@ -144,6 +205,14 @@ Collected collect(std::span<const syntax::Tree> trees) {
                         c.members.push_back(&s);
                     if constexpr (std::is_same_v<T, syntax::GroupDecl>)
                         c.groups.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::SnowDecl>) {
+                        c.snow.push_back(&node);
+                        c.snow_statements.push_back(&s);
+                    }
+                    if constexpr (std::is_same_v<T, syntax::RoofDecl>)
+                        c.roofs.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::AmendDecl>)
+                        c.amends.push_back(&node);
                     if constexpr (std::is_same_v<T, syntax::SupportDecl>)
                         c.supports.push_back(&node);
                     if constexpr (std::is_same_v<T, syntax::CaseDecl>)
@@ -280,6 +349,7 @@ void resolve_nodes(Resolver& r, const Collected& c) {
 void resolve_constants(Resolver& r, const Collected& c) {
     for (const syntax::LetDecl* decl : c.lets)
         r.constants.add(*decl, r.diagnostics);
+    resolve_amendments(r, c.amends);
     r.constants.evaluate_all(r.diagnostics);
 }
 
@@ -602,6 +672,7 @@ Model resolve(std::span<const syntax::Tree> trees, Diagnostics& diagnostics) {
     resolve_groups(r, c.groups);
     resolve_supports(r, c);
     resolve_cases(r, c.cases);
+    resolve_snow(r, c.snow, c.roofs, c.amends, c.snow_statements);
     check_whole_model(r, c);
     return std::move(r.model);
 }

@@ -47,17 +47,31 @@ inline constexpr double kMaxMagnitude = 1e15;  // any other SI value
 class Constants : public Scope {
   public:
     void add(const syntax::LetDecl& decl, Diagnostics& diagnostics);
+    /// Replaces the value of a `let` (a library value, typically) by an `amend`.
+    void amend(const syntax::AmendDecl& decl, Diagnostics& diagnostics);
     std::optional<Quantity> constant(const syntax::Expr& ref, Diagnostics& diagnostics) override;
+    /// True if `decl` is the amendment in force for its value.
+    bool applies(const syntax::AmendDecl& decl) const {
+        auto i = names_.find_quietly(decl.name.text);
+        return i && entries_[*i].amended == &decl;
+    }
+    bool has(const std::string& name) const { return names_.find_quietly(name).has_value(); }
+    /// The value named `name`, or nullopt if there is none (or it has an error).
+    std::optional<Quantity> lookup(const std::string& name, Diagnostics& diagnostics);
     /// Evaluates every value, so an unused value's error is reported too.
     void evaluate_all(Diagnostics& diagnostics);
 
   private:
     struct Entry {
         const syntax::LetDecl* decl;
+        const syntax::AmendDecl* amended = nullptr;
         enum class State { waiting, evaluating, done } state = State::waiting;
         std::optional<Quantity> value;
     };
     std::optional<Quantity> value_of(Entry& entry, Diagnostics& diagnostics);
+    std::string siblings(const std::string& name) const;
+    std::optional<Quantity> amended_value(const Entry& entry, std::optional<Quantity> original,
+                                          Diagnostics& diagnostics);
     NameTable names_{"value"};
     std::vector<Entry> entries_;
     std::vector<std::string> evaluating_;  ///< the chain being evaluated, for cycle messages
@@ -143,6 +157,15 @@ void resolve_member_statements(Resolver& r, const std::vector<const syntax::Stat
 
 /// Reads group statements (after every member exists).
 void resolve_groups(Resolver& r, const std::vector<const syntax::GroupDecl*>& groups);
+
+/// Reads the `snow`, `roof` and `amend` statements into r.model.
+void resolve_snow(Resolver& r, const std::vector<const syntax::SnowDecl*>& snow,
+                  const std::vector<const syntax::RoofDecl*>& roofs,
+                  const std::vector<const syntax::AmendDecl*>& amends,
+                  const std::vector<const syntax::Statement*>& snow_statements);
+
+/// Registers the `amend` statements with the values they replace.
+void resolve_amendments(Resolver& r, const std::vector<const syntax::AmendDecl*>& amends);
 
 /// Resolves the `case` statements of the trees into model.cases.
 void resolve_cases(Resolver& r, const std::vector<const syntax::CaseDecl*>& cases);

@@ -233,11 +233,41 @@ struct CaseDecl {
     std::vector<SourceRange> load_where;  ///< parallel to `loads`
 };
 
+/// `key = value` in a snow or roof block, optionally `because "reason"`: a
+/// quantity, or a word for an enumerated choice (`terrain = C`).
+struct Setting {
+    Name key;
+    Expr value;
+    std::optional<std::string> reason;
+    SourceRange reason_where;
+};
+
+/// `snow S { pg = 40 psf ... }`: the site's snow data; its cases are named S.*.
+struct SnowDecl {
+    Name name;
+    std::vector<Setting> settings;
+};
+
+/// `roof main on eave.* { tributary = 20 ft ... }`
+struct RoofDecl {
+    Name name;
+    std::vector<Name> members;
+    std::vector<Setting> settings;
+};
+
+/// `amend asce7_16.pm.cap = 30 psf because "county amendment 4"`
+struct AmendDecl {
+    Name name;
+    Expr value;
+    std::string reason;
+    SourceRange reason_where;
+};
+
 /// One statement of a model file and the source range it covers.
 struct Statement {
     std::variant<ModelTitle, ReportUnits, Grid, LetDecl, UseDecl, NodeDecl, MaterialDecl,
                  SectionDecl, MemberDecl, ColumnsDecl, BeamsDecl, RaftersDecl, GroupDecl,
-                 SupportDecl, CaseDecl>
+                 SupportDecl, CaseDecl, SnowDecl, RoofDecl, AmendDecl>
         node;
     SourceRange where;
 };

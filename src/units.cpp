@@ -154,6 +154,8 @@ bool make_display_units(std::string_view force, std::string_view length,
         customary ? DisplayUnit{"pcf", unit_size("pcf"), 1} : DisplayUnit{"kN/m^3", 1e3, 2};
     out.stiffness = DisplayUnit{fmt::format("{}/{}", f, small), F / S, 3};
     out.rotational_stiffness = DisplayUnit{fmt::format("{}*{}/rad", f, l), F * L, 1};
+    out.pressure = customary ? DisplayUnit{"psf", unit_size("psf"), 1}
+                             : DisplayUnit{"kPa", unit_size("kPa"), 3};
     return true;
 }
 

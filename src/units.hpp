@@ -62,6 +62,7 @@ struct DisplayUnit {
 struct DisplayUnits {
     DisplayUnit force, length, moment, displacement, rotation, force_per_length, area, inertia,
         modulus, unit_weight, stiffness, rotational_stiffness;
+    DisplayUnit pressure;  ///< snow loads: psf, or kPa with SI lengths
 };
 
 /// Display units that follow from a force and a length unit, as an engineer would

@@ -11,7 +11,7 @@ endif
 syn case match
 syn iskeyword @,48-57,_
 
-syn keyword firnKeyword along at axial beams case clockwise columns counterclockwise
+syn keyword firnKeyword along amend at axial because beams case clockwise columns counterclockwise
 syn keyword firnKeyword dead displacement down fixed free from grid group hinge ishape
 syn keyword firnKeyword let linear live material member model moment node on other
 syn keyword firnKeyword outside pinned point projected rafters rectangle report roller

@@ -1,0 +1,419 @@
+// resolve_snow: the site's snow data (`snow`), roof surfaces (`roof`) and
+// amendments of library values (`amend`). The standard's numbers are read from
+// its library module's values (stdlib/asce7_16.firn); the formulas that use
+// them are in snow.cpp.
+#include <fmt/format.h>
+#include <algorithm>
+#include <array>
+#include <cmath>
+#include <map>
+
+#include "resolve_internal.hpp"
+
+namespace firn::resolve_detail {
+namespace {
+
+/// The settings of one block by key, each given once, keys checked against a list.
+class Settings {
+  public:
+    Settings(Resolver& r, const std::vector<syntax::Setting>& settings,
+             std::vector<std::string> keys, const char* owner)
+        : r_(r) {
+        for (const syntax::Setting& s : settings) {
+            if (std::find(keys.begin(), keys.end(), s.key.text) == keys.end()) {
+                r.diagnostics.error(
+                    s.key.where,
+                    fmt::format("unknown setting '{}' of {}; expected {}{}", s.key.text, owner,
+                                fmt::join(keys, ", "), did_you_mean(s.key.text, keys)));
+                continue;
+            }
+            auto [it, fresh] = by_key_.emplace(s.key.text, &s);
+            if (!fresh) {
+                Diagnostic& d = r.diagnostics.error(s.key.where,
+                                                    fmt::format("'{}' is given twice", s.key.text));
+                d.note(it->second->key.where, "first given here");
+            }
+        }
+    }
+
+    const syntax::Setting* find(const std::string& key) const {
+        auto it = by_key_.find(key);
+        return it == by_key_.end() ? nullptr : it->second;
+    }
+
+    /// A word among `choices` (an enumerated setting), or nullopt after an error.
+    std::optional<std::string> word(const std::string& key,
+                                    const std::vector<std::string>& choices) {
+        const syntax::Setting* s = find(key);
+        if (s == nullptr)
+            return std::nullopt;
+        no_reason(*s);
+        bool is_word = s->value.kind == syntax::Expr::Kind::constant;
+        if (is_word && std::find(choices.begin(), choices.end(), s->value.literal) != choices.end())
+            return s->value.literal;
+        std::string found = is_word ? fmt::format("'{}'", s->value.literal) : "a value";
+        r_.diagnostics.error(
+            s->value.where,
+            fmt::format("{} is one of {}; found {}{}", key, fmt::join(choices, ", "), found,
+                        is_word ? did_you_mean(s->value.literal, choices) : ""));
+        return std::nullopt;
+    }
+
+    /// Sets `out` to a quantity of the expected dimension and returns true; false
+    /// when the setting is missing or has an error (reported).
+    bool value(const std::string& key, const Expected& expected, double& out,
+               bool reason_allowed = false) {
+        const syntax::Setting* s = find(key);
+        if (s == nullptr)
+            return false;
+        if (!reason_allowed)
+            no_reason(*s);
+        auto v = r_.value(s->value, expected);
+        if (!v || !r_.within(s->value, *v, kMaxMagnitude, "value"))
+            return false;
+        out = *v;
+        return true;
+    }
+
+  private:
+    void no_reason(const syntax::Setting& s) {
+        if (s.reason) {
+            r_.diagnostics.error(s.reason_where,
+                                 fmt::format("'because' gives the reason for overriding a factor "
+                                             "(Ce, Ct or Is); '{}' is not one",
+                                             s.key.text));
+        }
+    }
+
+    Resolver& r_;
+    std::map<std::string, const syntax::Setting*> by_key_;
+};
+
+inline constexpr Expected kPressure{dim::pressure, "a pressure", "40 psf"};
+inline constexpr Expected kNumber{dim::number, "a plain number", "1.1"};
+inline constexpr Expected kAngle{dim::number, "an angle", "15 deg"};
+
+/// Reads library values of the standard, reporting each one it lacks once.
+class Library {
+  public:
+    Library(Resolver& r, std::string standard, SourceRange where)
+        : r_(r), standard_(std::move(standard)), where_(where) {}
+
+    std::optional<double> get(const std::string& name, Dimension dimension) {
+        std::string full = fmt::format("{}.{}", standard_, name);
+        auto q = r_.constants.lookup(full, r_.diagnostics);
+        if (!q && r_.constants.has(full)) {
+            ok_ = false;  // the value has an error of its own, reported where it is
+            return std::nullopt;
+        }
+        if (!q) {
+            r_.diagnostics.error(where_, fmt::format("the library lacks the value '{}' (is "
+                                                     "'use {}' missing?)",
+                                                     full, standard_));
+            ok_ = false;
+            return std::nullopt;
+        }
+        if (!(q->dimension == dimension)) {
+            r_.diagnostics.error(where_, fmt::format("the library value '{}' should be {}", full,
+                                                     describe(dimension)));
+            ok_ = false;
+            return std::nullopt;
+        }
+        return q->value;
+    }
+    double need(const std::string& name, Dimension dimension) {
+        return get(name, dimension).value_or(0.0);
+    }
+    bool has(const std::string& name) {
+        return r_.constants.lookup(fmt::format("{}.{}", standard_, name), r_.diagnostics)
+            .has_value();
+    }
+    bool ok() const { return ok_; }
+
+  private:
+    Resolver& r_;
+    std::string standard_;
+    SourceRange where_;
+    bool ok_ = true;
+};
+
+SnowTables read_tables(Library& lib) {
+    SnowTables t;
+    t.pf_factor = lib.need("pf.factor", dim::number);
+    t.pm_pg_limit = lib.need("pm.pg_limit", dim::pressure);
+    t.pm_max_slope = lib.need("pm.max_slope", dim::number);
+    static const std::array<const char*, 3> curves{"warm", "cold_ventilated", "cold"};
+    for (std::size_t c = 0; c < curves.size(); ++c) {
+        t.Cs_knee[c][0] = lib.need(fmt::format("Cs.{}.slippery.knee", curves[c]), dim::number);
+        t.Cs_knee[c][1] = lib.need(fmt::format("Cs.{}.other.knee", curves[c]), dim::number);
+    }
+    t.Cs_zero_slope = lib.need("Cs.zero_slope", dim::number);
+    t.warm_slippery_R_unventilated = lib.need("Cs.warm_slippery.R_unventilated", dim::number);
+    t.warm_slippery_R_ventilated = lib.need("Cs.warm_slippery.R_ventilated", dim::number);
+    t.rain_pg_limit = lib.need("rain_on_snow.pg_limit", dim::pressure);
+    t.rain_surcharge = lib.need("rain_on_snow.surcharge", dim::pressure);
+    t.rain_W_per_degree = lib.need("rain_on_snow.W_per_degree", dim::length);
+    return t;
+}
+
+/// A factor from its table, or the user's override with its reason.
+std::optional<SnowFactor> factor(Resolver& r, Settings& settings, Library& lib,
+                                 const std::string& symbol, const std::string& table,
+                                 const std::vector<std::pair<std::string, std::string>>& keys,
+                                 const std::string& entry, SourceRange owner) {
+    if (const syntax::Setting* s = settings.find(symbol)) {
+        double value = 0.0;
+        bool ok = settings.value(symbol, kNumber, value, true);
+        if (!s->reason) {
+            r.diagnostics.error(s->key.where,
+                                fmt::format("an overridden {} needs its reason: {} = ... because "
+                                            "\"the local amendment or ruling\"",
+                                            symbol, symbol));
+        }
+        if (ok && !(value > 0.0)) {
+            r.diagnostics.error(s->value.where,
+                                fmt::format("{} must be greater than zero", symbol));
+            ok = false;
+        }
+        if (!ok || !s->reason)
+            return std::nullopt;
+        return SnowFactor{value, table, *s->reason};
+    }
+    for (const auto& [key, what] : keys) {
+        if (settings.find(key) == nullptr) {
+            r.diagnostics.error(owner, fmt::format("the snow data need '{}' ({}), or {} given "
+                                                   "with a reason",
+                                                   key, what, symbol));
+            return std::nullopt;
+        }
+    }
+    if (entry.empty())
+        return std::nullopt;  // a word was wrong: reported already
+    auto v = lib.get(fmt::format("{}.{}", symbol, entry), dim::number);
+    if (!v)
+        return std::nullopt;
+    return SnowFactor{*v, table, ""};
+}
+
+const std::vector<std::string> kTerrains{"B", "C", "D", "above_tree_line", "alaska_treeless"};
+const std::vector<std::string> kExposures{"fully", "partially", "sheltered"};
+const std::vector<std::string> kThermal{"heated", "cold_ventilated", "unheated", "freezer",
+                                        "greenhouse"};
+const std::vector<std::string> kRisk{"I", "II", "III", "IV"};
+const std::vector<std::string> kStandards{"asce7_16"};
+
+/// Ce by terrain and exposure; a combination the table leaves out is an error.
+std::optional<SnowFactor> exposure_factor(Resolver& r, Settings& s, Library& lib,
+                                          const SnowSite& site, SourceRange owner) {
+    std::string entry;
+    if (!site.terrain.empty() && !site.exposure.empty()) {
+        entry = fmt::format("{}.{}", site.terrain, site.exposure);
+        if (s.find("Ce") == nullptr && !lib.has(fmt::format("Ce.{}", entry))) {
+            r.diagnostics.error(s.find("exposure")->value.where,
+                                fmt::format("exposure '{}' is not allowed for terrain '{}' "
+                                            "(ASCE 7-16 Table 7.3-1)",
+                                            site.exposure, site.terrain));
+            return std::nullopt;
+        }
+    }
+    return factor(r, s, lib, "Ce", "Table 7.3-1",
+                  {{"terrain", "B, C, D, above_tree_line or alaska_treeless"},
+                   {"exposure", "fully, partially or sheltered"}},
+                  entry, owner);
+}
+
+void resolve_site(Resolver& r, const syntax::SnowDecl& decl) {
+    Settings s(r, decl.settings,
+               {"standard", "pg", "terrain", "exposure", "thermal", "risk", "Ce", "Ct", "Is"},
+               "the snow data");
+    SnowSite site;
+    site.name = decl.name.text;
+    site.where = decl.name.where;
+    auto standard = s.word("standard", kStandards);
+    if (s.find("standard") == nullptr) {
+        r.diagnostics.error(decl.name.where,
+                            "the snow data need their standard, as in: standard = asce7_16");
+    }
+    double pg = 0.0;
+    bool pg_ok = s.value("pg", kPressure, pg);
+    if (s.find("pg") == nullptr) {
+        r.diagnostics.error(decl.name.where,
+                            "the snow data need the ground snow load, as in: pg = 40 psf");
+    } else if (pg_ok && pg < 0.0) {
+        r.diagnostics.error(s.find("pg")->value.where,
+                            "the ground snow load pg cannot be negative");
+        pg_ok = false;
+    }
+    site.terrain = s.word("terrain", kTerrains).value_or("");
+    site.exposure = s.word("exposure", kExposures).value_or("");
+    site.thermal = s.word("thermal", kThermal).value_or("");
+    site.risk = s.word("risk", kRisk).value_or("");
+    if (!standard || !pg_ok)
+        return;
+    site.standard = *standard;
+    site.pg = pg;
+    SourceRange lib_where = s.find("standard")->value.where;
+    Library lib(r, site.standard, lib_where);
+    site.tables = read_tables(lib);
+    auto Ce = exposure_factor(r, s, lib, site, decl.name.where);
+    auto Ct = factor(r, s, lib, "Ct", "Table 7.3-2",
+                     {{"thermal", "heated, cold_ventilated, unheated, freezer or greenhouse"}},
+                     site.thermal, decl.name.where);
+    auto Is = factor(r, s, lib, "Is", "Table 1.5-2", {{"risk", "I, II, III or IV"}}, site.risk,
+                     decl.name.where);
+    if (!Ce || !Ct || !Is || !lib.ok())
+        return;
+    site.Ce = *Ce;
+    site.Ct = *Ct;
+    site.Is = *Is;
+    r.model.snow = std::move(site);
+}
+
+/// The roof's members ordered along the surface from its left end, or nullopt
+/// after reporting members that do not form one connected, unbranched surface.
+std::optional<std::vector<MemberId>> roof_chain(Resolver& r, const syntax::RoofDecl& decl,
+                                                const std::vector<MemberId>& members) {
+    std::map<NodeId, std::vector<MemberId>> at_node;
+    for (MemberId m : members) {
+        at_node[r.model.members[at(m)].start].push_back(m);
+        at_node[r.model.members[at(m)].end].push_back(m);
+    }
+    auto fail = [&](std::string message) {
+        r.diagnostics.error(decl.name.where, fmt::format("roof '{}': {}", decl.name.text, message));
+        return std::nullopt;
+    };
+    std::optional<NodeId> left;
+    for (const auto& [node, touching] : at_node) {
+        if (touching.size() > 2) {
+            return fail(
+                fmt::format("its members branch at node '{}'; a roof is one run of "
+                            "members from eave to eave",
+                            r.model.nodes[at(node)].name));
+        }
+        if (touching.size() == 1 &&
+            (!left || r.model.nodes[at(node)].x < r.model.nodes[at(*left)].x)) {
+            left = node;
+        }
+    }
+    if (!left)
+        return fail("its members close a loop; a roof is one run of members from eave to eave");
+    std::vector<MemberId> chain;
+    std::vector<char> taken(r.model.members.size(), 0);
+    for (NodeId n = *left;;) {
+        const auto& touching = at_node[n];
+        auto next = std::find_if(touching.begin(), touching.end(),
+                                 [&](MemberId m) { return !taken[at(m)]; });
+        if (next == touching.end())
+            break;
+        taken[at(*next)] = 1;
+        chain.push_back(*next);
+        const Member& m = r.model.members[at(*next)];
+        n = m.start == n ? m.end : m.start;
+    }
+    if (chain.size() != members.size()) {
+        auto loose =
+            std::find_if(members.begin(), members.end(), [&](MemberId m) { return !taken[at(m)]; });
+        return fail(
+            fmt::format("member '{}' does not touch the others; a roof is one connected "
+                        "surface",
+                        r.model.members[at(*loose)].name));
+    }
+    return chain;
+}
+
+void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
+    std::vector<MemberId> members;
+    bool found = true;
+    for (const syntax::Name& ref : decl.members) {
+        auto ids = r.find_members(ref);
+        found = found && ids.has_value();
+        if (ids) {
+            for (MemberId id : *ids) {
+                if (std::find(members.begin(), members.end(), id) == members.end())
+                    members.push_back(id);
+            }
+        }
+    }
+    Settings s(r, decl.settings, {"tributary", "surface", "insulation", "ventilated"},
+               fmt::format("roof '{}'", decl.name.text).c_str());
+    Roof roof;
+    roof.name = decl.name.text;
+    roof.where = decl.name.where;
+    double tributary = 0.0;
+    bool tributary_ok = s.value("tributary", expect::length, tributary);
+    if (s.find("tributary") == nullptr) {
+        r.diagnostics.error(decl.name.where,
+                            fmt::format("roof '{}' needs its tributary width, as in: tributary = "
+                                        "20 ft",
+                                        decl.name.text));
+    } else if (tributary_ok && !(tributary > 0.0)) {
+        r.diagnostics.error(s.find("tributary")->value.where,
+                            "a tributary width must be greater than zero");
+        tributary_ok = false;
+    }
+    roof.slippery = s.word("surface", {"slippery", "nonslippery"}).value_or("nonslippery") == "slippery";
+    s.value("insulation", kNumber, roof.insulation_R);
+    roof.ventilated = s.word("ventilated", {"yes", "no"}).value_or("no") == "yes";
+    if (!names.add(decl.name, r.diagnostics) || !found || !tributary_ok)
+        return;
+    for (MemberId m : members) {
+        if (!r.member_valid[at(m)])
+            return;  // its own error is reported
+    }
+    auto chain = roof_chain(r, decl, members);
+    if (!chain)
+        return;
+    roof.members = std::move(*chain);
+    roof.tributary = tributary;
+    r.model.roofs.push_back(std::move(roof));
+}
+
+}  // namespace
+
+void resolve_amendments(Resolver& r, const std::vector<const syntax::AmendDecl*>& amends) {
+    for (const syntax::AmendDecl* decl : amends)
+        r.constants.amend(*decl, r.diagnostics);
+}
+
+namespace {
+
+/// The amendments in force, with their values, for the report.
+void record_amendments(Resolver& r, const std::vector<const syntax::AmendDecl*>& amends) {
+    for (const syntax::AmendDecl* decl : amends) {
+        if (!r.constants.applies(*decl))
+            continue;
+        if (auto q = r.constants.lookup(decl->name.text, r.diagnostics)) {
+            r.model.amendments.push_back(
+                Amendment{decl->name.text, q->value, q->dimension, decl->reason, decl->name.where});
+        }
+    }
+}
+
+}  // namespace
+
+void resolve_snow(Resolver& r, const std::vector<const syntax::SnowDecl*>& snow,
+                  const std::vector<const syntax::RoofDecl*>& roofs,
+                  const std::vector<const syntax::AmendDecl*>& amends,
+                  const std::vector<const syntax::Statement*>& snow_statements) {
+    record_amendments(r, amends);
+    for (std::size_t i = 1; i < snow_statements.size(); ++i) {
+        Diagnostic& d = r.diagnostics.error(
+            snow_statements[i]->where,
+            "the snow data are already given; a model has one site and one standard");
+        d.note(snow_statements[0]->where, "first given here");
+    }
+    if (!snow.empty())
+        resolve_site(r, *snow[0]);
+    NameTable names{"roof"};
+    for (const syntax::RoofDecl* decl : roofs) {
+        resolve_roof(r, *decl, names);
+        if (snow.empty()) {
+            r.diagnostics.error(decl->name.where,
+                                fmt::format("roof '{}' needs the site's snow data: add a snow "
+                                            "block such as  snow S {{ standard = asce7_16 ... }}",
+                                            decl->name.text));
+        }
+    }
+}
+
+}  // namespace firn::resolve_detail

@@ -1,0 +1,381 @@
+// snow: ASCE 7-16 Chapter 7, the formulas. The standard's numbers come from
+// its library module (model.snow->tables); every value derived here is
+// written to the trace with its formula, the values put in and its clause.
+#include "snow.hpp"
+
+#include <fmt/format.h>
+#include <algorithm>
+#include <cmath>
+#include <numbers>
+
+namespace firn {
+namespace {
+
+constexpr double kDegree = std::numbers::pi / 180.0;
+/// Slopes closer than this are one slope (rad): members of one roof plane.
+constexpr double kSameSlope = 1e-6;
+
+/// Clauses whose values were entered from memory (see stdlib/asce7_16.firn);
+/// the trace marks them so a reviewer verifies them against the printed standard.
+bool from_memory(std::string_view clause) {
+    for (std::string_view c : {"Table 7.3-1", "Table 1.5-2", "Sec. 7.3.4", "Sec. 7.10",
+                               "Fig. 7.4-1a", "Fig. 7.4-1b", "Fig. 7.4-1c", "Sec. 7.4.1"}) {
+        if (clause.ends_with(c))
+            return true;
+    }
+    return false;
+}
+
+/// Which curve of Fig. 7.4-1 a thermal factor selects: warm, cold ventilated, cold.
+std::size_t curve_of(double Ct) {
+    return Ct <= 1.0 + 1e-9 ? 0 : (Ct < 1.2 - 1e-9 ? 1 : 2);
+}
+
+/// Cs on a curve that is 1 up to its knee and falls linearly to 0 at `zero`.
+double on_curve(double knee, double zero, double slope) {
+    if (slope <= knee)
+        return 1.0;
+    if (slope >= zero)
+        return 0.0;
+    return 1.0 - (slope - knee) / (zero - knee);
+}
+
+/// The slope of a member from horizontal (rad) and its horizontal length (m).
+struct Geometry {
+    double slope;
+    double run;
+};
+
+Geometry geometry_of(const Model& m, MemberId id) {
+    const Member& member = m.members[at(id)];
+    const Node& a = m.nodes[at(member.start)];
+    const Node& b = m.nodes[at(member.end)];
+    double run = std::abs(b.x - a.x);
+    return Geometry{std::atan2(std::abs(b.y - a.y), run), run};
+}
+
+class SnowDeriver {
+  public:
+    SnowDeriver(Model& m, Diagnostics& d)
+        : m_(m), d_(d), site_(*m.snow), t_(m.snow->tables), u_(m.units) {}
+
+    void run() {
+        trace_site();
+        LoadCase balanced = new_case("balanced");
+        LoadCase minimum = new_case("minimum");
+        for (const Roof& roof : m_.roofs)
+            derive_roof(roof, balanced, minimum);
+        add_case(std::move(balanced));
+        if (!minimum.distributed.empty())
+            add_case(std::move(minimum));
+        mark_unverified();
+    }
+
+  private:
+    Model& m_;
+    Diagnostics& d_;
+    const SnowSite& site_;
+    const SnowTables& t_;
+    const DisplayUnits& u_;
+    double pf_ = 0.0;
+
+    std::string pressure(double pa) const {
+        return fmt::format("{:.{}f} {}", u_.pressure.from_si(pa), u_.pressure.decimals,
+                           u_.pressure.name);
+    }
+    std::string length(double m) const {
+        return fmt::format("{:.{}f} {}", u_.length.from_si(m), u_.length.decimals, u_.length.name);
+    }
+    std::string line_load(double n_per_m) const {
+        return fmt::format("{:.{}f} {}", u_.force_per_length.from_si(n_per_m),
+                           u_.force_per_length.decimals, u_.force_per_length.name);
+    }
+    static std::string degrees(double rad) { return fmt::format("{:.2f} deg", rad / kDegree); }
+    static std::string factor(double v) { return fmt::format("{:.2f}", v); }
+
+    void line(std::string text, std::string clause = "") {
+        m_.snow_trace.push_back(TraceLine{std::move(text), std::move(clause), false});
+    }
+    void heading(std::string text) {
+        m_.snow_trace.push_back(TraceLine{std::move(text), "", true});
+    }
+
+    void trace_site();
+    void trace_factor(const char* symbol, const SnowFactor& f, const std::string& basis);
+    void derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& minimum);
+    double slope_factor(const Roof& roof, double slope, const std::string& members);
+    double rain_on_snow(double slope, double W);
+    double minimum_load(double slope);
+    LoadCase new_case(const char* what) const;
+    void add_case(LoadCase lc);
+    void load_members(const Roof& roof, const std::vector<MemberId>& members, double pressure,
+                      LoadCase& lc) const;
+    void mark_unverified();
+};
+
+void SnowDeriver::trace_site() {
+    heading(fmt::format("Snow data {}: {}, Chapter 7", site_.name, "ASCE 7-16"));
+    for (const Amendment& a : m_.amendments) {
+        std::string value = a.dimension == dim::pressure ? pressure(a.value)
+                            : a.dimension == dim::length ? length(a.value)
+                                                         : fmt::format("{:g}", a.value);
+        line(fmt::format("amended: {} = {} because \"{}\"", a.name, value, a.reason));
+    }
+    line(fmt::format("pg = {}, the ground snow load (given)", pressure(site_.pg)),
+         "ASCE 7-16 Sec. 7.2");
+    trace_factor("Ce", site_.Ce,
+                 fmt::format("terrain {}, {} exposed", site_.terrain, site_.exposure));
+    trace_factor("Ct", site_.Ct, fmt::format("thermal condition {}", site_.thermal));
+    trace_factor("Is", site_.Is, fmt::format("risk category {}", site_.risk));
+    pf_ = t_.pf_factor * site_.Ce.value * site_.Ct.value * site_.Is.value * site_.pg;
+    line(fmt::format("pf = {:g} Ce Ct Is pg = {:g} x {} x {} x {} x {} = {}", t_.pf_factor,
+                     t_.pf_factor, factor(site_.Ce.value), factor(site_.Ct.value),
+                     factor(site_.Is.value), pressure(site_.pg), pressure(pf_)),
+         "ASCE 7-16 Eq. 7.3-1");
+}
+
+void SnowDeriver::trace_factor(const char* symbol, const SnowFactor& f, const std::string& basis) {
+    if (f.reason.empty()) {
+        line(fmt::format("{} = {}, {}", symbol, factor(f.value), basis),
+             fmt::format("ASCE 7-16 {}", f.table));
+    } else {
+        line(fmt::format("{} = {}, given instead of {}: \"{}\"", symbol, factor(f.value), f.table,
+                         f.reason),
+             "override");
+    }
+}
+
+/// Cs from the curve of Fig. 7.4-1 that the thermal factor and surface select.
+double SnowDeriver::slope_factor(const Roof& roof, double slope, const std::string& members) {
+    std::size_t curve = curve_of(site_.Ct.value);
+    static const char* const figures[] = {"Fig. 7.4-1a", "Fig. 7.4-1b", "Fig. 7.4-1c"};
+    static const char* const roofs[] = {"warm roof", "cold ventilated roof", "cold roof"};
+    bool slippery = roof.slippery;
+    if (slippery && curve == 0) {
+        double needed =
+            roof.ventilated ? t_.warm_slippery_R_ventilated : t_.warm_slippery_R_unventilated;
+        if (roof.insulation_R < needed) {
+            line(fmt::format("a warm slippery roof takes the slippery curve only with insulation "
+                             "R >= {:g} ({}); roof {} has R {:g}: the curve for other surfaces",
+                             needed, roof.ventilated ? "ventilated" : "unventilated", roof.name,
+                             roof.insulation_R),
+                 "ASCE 7-16 Sec. 7.4.1");
+            slippery = false;
+        }
+    }
+    double knee = t_.Cs_knee[curve][slippery ? 0 : 1];
+    double zero = t_.Cs_zero_slope;
+    std::string which =
+        fmt::format("{}, {} surface", roofs[curve], slippery ? "unobstructed slippery" : "other");
+    std::string clause = fmt::format("ASCE 7-16 {}", figures[curve]);
+    if (slope <= knee) {
+        line(fmt::format("Cs = 1.00 for {}: slope {} is not above the knee {} ({})", members,
+                         degrees(slope), degrees(knee), which),
+             clause);
+        return 1.0;
+    }
+    if (slope >= zero) {
+        line(fmt::format("Cs = 0.00 for {}: slope {} is not below {} ({})", members, degrees(slope),
+                         degrees(zero), which),
+             clause);
+        return 0.0;
+    }
+    double cs = 1.0 - (slope - knee) / (zero - knee);
+    line(fmt::format("Cs = 1 - (slope - knee)/({} - knee) = 1 - ({} - {})/({} - {}) = {:.3f} for "
+                     "{} ({})",
+                     degrees(zero), degrees(slope), degrees(knee), degrees(zero), degrees(knee), cs,
+                     members, which),
+         clause);
+    return cs;
+}
+
+/// The rain-on-snow surcharge for the balanced case (0 where it does not apply).
+double SnowDeriver::rain_on_snow(double slope, double W) {
+    const char* clause = "ASCE 7-16 Sec. 7.10";
+    double limit_deg = W / t_.rain_W_per_degree;
+    if (!(site_.pg > 0.0)) {
+        line("rain-on-snow surcharge not required: pg is zero", clause);
+        return 0.0;
+    }
+    if (site_.pg > t_.rain_pg_limit) {
+        line(fmt::format("rain-on-snow surcharge not required: pg = {} is above {}",
+                         pressure(site_.pg), pressure(t_.rain_pg_limit)),
+             clause);
+        return 0.0;
+    }
+    std::string limit = fmt::format("W/{} = {} / {} = {:.2f} deg", length(t_.rain_W_per_degree),
+                                    length(W), length(t_.rain_W_per_degree), limit_deg);
+    if (!(slope / kDegree < limit_deg)) {
+        line(fmt::format("rain-on-snow surcharge not required: slope {} is not below {}",
+                         degrees(slope), limit),
+             clause);
+        return 0.0;
+    }
+    line(fmt::format("rain-on-snow surcharge {} on the balanced load: 0 < pg = {} <= {} and "
+                     "slope {} < {}",
+                     pressure(t_.rain_surcharge), pressure(site_.pg), pressure(t_.rain_pg_limit),
+                     degrees(slope), limit),
+         clause);
+    return t_.rain_surcharge;
+}
+
+/// pm for a low-slope roof (0 where it does not apply): its own case, never a floor on pf.
+double SnowDeriver::minimum_load(double slope) {
+    const char* clause = "ASCE 7-16 Sec. 7.3.4";
+    if (!(slope < t_.pm_max_slope)) {
+        line(fmt::format("minimum load pm not required: slope {} is not below {}", degrees(slope),
+                         degrees(t_.pm_max_slope)),
+             clause);
+        return 0.0;
+    }
+    double is = site_.Is.value;
+    if (site_.pg <= t_.pm_pg_limit) {
+        double pm = is * site_.pg;
+        line(fmt::format("pm = Is pg = {} x {} = {} (pg <= {}), a case of its own", factor(is),
+                         pressure(site_.pg), pressure(pm), pressure(t_.pm_pg_limit)),
+             clause);
+        return pm;
+    }
+    double pm = is * t_.pm_pg_limit;
+    line(fmt::format("pm = Is x {} = {} x {} = {} (pg > {}), a case of its own",
+                     pressure(t_.pm_pg_limit), factor(is), pressure(t_.pm_pg_limit), pressure(pm),
+                     pressure(t_.pm_pg_limit)),
+         clause);
+    return pm;
+}
+
+/// W for rain-on-snow: the horizontal distance from an eave to the ridge (the
+/// highest point), or the whole run of a flat roof.
+double eave_to_ridge(const Model& m, const Roof& roof) {
+    double left = INFINITY, right = -INFINITY, ridge_x = 0.0, top = -INFINITY;
+    for (MemberId id : roof.members) {
+        for (NodeId n : {m.members[at(id)].start, m.members[at(id)].end}) {
+            const Node& node = m.nodes[at(n)];
+            left = std::min(left, node.x);
+            right = std::max(right, node.x);
+            if (node.y > top + 1e-9) {
+                top = node.y;
+                ridge_x = node.x;
+            }
+        }
+    }
+    bool interior_ridge = ridge_x > left + 1e-6 && ridge_x < right - 1e-6;
+    return interior_ridge ? std::max(ridge_x - left, right - ridge_x) : right - left;
+}
+
+void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& minimum) {
+    std::vector<std::string> names;
+    double steepest = 0.0;
+    for (MemberId id : roof.members) {
+        names.push_back(m_.members[at(id)].name);
+        steepest = std::max(steepest, geometry_of(m_, id).slope);
+    }
+    heading(fmt::format("Roof {}: members {}; tributary width {}; {} surface", roof.name,
+                        fmt::join(names, ", "), length(roof.tributary),
+                        roof.slippery ? "unobstructed slippery" : "other"));
+    double W = eave_to_ridge(m_, roof);
+    double rain = rain_on_snow(steepest, W);
+    // One Cs per roof plane: members of equal slope share it.
+    std::vector<char> done(roof.members.size(), 0);
+    for (std::size_t i = 0; i < roof.members.size(); ++i) {
+        if (done[i])
+            continue;
+        double slope = geometry_of(m_, roof.members[i]).slope;
+        std::vector<MemberId> plane;
+        std::vector<std::string> plane_names;
+        for (std::size_t j = i; j < roof.members.size(); ++j) {
+            if (!done[j] && std::abs(geometry_of(m_, roof.members[j]).slope - slope) < kSameSlope) {
+                done[j] = 1;
+                plane.push_back(roof.members[j]);
+                plane_names.push_back(m_.members[at(roof.members[j])].name);
+            }
+        }
+        double cs = slope_factor(roof, slope, fmt::format("{}", fmt::join(plane_names, ", ")));
+        double ps = cs * pf_;
+        line(fmt::format("ps = Cs pf = {:.3f} x {} = {}", cs, pressure(pf_), pressure(ps)),
+             "ASCE 7-16 Eq. 7.4-1");
+        double p = ps + rain;
+        if (rain > 0.0) {
+            line(fmt::format("balanced load = ps + rain-on-snow = {} + {} = {}", pressure(ps),
+                             pressure(rain), pressure(p)),
+                 "ASCE 7-16 Sec. 7.10");
+        }
+        line(fmt::format("on the members: {} x {} = {} down, on the horizontal projection",
+                         pressure(p), length(roof.tributary), line_load(p * roof.tributary)));
+        load_members(roof, plane, p, balanced);
+    }
+    double pm = minimum_load(steepest);
+    if (pm > 0.0) {
+        line(fmt::format(
+            "on the members (case {}.minimum): {} x {} = {} down, on the horizontal "
+            "projection",
+            site_.name, pressure(pm), length(roof.tributary), line_load(pm * roof.tributary)));
+        load_members(roof, roof.members, pm, minimum);
+    }
+}
+
+void SnowDeriver::load_members(const Roof& roof, const std::vector<MemberId>& members, double p,
+                               LoadCase& lc) const {
+    for (MemberId id : members) {
+        DistributedLoad load;
+        load.member = id;
+        load.direction = LoadDirection::down;
+        load.projected = true;
+        load.start = 0.0;
+        load.end = geometry_of(m_, id).run;
+        load.w_start = load.w_end = p * roof.tributary;
+        load.where = roof.where;
+        lc.distributed.push_back(load);
+    }
+}
+
+LoadCase SnowDeriver::new_case(const char* what) const {
+    LoadCase lc;
+    lc.name = fmt::format("{}.{}", site_.name, what);
+    lc.kind = CaseKind::snow;
+    lc.where = site_.where;
+    return lc;
+}
+
+void SnowDeriver::add_case(LoadCase lc) {
+    for (const LoadCase& other : m_.cases) {
+        if (other.name == lc.name) {
+            Diagnostic& d =
+                d_.error(other.where, fmt::format("load case '{}' has the name of a snow case "
+                                                  "that snow data {} make",
+                                                  lc.name, site_.name));
+            d.note(site_.where, "the snow data are here");
+            return;
+        }
+    }
+    m_.cases.push_back(std::move(lc));
+}
+
+void SnowDeriver::mark_unverified() {
+    bool any = false;
+    for (TraceLine& t : m_.snow_trace) {
+        if (from_memory(t.clause)) {
+            t.clause += " *";
+            any = true;
+        }
+    }
+    if (any) {
+        heading(
+            "* values of this clause were entered from memory: verify them against the printed "
+            "standard");
+    }
+}
+
+}  // namespace
+
+double roof_slope_factor(const SnowTables& tables, double Ct, bool slippery, double slope) {
+    return on_curve(tables.Cs_knee[curve_of(Ct)][slippery ? 0 : 1], tables.Cs_zero_slope, slope);
+}
+
+void derive_snow(Model& model, Diagnostics& diagnostics) {
+    if (!model.snow)
+        return;
+    SnowDeriver(model, diagnostics).run();
+}
+
+}  // namespace firn

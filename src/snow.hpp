@@ -1,0 +1,21 @@
+// snow: the roof snow loads of ASCE 7-16 Chapter 7 from the site's snow data and
+// the model's roofs, as load cases on the roof members, each value traced to
+// its clause. A stage between resolve and loads: it reads the resolved Model
+// and adds to it (cases and model.snow_trace).
+#pragma once
+
+#include "diag.hpp"
+#include "model.hpp"
+
+namespace firn {
+
+/// Adds the snow cases (NAME.balanced, NAME.minimum where it applies) and the
+/// trace of every derived value to `model`. Does nothing without snow data.
+void derive_snow(Model& model, Diagnostics& diagnostics);
+
+/// Cs of ASCE 7-16 Fig. 7.4-1 for a roof sloping `slope` (rad) on the curve
+/// that the thermal factor `Ct` and the surface select (`slippery`: an
+/// unobstructed slippery surface that qualifies for that curve).
+double roof_slope_factor(const SnowTables& tables, double Ct, bool slippery, double slope);
+
+}  // namespace firn

@@ -1,0 +1,288 @@
+// Tests of the snow provisions (ASCE 7-16 Chapter 7). Every expected value is
+// worked out by hand from the clause named beside it; values of the standard's
+// tables that were entered from memory are marked so (see stdlib/asce7_16.firn).
+#include <fmt/format.h>
+#include <catch2/catch.hpp>
+#include <cmath>
+#include <map>
+
+#include "driver.hpp"
+#include "snow.hpp"
+#include "test_text.hpp"
+
+using namespace firn;
+using firn::testing::first_message;
+
+namespace {
+
+constexpr double kPsf = 4.4482216152605 / (0.3048 * 0.3048);  // exact: lbf / ft^2 in Pa
+constexpr double kFt = 0.3048;
+constexpr double kDeg = 3.14159265358979323846 / 180.0;
+
+/// A three-bay frame with flat roof beams, tributary 20 ft, and the given
+/// snow settings (one per line).
+std::string flat_frame(const std::string& snow, const std::string& roof_extra = "") {
+    return fmt::format(
+        "model \"snow\"\nuse materials\nuse asce7_16\nreport units kip, ft\n"
+        "grid x A..D spacing 24 ft\ngrid y base = 0 ft, eave = 16 ft\n"
+        "section post structural_steel, A = 9.12 in2, I = 110 in4\n"
+        "section girder structural_steel, A = 11.8 in2, I = 510 in4\n"
+        "columns on A..D from base to eave section post\n"
+        "beams along eave from A to D section girder\nsupport fixed at base\n"
+        "snow S {{\n  standard = asce7_16\n{}}}\n"
+        "roof main on eave.* {{\n  tributary = 20 ft\n{}}}\n",
+        snow, roof_extra);
+}
+
+const char* const kSite =
+    "  pg = 40 psf\n  terrain = C\n  exposure = partially\n  thermal = unheated\n  risk = II\n";
+
+Analysis analysed(const std::string& text, const ImportOptions& options = {}) {
+    Analysis a = analyse_text("input", text, nullptr, options);
+    INFO(render(a.diagnostics, a.sources));
+    REQUIRE(a.ok);
+    return a;
+}
+
+/// The snow case named `name`, or nullptr.
+const LoadCase* find_case(const Model& m, const std::string& name) {
+    for (const LoadCase& lc : m.cases) {
+        if (lc.name == name)
+            return &lc;
+    }
+    return nullptr;
+}
+
+/// The uniform pressure of a snow case on a member, from its line load / 20 ft.
+double pressure_on(const Model& m, const std::string& c, std::size_t load = 0) {
+    const LoadCase* lc = find_case(m, c);
+    REQUIRE(lc != nullptr);
+    REQUIRE(lc->distributed.size() > load);
+    return lc->distributed[load].w_start / (20 * kFt);
+}
+
+bool trace_has(const Model& m, const std::string& text) {
+    for (const TraceLine& t : m.snow_trace) {
+        if (t.text.find(text) != std::string::npos)
+            return true;
+    }
+    return false;
+}
+
+}  // namespace
+
+TEST_CASE("snow: pf = 0.7 Ce Ct Is pg") {
+    // ASCE 7-16 Eq. 7.3-1 with Ce = 1.0 (terrain C, partially exposed, Table 7.3-1,
+    // from memory), Ct = 1.2 (unheated, Table 7.3-2), Is = 1.0 (risk II, Table 1.5-2,
+    // from memory): pf = 0.7 x 1.0 x 1.2 x 1.0 x 40 psf = 33.6 psf. Flat roof: Cs = 1
+    // (Sec. 7.4), so the balanced load is ps = pf.
+    Analysis a = analysed(flat_frame(kSite));
+    CHECK(pressure_on(a.model, "S.balanced") == Approx(33.6 * kPsf).epsilon(1e-12));
+    CHECK(trace_has(a.model,
+                    "pf = 0.7 Ce Ct Is pg = 0.7 x 1.00 x 1.20 x 1.00 x 40.0 psf = "
+                    "33.6 psf"));
+    // Every member of the roof takes it, on its horizontal projection.
+    REQUIRE(find_case(a.model, "S.balanced")->distributed.size() == 3);
+    CHECK(find_case(a.model, "S.balanced")->distributed[2].projected);
+}
+
+TEST_CASE("snow: the factors follow terrain, exposure, thermal condition and risk") {
+    // Table 7.3-1 (from memory): D fully exposed Ce = 0.8; Table 7.3-2: freezer
+    // Ct = 1.3; Table 1.5-2 (from memory): risk IV Is = 1.2.
+    // pf = 0.7 x 0.8 x 1.3 x 1.2 x 30 psf = 26.208 psf.
+    Analysis a = analysed(flat_frame(
+        "  pg = 30 psf\n  terrain = D\n  exposure = fully\n  thermal = freezer\n  risk = IV\n"));
+    CHECK(pressure_on(a.model, "S.balanced") == Approx(26.208 * kPsf).epsilon(1e-12));
+}
+
+TEST_CASE("snow: a factor given instead of its table carries its reason into the trace") {
+    // Eq. 7.3-1 with Ct = 1.1 given: 0.7 x 1.0 x 1.1 x 1.0 x 40 psf = 30.8 psf.
+    Analysis a = analysed(
+        flat_frame(std::string(kSite) + "  Ct = 1.1 because \"kept just above freezing\"\n"));
+    CHECK(pressure_on(a.model, "S.balanced") == Approx(30.8 * kPsf).epsilon(1e-12));
+    CHECK(trace_has(a.model,
+                    "Ct = 1.10, given instead of Table 7.3-2: \"kept just above "
+                    "freezing\""));
+}
+
+TEST_CASE("snow: pm is Is pg up to 20 psf and 20 Is above, as a case of its own") {
+    // ASCE 7-16 Sec. 7.3.4 (from memory), risk III so Is = 1.1 (Table 1.5-2, from memory).
+    auto site = [](const char* pg) {
+        return fmt::format(
+            "  pg = {}\n  terrain = C\n  exposure = partially\n"
+            "  thermal = heated\n  risk = III\n",
+            pg);
+    };
+    Analysis low = analysed(flat_frame(site("15 psf")));
+    CHECK(pressure_on(low.model, "S.minimum") == Approx(1.1 * 15 * kPsf).epsilon(1e-12));
+    Analysis high = analysed(flat_frame(site("40 psf")));
+    CHECK(pressure_on(high.model, "S.minimum") == Approx(1.1 * 20 * kPsf).epsilon(1e-12));
+    // Never a floor on pf: the balanced case keeps pf = 0.7 x 1.0 x 1.0 x 1.1 x 15 = 11.55 psf
+    // (plus the rain-on-snow surcharge, which applies at pg = 15 psf: Sec. 7.10, 5 psf).
+    CHECK(pressure_on(low.model, "S.balanced") == Approx((11.55 + 5.0) * kPsf).epsilon(1e-12));
+}
+
+TEST_CASE("snow: rain-on-snow applies for 0 < pg <= 20 psf on roofs flatter than W/50") {
+    // ASCE 7-16 Sec. 7.10 (from memory). Flat roof, W = 72 ft: 0 deg < 72/50 = 1.44 deg.
+    // pf = 0.7 x 1.0 x 1.0 x 1.0 x 20 psf = 14 psf; balanced 14 + 5 = 19 psf.
+    const char* site20 =
+        "  pg = 20 psf\n  terrain = C\n  exposure = partially\n  thermal = heated\n  risk = II\n";
+    Analysis a = analysed(flat_frame(site20));
+    CHECK(pressure_on(a.model, "S.balanced") == Approx(19.0 * kPsf).epsilon(1e-12));
+    // pg = 25 psf is above 20 psf: no surcharge, pf = 0.7 x 25 = 17.5 psf.
+    Analysis b = analysed(flat_frame(
+        "  pg = 25 psf\n  terrain = C\n  exposure = partially\n  thermal = heated\n  risk = II\n"));
+    CHECK(pressure_on(b.model, "S.balanced") == Approx(17.5 * kPsf).epsilon(1e-12));
+    CHECK(trace_has(b.model,
+                    "rain-on-snow surcharge not required: pg = 25.0 psf is above "
+                    "20.0 psf"));
+}
+
+TEST_CASE("snow: rain-on-snow does not apply to a roof steeper than W/50") {
+    // A 4:12 gable, eave to ridge W = 24 ft: slope 18.43 deg is not below 24/50 = 0.48 deg.
+    std::string text =
+        "model \"gable\"\nuse materials\nuse asce7_16\nreport units kip, ft\n"
+        "grid x A..C spacing 24 ft\ngrid y base = 0 ft, eave = 16 ft, ridge = 24 ft\n"
+        "section s structural_steel, A = 11.8 in2, I = 510 in4\n"
+        "columns on A, C from base to eave section s\n"
+        "rafters gable from A.eave to B.ridge to C.eave section s\nsupport pinned at base\n"
+        "snow S {\n  standard = asce7_16\n  pg = 15 psf\n  terrain = C\n  exposure = partially\n"
+        "  thermal = heated\n  risk = II\n}\nroof main on gable.* {\n  tributary = 20 ft\n}\n";
+    Analysis a = analysed(text);
+    CHECK(trace_has(a.model,
+                    "rain-on-snow surcharge not required: slope 18.43 deg is not below "
+                    "W/50.000 ft = 24.000 ft / 50.000 ft = 0.48 deg"));
+    // Warm roof, other surface: Cs = 1 up to 30 deg (Fig. 7.4-1a, from memory), so
+    // ps = pf = 0.7 x 15 = 10.5 psf. Slope 18.43 deg >= 15 deg: no minimum case (Sec. 7.3.4).
+    CHECK(pressure_on(a.model, "S.balanced") == Approx(10.5 * kPsf).epsilon(1e-12));
+    CHECK(find_case(a.model, "S.minimum") == nullptr);
+}
+
+TEST_CASE("snow: Cs on all six curves of Fig. 7.4-1, at, below and above each knee") {
+    // ASCE 7-16 Sec. 7.4: Cs = 1 up to the knee, then 1 - (t - knee)/(70 - knee).
+    // Knees: warm 5 (slippery, checked) / 30 (other); cold ventilated 10 (slippery,
+    // checked) / 37.5; cold 15 / 45 (the unchecked ones from memory). Hand values.
+    Analysis a = analysed(flat_frame(kSite));
+    const SnowTables& t = a.model.snow->tables;
+    struct Row {
+        double Ct;
+        bool slippery;
+        double knee;
+    };
+    for (Row row : {Row{1.0, true, 5}, Row{1.0, false, 30}, Row{1.1, true, 10},
+                    Row{1.1, false, 37.5}, Row{1.2, true, 15}, Row{1.2, false, 45}}) {
+        INFO("Ct " << row.Ct << (row.slippery ? " slippery" : " other"));
+        CHECK(roof_slope_factor(t, row.Ct, row.slippery, (row.knee - 1) * kDeg) == 1.0);
+        CHECK(roof_slope_factor(t, row.Ct, row.slippery, row.knee * kDeg) == Approx(1.0));
+        double above = row.knee + 10;
+        CHECK(roof_slope_factor(t, row.Ct, row.slippery, above * kDeg) ==
+              Approx(1.0 - 10.0 / (70.0 - row.knee)).epsilon(1e-12));
+        CHECK(roof_slope_factor(t, row.Ct, row.slippery, 70 * kDeg) == 0.0);
+    }
+    // Spot values at 4:12 (18.43 deg), hand computed: warm slippery 1 - 13.43/65 = 0.793;
+    // cold ventilated slippery 1 - 8.43/60 = 0.859; cold slippery 1 - 3.43/55 = 0.938.
+    double four12 = std::atan(4.0 / 12.0);
+    CHECK(roof_slope_factor(t, 1.0, true, four12) == Approx(0.7932).epsilon(1e-3));
+    CHECK(roof_slope_factor(t, 1.1, true, four12) == Approx(0.8595).epsilon(1e-3));
+    CHECK(roof_slope_factor(t, 1.3, true, four12) == Approx(0.9376).epsilon(1e-3));
+    // Freezers (Ct 1.3) use the cold curve, greenhouses (Ct 0.85) the warm one.
+    CHECK(roof_slope_factor(t, 0.85, false, 31 * kDeg) == Approx(1.0 - 1.0 / 40.0));
+}
+
+TEST_CASE("snow: a warm slippery roof needs its insulation for the slippery curve") {
+    // ASCE 7-16 Sec. 7.4.1 (from memory): R >= 30 unventilated. A 6:12 gable (26.57 deg),
+    // warm (Ct = 1.0): with R-19 it takes the curve for other surfaces (knee 30: Cs = 1);
+    // with R-38 the slippery curve: Cs = 1 - (26.57 - 5)/65 = 0.668.
+    auto model = [](const char* insulation) {
+        return fmt::format(
+            "model \"gable\"\nuse materials\nuse asce7_16\nreport units kip, ft\n"
+            "grid x A..C spacing 24 ft\ngrid y base = 0 ft, eave = 16 ft, ridge = 28 ft\n"
+            "section s structural_steel, A = 11.8 in2, I = 510 in4\n"
+            "columns on A, C from base to eave section s\n"
+            "rafters gable from A.eave to B.ridge to C.eave section s\nsupport pinned at base\n"
+            "snow S {{\n  standard = asce7_16\n  pg = 30 psf\n  terrain = C\n"
+            "  exposure = partially\n  thermal = heated\n  risk = II\n}}\n"
+            "roof main on gable.* {{\n  tributary = 20 ft\n  surface = slippery\n"
+            "  insulation = {}\n}}\n",
+            insulation);
+    };
+    double pf = 0.7 * 30;  // Eq. 7.3-1, all factors 1.0
+    Analysis poor = analysed(model("19"));
+    CHECK(pressure_on(poor.model, "S.balanced") == Approx(pf * kPsf).epsilon(1e-12));
+    Analysis good = analysed(model("38"));
+    double cs = 1.0 - (std::atan(0.5) / kDeg - 5.0) / 65.0;
+    CHECK(cs == Approx(0.668).epsilon(1e-3));
+    CHECK(pressure_on(good.model, "S.balanced") == Approx(cs * pf * kPsf).epsilon(1e-12));
+}
+
+TEST_CASE("snow: an amendment file changes a library value without a rebuild") {
+    // ASCE 7-16 Sec. 7.3.4 with the pg limit amended from 20 to 30 psf: for pg = 25 psf
+    // and Is = 1.0, pm = Is pg = 25 psf instead of 20 Is = 20 psf.
+    ImportOptions options;
+    options.read = [](const std::string& path, std::string& text, std::string& error) {
+        if (path != "county.firn") {
+            error = "cannot read";
+            return false;
+        }
+        text = "amend asce7_16.pm.pg_limit = 30 psf because \"county amendment 7\"\n";
+        return true;
+    };
+    std::string site =
+        "  pg = 25 psf\n  terrain = C\n  exposure = partially\n  thermal = heated\n  risk = II\n";
+    Analysis plain = analysed(flat_frame(site));
+    CHECK(pressure_on(plain.model, "S.minimum") == Approx(20 * kPsf).epsilon(1e-12));
+    Analysis amended = analysed("use \"county.firn\"\n" + flat_frame(site), options);
+    CHECK(pressure_on(amended.model, "S.minimum") == Approx(25 * kPsf).epsilon(1e-12));
+    CHECK(trace_has(amended.model,
+                    "amended: asce7_16.pm.pg_limit = 30.0 psf because \"county "
+                    "amendment 7\""));
+}
+
+TEST_CASE("snow: SI input gives the same loads as US customary") {
+    // 1.915 kPa is 40.0 psf to 0.01 %; exact conversion keeps pf proportional.
+    Analysis si = analysed(
+        flat_frame("  pg = 1.915 kPa\n  terrain = C\n  exposure = partially\n  thermal = unheated\n"
+                   "  risk = II\n"));
+    CHECK(pressure_on(si.model, "S.balanced") == Approx(0.7 * 1.2 * 1915.0).epsilon(1e-12));
+}
+
+TEST_CASE("snow: balanced snow on a simple span gives wL^2/8") {
+    // Statics, common practice: a simply supported beam under uniform w has
+    // M_mid = wL^2/8 and reactions wL/2. w = pf x 20 ft with pf = 33.6 psf (above).
+    std::string text =
+        "model \"beam\"\nuse materials\nuse asce7_16\nreport units kip, ft\n"
+        "grid x A..B spacing 30 ft\ngrid y top = 0 ft\n"
+        "section s structural_steel, A = 11.8 in2, I = 510 in4\n"
+        "beams along top from A to B section s\n"
+        "support pinned at A.top\nsupport roller at B.top\n"
+        "snow S {\n  standard = asce7_16\n" +
+        std::string(kSite) + "}\nroof main on top.A.B {\n  tributary = 20 ft\n}\n";
+    Analysis a = analysed(text);
+    double w = 33.6 * kPsf * 20 * kFt;
+    double L = 30 * kFt;
+    std::size_t c = 0;
+    while (a.model.cases[c].name != "S.balanced")
+        ++c;
+    const MemberSummary& s = a.results.cases[c].members[0];
+    CHECK(s.moment_max.value == Approx(w * L * L / 8).epsilon(1e-9));
+    CHECK(s.moment_max.position == Approx(L / 2).epsilon(1e-9));
+    CHECK(a.results.cases[c].reactions[0][1] == Approx(w * L / 2).epsilon(1e-9));
+}
+
+TEST_CASE("snow: bad site and roof data get located errors") {
+    CHECK(first_message(flat_frame("  pg = -5 psf\n  terrain = C\n  exposure = partially\n"
+                                   "  thermal = unheated\n  risk = II\n")) ==
+          "input:14:8: error: the ground snow load pg cannot be negative");
+    CHECK(
+        first_message(flat_frame("  pg = 40 psf\n  terrain = above_tree_line\n"
+                                 "  exposure = sheltered\n  thermal = unheated\n  risk = II\n")) ==
+        "input:16:14: error: exposure 'sheltered' is not allowed for terrain 'above_tree_line' "
+        "(ASCE 7-16 Table 7.3-1)");
+    CHECK(first_message(flat_frame(std::string(kSite) + "  Ce = 0.9\n")) ==
+          "input:19:3: error: an overridden Ce needs its reason: Ce = ... because \"the local "
+          "amendment or ruling\"");
+    CHECK(first_message(flat_frame("  pg = 40 psf\n  terrain = E\n  exposure = partially\n"
+                                   "  thermal = unheated\n  risk = II\n")) ==
+          "input:15:13: error: terrain is one of B, C, D, above_tree_line, alaska_treeless; "
+          "found 'E'");
+}
