@@ -166,6 +166,17 @@ struct SnowTables {
     double rain_pg_limit = 0.0;      ///< rain-on-snow applies for 0 < pg <= this
     double rain_surcharge = 0.0;     ///< Pa
     double rain_W_per_degree = 0.0;  ///< slope limit in degrees = W / this (m)
+    double density_per_pg = 0.0;     ///< gamma = this x pg + base (1/m), at most max
+    double density_base = 0.0;       ///< N/m^3
+    double density_max = 0.0;
+    double drift_coefficient = 0.0;  ///< hd = c lu^(1/3) (pg + pg_offset)^(1/4) - offset, in ft and psf
+    double drift_pg_offset = 0.0;    ///< Pa
+    double drift_offset = 0.0;       ///< m
+    double drift_min_lu = 0.0;       ///< m
+    double unbalanced_min_rise = 0.0;  ///< rise per run from which unbalanced loads apply
+    double unbalanced_max_rise = 0.0;
+    double unbalanced_windward = 0.0;  ///< windward load / ps
+    double unbalanced_narrow_W = 0.0;  ///< m: the simply supported rafter rule applies up to this
 };
 
 /// A factor of the snow provisions: its value and, when the user gave it
@@ -195,6 +206,7 @@ struct Roof {
     bool slippery = false;      ///< an unobstructed slippery surface
     double insulation_R = 0.0;  ///< thermal resistance, ft^2*h*F/Btu (0: not given)
     bool ventilated = false;
+    bool simple_rafters = false;  ///< rafters are simply supported prismatic, ridge to eave
     SourceRange where;
 };
 

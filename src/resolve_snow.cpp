@@ -153,6 +153,17 @@ SnowTables read_tables(Library& lib) {
     t.rain_pg_limit = lib.need("rain_on_snow.pg_limit", dim::pressure);
     t.rain_surcharge = lib.need("rain_on_snow.surcharge", dim::pressure);
     t.rain_W_per_degree = lib.need("rain_on_snow.W_per_degree", dim::length);
+    t.density_per_pg = lib.need("density.per_pg", power(dim::length, -1));
+    t.density_base = lib.need("density.base", dim::unit_weight);
+    t.density_max = lib.need("density.max", dim::unit_weight);
+    t.drift_coefficient = lib.need("drift.coefficient", dim::number);
+    t.drift_pg_offset = lib.need("drift.pg_offset", dim::pressure);
+    t.drift_offset = lib.need("drift.offset", dim::length);
+    t.drift_min_lu = lib.need("drift.min_lu", dim::length);
+    t.unbalanced_min_rise = lib.need("unbalanced.min_rise", dim::number);
+    t.unbalanced_max_rise = lib.need("unbalanced.max_rise", dim::number);
+    t.unbalanced_windward = lib.need("unbalanced.windward", dim::number);
+    t.unbalanced_narrow_W = lib.need("unbalanced.narrow_W", dim::length);
     return t;
 }
 
@@ -334,7 +345,8 @@ void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
             }
         }
     }
-    Settings s(r, decl.settings, {"tributary", "surface", "insulation", "ventilated"},
+    Settings s(r, decl.settings,
+               {"tributary", "surface", "insulation", "ventilated", "rafter_spans"},
                fmt::format("roof '{}'", decl.name.text).c_str());
     Roof roof;
     roof.name = decl.name.text;
@@ -351,9 +363,12 @@ void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
                             "a tributary width must be greater than zero");
         tributary_ok = false;
     }
-    roof.slippery = s.word("surface", {"slippery", "nonslippery"}).value_or("nonslippery") == "slippery";
+    roof.slippery =
+        s.word("surface", {"slippery", "nonslippery"}).value_or("nonslippery") == "slippery";
     s.value("insulation", kNumber, roof.insulation_R);
     roof.ventilated = s.word("ventilated", {"yes", "no"}).value_or("no") == "yes";
+    roof.simple_rafters =
+        s.word("rafter_spans", {"simple", "continuous"}).value_or("continuous") == "simple";
     if (!names.add(decl.name, r.diagnostics) || !found || !tributary_ok)
         return;
     for (MemberId m : members) {

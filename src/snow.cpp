@@ -12,6 +12,8 @@ namespace firn {
 namespace {
 
 constexpr double kDegree = std::numbers::pi / 180.0;
+constexpr double kFoot = 0.3048;                                           // m, exact
+constexpr double kPoundPerSquareFoot = 4.4482216152605 / (kFoot * kFoot);  // Pa, exact
 /// Slopes closer than this are one slope (rad): members of one roof plane.
 constexpr double kSameSlope = 1e-6;
 
@@ -68,6 +70,8 @@ class SnowDeriver {
         add_case(std::move(balanced));
         if (!minimum.distributed.empty())
             add_case(std::move(minimum));
+        for (LoadCase& lc : unbalanced_cases_)
+            add_case(std::move(lc));
         mark_unverified();
     }
 
@@ -103,6 +107,10 @@ class SnowDeriver {
     void trace_site();
     void trace_factor(const char* symbol, const SnowFactor& f, const std::string& basis);
     void derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& minimum);
+    void unbalanced(const Roof& roof, const std::vector<double>& ps, double steepest);
+    void unbalanced_case(const Roof& roof, const std::vector<double>& ps, bool wind_from_left,
+                         double ridge_x);
+    std::vector<LoadCase> unbalanced_cases_;
     double slope_factor(const Roof& roof, double slope, const std::string& members);
     double rain_on_snow(double slope, double W);
     double minimum_load(double slope);
@@ -110,6 +118,14 @@ class SnowDeriver {
     void add_case(LoadCase lc);
     void load_members(const Roof& roof, const std::vector<MemberId>& members, double pressure,
                       LoadCase& lc) const;
+    void load_member(const Roof& roof, MemberId id, double pressure, LoadCase& lc) const;
+    void load_part(const Roof& roof, MemberId id, double x_from, double x_to, double pressure,
+                   LoadCase& lc) const;
+    LoadCase& case_named(const char* what);
+    std::string density(double n_per_m3) const {
+        return fmt::format("{:.{}f} {}", u_.unit_weight.from_si(n_per_m3), u_.unit_weight.decimals,
+                           u_.unit_weight.name);
+    }
     void mark_unverified();
 };
 
@@ -277,21 +293,26 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
     double rain = rain_on_snow(steepest, W);
     // One Cs per roof plane: members of equal slope share it.
     std::vector<char> done(roof.members.size(), 0);
+    std::vector<double> ps_of(roof.members.size(), 0.0);
     for (std::size_t i = 0; i < roof.members.size(); ++i) {
         if (done[i])
             continue;
         double slope = geometry_of(m_, roof.members[i]).slope;
         std::vector<MemberId> plane;
         std::vector<std::string> plane_names;
+        std::vector<std::size_t> same_plane;
         for (std::size_t j = i; j < roof.members.size(); ++j) {
             if (!done[j] && std::abs(geometry_of(m_, roof.members[j]).slope - slope) < kSameSlope) {
                 done[j] = 1;
+                same_plane.push_back(j);
                 plane.push_back(roof.members[j]);
                 plane_names.push_back(m_.members[at(roof.members[j])].name);
             }
         }
         double cs = slope_factor(roof, slope, fmt::format("{}", fmt::join(plane_names, ", ")));
         double ps = cs * pf_;
+        for (std::size_t j : same_plane)
+            ps_of[j] = ps;
         line(fmt::format("ps = Cs pf = {:.3f} x {} = {}", cs, pressure(pf_), pressure(ps)),
              "ASCE 7-16 Eq. 7.4-1");
         double p = ps + rain;
@@ -304,6 +325,7 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
                          pressure(p), length(roof.tributary), line_load(p * roof.tributary)));
         load_members(roof, plane, p, balanced);
     }
+    unbalanced(roof, ps_of, steepest);
     double pm = minimum_load(steepest);
     if (pm > 0.0) {
         line(fmt::format(
@@ -314,19 +336,163 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
     }
 }
 
+/// The x of a roof's ridge (its highest node strictly between its ends), if it has one.
+std::optional<double> ridge_of(const Model& m, const Roof& roof) {
+    double left = INFINITY, right = -INFINITY, top = -INFINITY, ridge_x = 0.0;
+    for (MemberId id : roof.members) {
+        for (NodeId n : {m.members[at(id)].start, m.members[at(id)].end}) {
+            const Node& node = m.nodes[at(n)];
+            left = std::min(left, node.x);
+            right = std::max(right, node.x);
+            if (node.y > top + 1e-9) {
+                top = node.y;
+                ridge_x = node.x;
+            }
+        }
+    }
+    if (ridge_x > left + 1e-6 && ridge_x < right - 1e-6)
+        return ridge_x;
+    return std::nullopt;
+}
+
+/// Unbalanced loads on a gable (Sec. 7.6.1): one case for wind from each side.
+void SnowDeriver::unbalanced(const Roof& roof, const std::vector<double>& ps, double steepest) {
+    const char* clause = "ASCE 7-16 Sec. 7.6.1";
+    auto ridge = ridge_of(m_, roof);
+    if (!ridge) {
+        line(fmt::format("unbalanced load not required: roof {} is not a hip or gable roof (no "
+                         "ridge between its eaves)",
+                         roof.name),
+             clause);
+        return;
+    }
+    double rise = std::tan(steepest);
+    if (rise < t_.unbalanced_min_rise - 1e-12 || rise > t_.unbalanced_max_rise + 1e-12) {
+        line(fmt::format("unbalanced load not required: slope {} is outside {} to {}",
+                         degrees(steepest), degrees(std::atan(t_.unbalanced_min_rise)),
+                         degrees(std::atan(t_.unbalanced_max_rise))),
+             clause);
+        return;
+    }
+    line(fmt::format("unbalanced loads, wind from each side: slope {} is within {} to {}",
+                     degrees(steepest), degrees(std::atan(t_.unbalanced_min_rise)),
+                     degrees(std::atan(t_.unbalanced_max_rise))),
+         clause);
+    unbalanced_case(roof, ps, true, *ridge);
+    unbalanced_case(roof, ps, false, *ridge);
+}
+
+void SnowDeriver::unbalanced_case(const Roof& roof, const std::vector<double>& ps,
+                                  bool wind_from_left, double ridge_x) {
+    const char* clause = "ASCE 7-16 Sec. 7.6.1, Fig. 7.6-2";
+    LoadCase& lc =
+        case_named(wind_from_left ? "unbalanced.wind_from_left" : "unbalanced.wind_from_right");
+    // Members on the windward side lie upwind of the ridge.
+    auto windward = [&](MemberId id) {
+        const Member& mem = m_.members[at(id)];
+        double mid = 0.5 * (m_.nodes[at(mem.start)].x + m_.nodes[at(mem.end)].x);
+        return wind_from_left ? mid < ridge_x : mid > ridge_x;
+    };
+    double left = INFINITY, right = -INFINITY, leeward_slope = 0.0;
+    for (std::size_t i = 0; i < roof.members.size(); ++i) {
+        const Member& mem = m_.members[at(roof.members[i])];
+        for (NodeId n : {mem.start, mem.end}) {
+            left = std::min(left, m_.nodes[at(n)].x);
+            right = std::max(right, m_.nodes[at(n)].x);
+        }
+        if (!windward(roof.members[i]))
+            leeward_slope = std::max(leeward_slope, geometry_of(m_, roof.members[i]).slope);
+    }
+    double W = wind_from_left ? ridge_x - left : right - ridge_x;
+    std::string side = wind_from_left ? "wind from the left" : "wind from the right";
+    if (roof.simple_rafters && W <= t_.unbalanced_narrow_W) {
+        double p = site_.Is.value * site_.pg;
+        line(fmt::format("{}: W = {} <= {} with simply supported rafters: windward 0, leeward "
+                         "Is pg = {} x {} = {}",
+                         side, length(W), length(t_.unbalanced_narrow_W), factor(site_.Is.value),
+                         pressure(site_.pg), pressure(p)),
+             clause);
+        for (std::size_t i = 0; i < roof.members.size(); ++i) {
+            if (!windward(roof.members[i]))
+                load_member(roof, roof.members[i], p, lc);
+        }
+        return;
+    }
+    double gamma = snow_density(t_, site_.pg);
+    double hd = drift_height(t_, site_.pg, W);
+    double S = 1.0 / std::tan(leeward_slope);
+    double surcharge = hd * gamma / std::sqrt(S);
+    double extent = 8.0 * hd * std::sqrt(S) / 3.0;
+    line(fmt::format("{}: W = {}, lu = W; gamma = {}; hd = {}; S = {:.2f}", side, length(W),
+                     density(gamma), length(hd), S),
+         "ASCE 7-16 Eq. 7.7-1, Fig. 7.6-1");
+    line(fmt::format("windward: {:g} ps; leeward: ps + hd gamma / sqrt(S) = ps + {} x {} / "
+                     "sqrt({:.2f}) = ps + {} over 8 hd sqrt(S) / 3 = {} from the ridge",
+                     t_.unbalanced_windward, length(hd), density(gamma), S, pressure(surcharge),
+                     length(extent)),
+         clause);
+    double from = wind_from_left ? ridge_x : ridge_x - extent;
+    double to = wind_from_left ? ridge_x + extent : ridge_x;
+    for (std::size_t i = 0; i < roof.members.size(); ++i) {
+        MemberId id = roof.members[i];
+        if (windward(id)) {
+            load_member(roof, id, t_.unbalanced_windward * ps[i], lc);
+            continue;
+        }
+        load_member(roof, id, ps[i], lc);
+        load_part(roof, id, from, to, surcharge, lc);
+    }
+}
+
 void SnowDeriver::load_members(const Roof& roof, const std::vector<MemberId>& members, double p,
                                LoadCase& lc) const {
-    for (MemberId id : members) {
-        DistributedLoad load;
-        load.member = id;
-        load.direction = LoadDirection::down;
-        load.projected = true;
-        load.start = 0.0;
-        load.end = geometry_of(m_, id).run;
-        load.w_start = load.w_end = p * roof.tributary;
-        load.where = roof.where;
-        lc.distributed.push_back(load);
+    for (MemberId id : members)
+        load_member(roof, id, p, lc);
+}
+
+void SnowDeriver::load_member(const Roof& roof, MemberId id, double p, LoadCase& lc) const {
+    if (p == 0.0)
+        return;
+    DistributedLoad load;
+    load.member = id;
+    load.direction = LoadDirection::down;
+    load.projected = true;
+    load.start = 0.0;
+    load.end = geometry_of(m_, id).run;
+    load.w_start = load.w_end = p * roof.tributary;
+    load.where = roof.where;
+    lc.distributed.push_back(load);
+}
+
+/// A uniform pressure over the part of a member between two x (on the
+/// horizontal projection), cut where the part crosses the member's ends.
+void SnowDeriver::load_part(const Roof& roof, MemberId id, double x_from, double x_to, double p,
+                            LoadCase& lc) const {
+    const Member& mem = m_.members[at(id)];
+    double xs = m_.nodes[at(mem.start)].x, xe = m_.nodes[at(mem.end)].x;
+    double lo = std::max(std::min(xs, xe), x_from), hi = std::min(std::max(xs, xe), x_to);
+    if (!(hi - lo > 1e-9) || p == 0.0)
+        return;
+    DistributedLoad load;
+    load.member = id;
+    load.direction = LoadDirection::down;
+    load.projected = true;
+    double a = std::abs(lo - xs), b = std::abs(hi - xs);
+    load.start = std::min(a, b);
+    load.end = std::max(a, b);
+    load.w_start = load.w_end = p * roof.tributary;
+    load.where = roof.where;
+    lc.distributed.push_back(load);
+}
+
+LoadCase& SnowDeriver::case_named(const char* what) {
+    std::string name = fmt::format("{}.{}", site_.name, what);
+    for (LoadCase& lc : unbalanced_cases_) {
+        if (lc.name == name)
+            return lc;
     }
+    unbalanced_cases_.push_back(new_case(what));
+    return unbalanced_cases_.back();
 }
 
 LoadCase SnowDeriver::new_case(const char* what) const {
@@ -367,6 +533,18 @@ void SnowDeriver::mark_unverified() {
 }
 
 }  // namespace
+
+double snow_density(const SnowTables& t, double pg) {
+    return std::min(t.density_per_pg * pg + t.density_base, t.density_max);
+}
+
+double drift_height(const SnowTables& t, double pg, double lu) {
+    double lu_ft = std::max(lu, t.drift_min_lu) / kFoot;
+    double pg_psf = (pg + t.drift_pg_offset) / kPoundPerSquareFoot;
+    double hd_ft =
+        t.drift_coefficient * std::cbrt(lu_ft) * std::pow(pg_psf, 0.25) - t.drift_offset / kFoot;
+    return std::max(hd_ft, 0.0) * kFoot;
+}
 
 double roof_slope_factor(const SnowTables& tables, double Ct, bool slippery, double slope) {
     return on_curve(tables.Cs_knee[curve_of(Ct)][slippery ? 0 : 1], tables.Cs_zero_slope, slope);

@@ -18,4 +18,12 @@ void derive_snow(Model& model, Diagnostics& diagnostics);
 /// unobstructed slippery surface that qualifies for that curve).
 double roof_slope_factor(const SnowTables& tables, double Ct, bool slippery, double slope);
 
+/// Snow density for drifts, ASCE 7-16 Eq. 7.7-1 (N/m^3), for ground snow load `pg` (Pa).
+double snow_density(const SnowTables& tables, double pg);
+
+/// Drift height of ASCE 7-16 Fig. 7.6-1 (m) for an upwind length `lu` (m) and
+/// ground snow load `pg` (Pa), evaluated in the formula's own units (ft, psf)
+/// with exact conversions; never negative.
+double drift_height(const SnowTables& tables, double pg, double lu);
+
 }  // namespace firn

@@ -286,3 +286,84 @@ TEST_CASE("snow: bad site and roof data get located errors") {
           "input:15:13: error: terrain is one of B, C, D, above_tree_line, alaska_treeless; "
           "found 'E'");
 }
+
+TEST_CASE("snow: density and drift height for several lu and pg") {
+    // ASCE 7-16 Eq. 7.7-1: gamma = 0.13 pg + 14 <= 30 pcf. Fig. 7.6-1: hd = 0.43 lu^(1/3)
+    // (pg + 10)^(1/4) - 1.5 (ft, psf), lu at least 20 ft (from memory). Hand values.
+    Analysis a = analysed(flat_frame(kSite));
+    const SnowTables& t = a.model.snow->tables;
+    constexpr double kPcf = 4.4482216152605 / (kFt * kFt * kFt);
+    CHECK(snow_density(t, 40 * kPsf) == Approx(19.2 * kPcf).epsilon(1e-12));
+    CHECK(snow_density(t, 150 * kPsf) == Approx(30.0 * kPcf).epsilon(1e-12));  // 33.5 capped
+    struct Row {
+        double lu_ft, pg_psf, hd_ft;
+    };
+    // 0.43 x 30^(1/3) x 50^(1/4) - 1.5 = 2.0529; 0.43 x 100^(1/3) x 40^(1/4) - 1.5 = 3.5194;
+    // 0.43 x 20^(1/3) x 30^(1/4) - 1.5 = 1.2317 (lu = 10 ft is taken as 20 ft).
+    for (Row row : {Row{30, 40, 2.0529}, Row{100, 30, 3.5194}, Row{10, 20, 1.2317}}) {
+        INFO("lu " << row.lu_ft << " ft, pg " << row.pg_psf << " psf");
+        CHECK(drift_height(t, row.pg_psf * kPsf, row.lu_ft * kFt) / kFt ==
+              Approx(row.hd_ft).epsilon(1e-4));
+    }
+}
+
+namespace {
+
+/// A 4:12 gable of two rafters, eave to ridge `half` ft each side.
+std::string gable(int half, const char* rafters) {
+    return fmt::format(
+        "model \"gable\"\nuse materials\nuse asce7_16\nreport units kip, ft\n"
+        "grid x A..C spacing {} ft\ngrid y base = 0 ft, eave = 16 ft, ridge = 16 ft + {} ft / 3\n"
+        "section s structural_steel, A = 11.8 in2, I = 510 in4\n"
+        "columns on A, C from base to eave section s\n"
+        "rafters gable from A.eave to B.ridge to C.eave section s\nsupport pinned at base\n"
+        "snow S {{\n  standard = asce7_16\n  pg = 40 psf\n  terrain = C\n  exposure = partially\n"
+        "  thermal = heated\n  risk = II\n}}\nroof main on gable.* {{\n  tributary = 20 ft\n"
+        "  rafter_spans = {}\n}}\n",
+        half, half, rafters);
+}
+
+}  // namespace
+
+TEST_CASE("snow: unbalanced gable load by the general rule, wind from each side") {
+    // ASCE 7-16 Sec. 7.6.1, Fig. 7.6-2 (from memory): W = 30 ft, 4:12 so S = 3.
+    // pf = 0.7 x 40 = 28 psf = ps (Cs = 1 below 30 deg, Fig. 7.4-1a). Windward 0.3 ps = 8.4
+    // psf. Leeward ps plus hd gamma / sqrt(S) = 2.0529 x 19.2 / sqrt(3) = 22.757 psf over
+    // 8 hd sqrt(S) / 3 = 9.482 ft from the ridge (hd with lu = W = 30 ft, pg = 40 psf).
+    Analysis a = analysed(gable(30, "continuous"));
+    const LoadCase* left = find_case(a.model, "S.unbalanced.wind_from_left");
+    REQUIRE(left != nullptr);
+    REQUIRE(left->distributed.size() == 3);
+    // gable.A.B is windward, gable.B.C leeward: its surcharge starts at the ridge (its start).
+    CHECK(left->distributed[0].w_start / (20 * kFt) == Approx(8.4 * kPsf).epsilon(1e-12));
+    CHECK(left->distributed[1].w_start / (20 * kFt) == Approx(28 * kPsf).epsilon(1e-12));
+    CHECK(left->distributed[2].w_start / (20 * kFt) == Approx(22.757 * kPsf).epsilon(1e-4));
+    CHECK(left->distributed[2].start == 0.0);
+    CHECK(left->distributed[2].end / kFt == Approx(9.482).epsilon(1e-4));
+    // Wind from the right: the mirror image, the surcharge ends at the ridge (gable.A.B's end).
+    const LoadCase* right = find_case(a.model, "S.unbalanced.wind_from_right");
+    REQUIRE(right != nullptr);
+    REQUIRE(right->distributed.size() == 3);
+    CHECK(right->distributed[1].start / kFt == Approx(30 - 9.482).epsilon(1e-4));
+    CHECK(right->distributed[1].end / kFt == Approx(30).epsilon(1e-12));
+    CHECK(right->distributed[2].w_start / (20 * kFt) == Approx(8.4 * kPsf).epsilon(1e-12));
+}
+
+TEST_CASE("snow: unbalanced gable load with W <= 20 ft and simply supported rafters") {
+    // ASCE 7-16 Sec. 7.6.1 (from memory): windward 0, leeward uniform Is pg = 40 psf.
+    Analysis a = analysed(gable(18, "simple"));
+    const LoadCase* left = find_case(a.model, "S.unbalanced.wind_from_left");
+    REQUIRE(left != nullptr);
+    REQUIRE(left->distributed.size() == 1);
+    CHECK(a.model.members[at(left->distributed[0].member)].name == "gable.B.C");
+    CHECK(left->distributed[0].w_start / (20 * kFt) == Approx(40 * kPsf).epsilon(1e-12));
+    // With continuous rafters the general rule applies even for W <= 20 ft.
+    Analysis c = analysed(gable(18, "continuous"));
+    CHECK(find_case(c.model, "S.unbalanced.wind_from_left")->distributed.size() == 3);
+}
+
+TEST_CASE("snow: no unbalanced load on a flat roof or below 1/2 on 12") {
+    Analysis a = analysed(flat_frame(kSite));
+    CHECK(find_case(a.model, "S.unbalanced.wind_from_left") == nullptr);
+    CHECK(trace_has(a.model, "unbalanced load not required: roof main is not a hip or gable roof"));
+}
