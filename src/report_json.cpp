@@ -134,6 +134,20 @@ Json case_json(const Model& model, const Results& results, std::size_t c,
                 {"members", members}};
 }
 
+/// The snow trace: each line's text, its clause and whether it starts a part.
+Json snow_trace_json(const Model& model) {
+    Json lines = Json::array();
+    for (const TraceLine& t : model.snow_trace) {
+        Json line{{"text", t.text}};
+        if (!t.clause.empty())
+            line["clause"] = t.clause;
+        if (t.heading)
+            line["heading"] = true;
+        lines.push_back(std::move(line));
+    }
+    return lines;
+}
+
 }  // namespace
 
 void write_json_report(const Model& model, const Results& results, const ReportOptions& options,
@@ -147,6 +161,8 @@ void write_json_report(const Model& model, const Results& results, const ReportO
               {"caution", kCaution},
               {"units", units_json(model.units)},
               {"model", model_json(model)}};
+    if (!model.snow_trace.empty())
+        head["snow_trace"] = snow_trace_json(model);
     std::string text = head.dump(1, ' ', false, Json::error_handler_t::replace);
     text.resize(text.size() - 2);  // the final "\n}": the cases follow
     text += ",\n \"cases\": [";
