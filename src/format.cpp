@@ -3,6 +3,8 @@
 #include "format.hpp"
 
 #include <fmt/format.h>
+#include <algorithm>
+#include <functional>
 #include <optional>
 #include <span>
 
@@ -14,12 +16,12 @@ namespace {
 
 using namespace format_detail;
 
-/// A statement or load of one level (the file or a case block) with its
-/// comments, or a comment on a line of its own.
+/// A statement, or a line of a block (a load or a setting), with its
+/// comments; or a comment on a line of its own.
 struct Item {
     SourceRange where;
     const syntax::Statement* statement = nullptr;
-    std::size_t load = 0;  ///< index in the block, when neither of the others is set
+    std::size_t line = 0;  ///< index in the block, when neither of the others is set
     std::optional<Remark> own;
     std::vector<Remark> inside;
     std::optional<Remark> trailing;
@@ -63,6 +65,22 @@ Level gather(std::vector<Item> code, std::span<const Remark> remarks, std::uint3
     return level;
 }
 
+/// The lines inside a block statement (`case`, `snow`, `roof`): where each
+/// stands in the source, and its atoms.
+struct BlockLines {
+    /// The header's last name: only words and spaces stand between it and the '{'.
+    const syntax::Name* before_brace = nullptr;
+    std::vector<SourceRange> where;
+    std::function<std::vector<Atom>(std::size_t)> atoms;
+};
+
+/// A setting runs from its key to its value, or to its reason when it has one.
+SourceRange setting_where(const syntax::Setting& s) {
+    SourceRange where = s.key.where;
+    where.end = s.reason ? s.reason_where.end : s.value.where.end;
+    return where;
+}
+
 /// True if code comes before the comment on its line (a UTF-8 byte order mark does not count).
 bool after_code(const SourceMap& sources, const syntax::Comment& c) {
     std::string_view line = sources.line_text(c.where.file, c.where.begin.line);
@@ -100,7 +118,7 @@ class FilePrinter {
     std::vector<Remark> remarks_;
     std::vector<Line> lines_;
 
-    void emit_level(const Level& level, std::size_t indent, const syntax::CaseDecl* block) {
+    void emit_level(const Level& level, std::size_t indent, const BlockLines* block) {
         for (std::size_t k = 0; k < level.items.size(); ++k) {
             const Item& item = level.items[k];
             // The author's blank lines between two items become one.
@@ -115,7 +133,7 @@ class FilePrinter {
                 continue;
             }
             if (block != nullptr)
-                emit_load(*block, item, indent);
+                emit_atoms(block->atoms(item.line), item.inside, indent);
             else
                 emit_statement(item);
             if (item.trailing)
@@ -130,32 +148,56 @@ class FilePrinter {
     }
 
     void emit_statement(const Item& item) {
-        if (const auto* block = std::get_if<syntax::CaseDecl>(&item.statement->node)) {
-            emit_case(*block, item);
+        if (std::optional<BlockLines> block = block_lines(*item.statement)) {
+            emit_block(item, *block);
             return;
         }
         emit_atoms(statement_atoms(*item.statement, source_, signature_), item.inside, 0);
     }
 
-    void emit_load(const syntax::CaseDecl& block, const Item& item, std::size_t indent) {
-        emit_atoms(load_atoms(block.loads[item.load], item.where, source_, signature_), item.inside,
-                   indent);
+    /// The lines of a case, snow or roof block; nullopt for any other statement.
+    std::optional<BlockLines> block_lines(const syntax::Statement& s) {
+        if (const auto* c = std::get_if<syntax::CaseDecl>(&s.node)) {
+            return BlockLines{&c->name, c->load_where, [this, c](std::size_t i) {
+                                  return load_atoms(c->loads[i], c->load_where[i], source_,
+                                                    signature_);
+                              }};
+        }
+        if (const auto* snow = std::get_if<syntax::SnowDecl>(&s.node))
+            return settings_block(snow->name, snow->settings);
+        if (const auto* roof = std::get_if<syntax::RoofDecl>(&s.node))
+            return settings_block(roof->members.back(), roof->settings);
+        return std::nullopt;
     }
 
-    /// `case NAME KIND {`, the loads indented by two, `}`.
-    void emit_case(const syntax::CaseDecl& block, const Item& item) {
-        // Only the kind's words stand between the name and the '{'.
-        auto brace = static_cast<std::uint32_t>(source_.find('{', block.name.where.end.offset));
-        std::vector<Item> loads;
-        for (std::size_t i = 0; i < block.loads.size(); ++i) {
-            Item load;
-            load.where = block.load_where[i];
-            load.load = i;
-            loads.push_back(std::move(load));
+    BlockLines settings_block(const syntax::Name& before_brace,
+                              const std::vector<syntax::Setting>& settings) {
+        BlockLines block{&before_brace, {}, [this, list = &settings](std::size_t i) {
+                             return setting_atoms((*list)[i], source_, signature_);
+                         }};
+        for (const syntax::Setting& s : settings)
+            block.where.push_back(setting_where(s));
+        return block;
+    }
+
+    /// The header up to '{', the block's lines indented by two, `}`.
+    void emit_block(const Item& item, const BlockLines& block) {
+        const SourceRange& last = block.before_brace->where;
+        auto brace = static_cast<std::uint32_t>(source_.find('{', last.end.offset));
+        // Comments before the '{' (after a comma of the roof's members) are the header's.
+        auto split = std::partition_point(item.inside.begin(), item.inside.end(),
+                                          [brace](const Remark& r) { return r.offset() < brace; });
+        std::vector<Item> lines;
+        for (std::size_t i = 0; i < block.where.size(); ++i) {
+            Item line;
+            line.where = block.where[i];
+            line.line = i;
+            lines.push_back(std::move(line));
         }
-        // The header cannot break, so the '{' is on the line of `case`.
-        Level level = gather(std::move(loads), item.inside, item.where.begin.line);
-        emit_atoms(case_header_atoms(block, brace, source_, signature_), {}, 0);
+        emit_atoms(block_header_atoms(*item.statement, brace, source_, signature_),
+                   std::vector<Remark>(item.inside.begin(), split), 0);
+        // Only spaces stand between the header's last name and the '{': they share a line.
+        Level level = gather(std::move(lines), std::span(split, item.inside.end()), last.end.line);
         if (level.after_opener)
             lines_.back().comment = comment_text(*level.after_opener->comment);
         emit_level(level, 2, &block);

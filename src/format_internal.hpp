@@ -50,16 +50,20 @@ struct Line {
     bool own_comment = false;
 };
 
-/// The atoms of a statement other than a case block. `signature` collects a
+/// The atoms of a statement other than a block. `signature` collects a
 /// description of its structure, for the self-check.
 std::vector<Atom> statement_atoms(const syntax::Statement& statement, std::string_view source,
                                   std::string& signature);
-/// The atoms of a case block's first line, `case NAME KIND {`.
-std::vector<Atom> case_header_atoms(const syntax::CaseDecl& block, std::uint32_t brace,
-                                    std::string_view source, std::string& signature);
+/// The atoms of a block statement's first lines, up to its '{' at `brace`:
+/// `case NAME KIND {`, `snow NAME {`, `roof NAME on MEMBERS {`.
+std::vector<Atom> block_header_atoms(const syntax::Statement& statement, std::uint32_t brace,
+                                     std::string_view source, std::string& signature);
 /// The atoms of one load of a case block.
 std::vector<Atom> load_atoms(const syntax::LoadDecl& load, const SourceRange& where,
                              std::string_view source, std::string& signature);
+/// The atoms of one setting of a snow or roof block, `key = value because "reason"`.
+std::vector<Atom> setting_atoms(const syntax::Setting& setting, std::string_view source,
+                                std::string& signature);
 
 /// Gives each comment inside the statement to the atom it follows.
 void attach_comments(std::vector<Atom>& atoms, const std::vector<Remark>& inside);

@@ -160,15 +160,17 @@ class Printer {
     std::vector<Atom> take() { return std::move(atoms_); }
 
     void print(const syntax::Statement& s);
+    void print_block_header(const syntax::Statement& s, std::uint32_t brace);
     void print_load(const syntax::LoadDecl& load, const SourceRange& where);
-    void print_case_header(const syntax::CaseDecl& block, std::uint32_t brace);
+    void print_setting(const syntax::Setting& setting);
 
   private:
     std::string_view source_;
     std::string& signature_;
     std::vector<Atom> atoms_;
-    std::uint32_t last_end_;  ///< end of the last token whose place is known
-    SourceRange where_;       ///< the statement being printed
+    std::uint32_t last_end_;   ///< end of the last token whose place is known
+    SourceRange where_;        ///< the statement being printed
+    std::uint32_t brace_ = 0;  ///< the '{' of the block whose header is printed
     bool glue_next_ = false;
     bool break_next_ = false;
     bool glue_unit_ = false;  ///< the next number stands glued to its unit
@@ -246,7 +248,12 @@ class Printer {
     void print(const syntax::RaftersDecl& r);
     void print(const syntax::GroupDecl& g);
     void print(const syntax::SupportDecl& s);
-    void print(const syntax::CaseDecl&) {}  // a block: see format.cpp
+    void print(const syntax::AmendDecl& a);
+    // A block's header, up to its '{'; format.cpp lays out its lines one by one.
+    void print(const syntax::CaseDecl& c);
+    void print(const syntax::SnowDecl& s);
+    void print(const syntax::RoofDecl& r);
+    void because(const SourceRange& reason);
     void properties(const std::vector<syntax::Property>& props, bool started);
     void options(const syntax::MemberOptions& o);
     void generator(const char* keyword, const char* preposition,
@@ -578,12 +585,53 @@ void Printer::print(const syntax::SupportDecl& s) {
     });
 }
 
-void Printer::print_case_header(const syntax::CaseDecl& block, std::uint32_t brace) {
-    signature_ += fmt::format("\ncase {}:", block.loads.size());
-    word("case");
-    name(block.name);
-    source_words(block.name.where.end.offset, brace);  // the kind: one word, or `roof live`
+void Printer::print_block_header(const syntax::Statement& s, std::uint32_t brace) {
+    brace_ = brace;
+    print(s);
     token("{", brace, brace + 1);
+}
+
+void Printer::print(const syntax::CaseDecl& c) {
+    word("case");
+    name(c.name);
+    source_words(c.name.where.end.offset, brace_);  // the kind: one word, or `roof live`
+}
+
+void Printer::print(const syntax::SnowDecl& s) {
+    word("snow");
+    name(s.name);
+}
+
+void Printer::print(const syntax::RoofDecl& r) {
+    word("roof");
+    name(r.name);
+    word("on");
+    names(r.members);
+}
+
+/// `because "reason"`: the string exactly as written, escapes and all.
+void Printer::because(const SourceRange& reason) {
+    signature_ += " because";
+    word("because");
+    token(std::string(text_of(reason.begin.offset, reason.end.offset)), reason.begin.offset,
+          reason.end.offset);
+}
+
+void Printer::print_setting(const syntax::Setting& setting) {
+    signature_ += "\n setting:";
+    name(setting.key);
+    word("=");
+    value(setting.value);
+    if (setting.reason)
+        because(setting.reason_where);
+}
+
+void Printer::print(const syntax::AmendDecl& a) {
+    word("amend");
+    name(a.name);
+    word("=");
+    value(a.value);
+    because(a.reason_where);
 }
 
 void Printer::print_load(const syntax::LoadDecl& load, const SourceRange& where) {
@@ -638,10 +686,10 @@ std::vector<Atom> statement_atoms(const syntax::Statement& statement, std::strin
     return p.take();
 }
 
-std::vector<Atom> case_header_atoms(const syntax::CaseDecl& block, std::uint32_t brace,
-                                    std::string_view source, std::string& signature) {
-    Printer p(source, signature, block.name.where.begin.offset);
-    p.print_case_header(block, brace);
+std::vector<Atom> block_header_atoms(const syntax::Statement& statement, std::uint32_t brace,
+                                     std::string_view source, std::string& signature) {
+    Printer p(source, signature, statement.where.begin.offset);
+    p.print_block_header(statement, brace);
     return p.take();
 }
 
@@ -649,6 +697,13 @@ std::vector<Atom> load_atoms(const syntax::LoadDecl& load, const SourceRange& wh
                              std::string_view source, std::string& signature) {
     Printer p(source, signature, where.begin.offset);
     p.print_load(load, where);
+    return p.take();
+}
+
+std::vector<Atom> setting_atoms(const syntax::Setting& setting, std::string_view source,
+                                std::string& signature) {
+    Printer p(source, signature, setting.key.where.begin.offset);
+    p.print_setting(setting);
     return p.take();
 }
 
