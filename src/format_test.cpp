@@ -222,6 +222,75 @@ TEST_CASE("fmt: a section's properties continue under the shape word") {
           "in,\n                                     extra = 12 in\n");
 }
 
+TEST_CASE("fmt: a snow block has its header, then one setting a line indented two") {
+    CHECK(formatted("snow   S{\nstandard=asce7_16\n      pg = 40   psf\n  exposure =partially\n"
+                    "    }\n") ==
+          "snow S {\n  standard = asce7_16\n  pg = 40 psf\n  exposure = partially\n}\n");
+    CHECK(formatted("snow S { pg = 40 psf }\n") == "snow S {\n  pg = 40 psf\n}\n");
+}
+
+TEST_CASE("fmt: a setting's reason follows its value, the string exactly as written") {
+    CHECK(formatted("snow S {\n  Ct = 1.1   because  \"kept just above  freezing\"\n"
+                    "  Is = 1.2 because \"a \\\"shelter\\\"\"\n  terrain = C\n}\n") ==
+          "snow S {\n  Ct = 1.1 because \"kept just above  freezing\"\n"
+          "  Is = 1.2 because \"a \\\"shelter\\\"\"\n  terrain = C\n}\n");
+}
+
+TEST_CASE("fmt: a roof block's header names its members") {
+    CHECK(formatted("roof  main on eave.* ,gable.*,\n  R1 {\ntributary = 20 ft\n surface=slippery\n"
+                    "}\n") ==
+          "roof main on eave.*, gable.*, R1 {\n  tributary = 20 ft\n  surface = slippery\n}\n");
+}
+
+TEST_CASE("fmt: settings joined by semicolons go on lines of their own") {
+    CHECK(formatted("snow S { terrain = C; exposure = partially ;pg = 40 psf; }\n") ==
+          "snow S {\n  terrain = C\n  exposure = partially\n  pg = 40 psf\n}\n");
+    CHECK(formatted("roof R on B1 { tributary = 20 ft;surface = slippery }\n") ==
+          "roof R on B1 {\n  tributary = 20 ft\n  surface = slippery\n}\n");
+}
+
+TEST_CASE("fmt: an empty snow or roof block is its header and '}'") {
+    CHECK(formatted("snow S {}\nroof R on B1 {\n\n}\nsnow T {    }\n") ==
+          "snow S {\n}\nroof R on B1 {\n}\nsnow T {\n}\n");
+}
+
+TEST_CASE("fmt: comments in a snow or roof block keep their place and line up") {
+    CHECK(formatted("# site\nsnow S {   # after the brace\n# before a setting\n"
+                    "  pg = 40 psf # ground\n  Ct = 1.1 because \"owner\"    # override\n\n\n"
+                    "  terrain = C\n     # last in the block\n} # after the block\n") ==
+          "# site\nsnow S {  # after the brace\n  # before a setting\n"
+          "  pg = 40 psf               # ground\n  Ct = 1.1 because \"owner\"  # override\n\n"
+          "  terrain = C\n  # last in the block\n}  # after the block\n");
+    CHECK(formatted("snow S {\n  pg = 30 psf + # base\n 10 psf\n}\n") ==
+          "snow S {\n  pg = 30 psf +  # base\n      10 psf\n}\n");
+    CHECK(formatted("roof R on B1, # the eave\n B2 { # brace\n tributary = 20 ft\n}\n") ==
+          "roof R on B1,   # the eave\n          B2 {  # brace\n  tributary = 20 ft\n}\n");
+}
+
+TEST_CASE("fmt: a roof's member list breaks after commas at 100 columns, under its first item") {
+    std::string roof =
+        "roof long_roof_name on Member_001, Member_002, Member_003, Member_004, "
+        "Member_005, Member_006, Member_007, Member_008 { tributary = 20 ft }\n";
+    CHECK(formatted(roof) ==
+          "roof long_roof_name on Member_001, Member_002, Member_003, Member_004, Member_005, "
+          "Member_006,\n                       Member_007, Member_008 {\n  tributary = 20 ft\n}\n");
+    // The '{' goes with the last member: a line of exactly 100 columns is not broken.
+    std::string hundred = "roof R on " + std::string(88, 'M') + " {\n}\n";
+    CHECK(formatted(hundred) == hundred);
+    CHECK(formatted("roof R on " + std::string(89, 'M') + ", B2 {}\n") ==
+          "roof R on " + std::string(89, 'M') + ",\n          B2 {\n}\n");
+}
+
+TEST_CASE("fmt: an amendment is one line with its reason") {
+    CHECK(formatted("amend   asce7_16.pm.cap=30 psf   because \"county  amendment 4\"  # why\n") ==
+          "amend asce7_16.pm.cap = 30 psf because \"county  amendment 4\"  # why\n");
+    CHECK(formatted("amend a.b = 2 * (c + 1 psf) because \"x\";amend a.c = 1 because \"y\"\n") ==
+          "amend a.b = 2 * (c + 1 psf) because \"x\"\namend a.c = 1 because \"y\"\n");
+    // Nothing in it is a list: a long one stays on its line.
+    std::string long_amend = "amend a.b = 1 psf because \"" + std::string(90, 'r') + "\"\n";
+    CHECK(formatted(long_amend) == long_amend);
+}
+
 TEST_CASE("fmt: a file with syntax errors is refused with its errors") {
     std::string errors;
     CHECK_FALSE(try_format("model \"x\"\nnod N1 at x = 0 ft\n", &errors));
