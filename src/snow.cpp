@@ -20,8 +20,9 @@ constexpr double kSameSlope = 1e-6;
 /// Clauses whose values were entered from memory (see stdlib/asce7_16.firn);
 /// the trace marks them so a reviewer verifies them against the printed standard.
 bool from_memory(std::string_view clause) {
-    for (std::string_view c : {"Table 7.3-1", "Table 1.5-2", "Sec. 7.3.4", "Sec. 7.10",
-                               "Fig. 7.4-1a", "Fig. 7.4-1b", "Fig. 7.4-1c", "Sec. 7.4.1"}) {
+    for (std::string_view c :
+         {"Table 7.3-1", "Table 1.5-2", "Sec. 7.3.4", "Sec. 7.10", "Fig. 7.4-1a", "Fig. 7.4-1b",
+          "Fig. 7.4-1c", "Sec. 7.4.1", "Sec. 7.6.1", "Fig. 7.6-2", "Fig. 7.6-1"}) {
         if (clause.ends_with(c))
             return true;
     }
@@ -122,6 +123,8 @@ class SnowDeriver {
     void load_part(const Roof& roof, MemberId id, double x_from, double x_to, double pressure,
                    LoadCase& lc) const;
     LoadCase& case_named(const char* what);
+    void trace_density(double gamma);
+    void trace_drift(double lu, double hd, const char* lu_is);
     std::string density(double n_per_m3) const {
         return fmt::format("{:.{}f} {}", u_.unit_weight.from_si(n_per_m3), u_.unit_weight.decimals,
                            u_.unit_weight.name);
@@ -423,9 +426,9 @@ void SnowDeriver::unbalanced_case(const Roof& roof, const std::vector<double>& p
     double S = 1.0 / std::tan(leeward_slope);
     double surcharge = hd * gamma / std::sqrt(S);
     double extent = 8.0 * hd * std::sqrt(S) / 3.0;
-    line(fmt::format("{}: W = {}, lu = W; gamma = {}; hd = {}; S = {:.2f}", side, length(W),
-                     density(gamma), length(hd), S),
-         "ASCE 7-16 Eq. 7.7-1, Fig. 7.6-1");
+    line(fmt::format("{}: W = {}; S = 1/tan(slope) = {:.2f}", side, length(W), S), clause);
+    trace_density(gamma);
+    trace_drift(W, hd, "W");
     line(fmt::format("windward: {:g} ps; leeward: ps + hd gamma / sqrt(S) = ps + {} x {} / "
                      "sqrt({:.2f}) = ps + {} over 8 hd sqrt(S) / 3 = {} from the ridge",
                      t_.unbalanced_windward, length(hd), density(gamma), S, pressure(surcharge),
@@ -493,6 +496,27 @@ LoadCase& SnowDeriver::case_named(const char* what) {
     }
     unbalanced_cases_.push_back(new_case(what));
     return unbalanced_cases_.back();
+}
+
+void SnowDeriver::trace_density(double gamma) {
+    line(fmt::format("gamma = {:g} pg + {} = {:g} x {} + {} = {} (at most {})",
+                     t_.density_per_pg * kFoot, density(t_.density_base), t_.density_per_pg * kFoot,
+                     pressure(site_.pg), density(t_.density_base), density(gamma),
+                     density(t_.density_max)),
+         "ASCE 7-16 Eq. 7.7-1");
+}
+
+/// The drift height line, with the formula in its own units (ft and psf).
+void SnowDeriver::trace_drift(double lu, double hd, const char* lu_is) {
+    double used = std::max(lu, t_.drift_min_lu);
+    line(fmt::format("hd = {:g} lu^(1/3) (pg + {:g})^(1/4) - {:g} (ft, psf) with lu = {} = {} "
+                     "(at least {:g} ft): {:g} x {:.3f}^(1/3) x {:.3f}^(1/4) - {:g} = {:.3f} ft",
+                     t_.drift_coefficient, t_.drift_pg_offset / kPoundPerSquareFoot,
+                     t_.drift_offset / kFoot, lu_is, length(lu), t_.drift_min_lu / kFoot,
+                     t_.drift_coefficient, used / kFoot,
+                     (site_.pg + t_.drift_pg_offset) / kPoundPerSquareFoot, t_.drift_offset / kFoot,
+                     hd / kFoot),
+         "ASCE 7-16 Fig. 7.6-1");
 }
 
 LoadCase SnowDeriver::new_case(const char* what) const {
