@@ -207,6 +207,13 @@ struct Roof {
     double insulation_R = 0.0;  ///< thermal resistance, ft^2*h*F/Btu (0: not given)
     bool ventilated = false;
     bool simple_rafters = false;  ///< rafters are simply supported prismatic, ridge to eave
+    /// What stands at one end of the roof: a higher roof (a step) or a parapet.
+    struct Edge {
+        double step = 0.0;          ///< m: the upper roof's edge above this roof (0: none)
+        double upper_length = 0.0;  ///< m: the upper roof's length upwind of the step
+        double parapet = 0.0;       ///< m: the parapet's height above this roof (0: none)
+    };
+    Edge left, right;
     SourceRange where;
 };
 

@@ -332,6 +332,43 @@ std::optional<std::vector<MemberId>> roof_chain(Resolver& r, const syntax::RoofD
     return chain;
 }
 
+/// A positive length setting; false after an error (reported).
+bool positive_length(Resolver& r, Settings& s, const std::string& key, double& out) {
+    if (s.find(key) == nullptr)
+        return true;
+    if (!s.value(key, expect::length, out))
+        return false;
+    if (out > 0.0)
+        return true;
+    r.diagnostics.error(s.find(key)->value.where, fmt::format("{} must be greater than zero", key));
+    return false;
+}
+
+/// A roof step or parapet at one end of the roof (`step_left = 8 ft`, ...).
+bool read_edge(Resolver& r, Settings& s, const char* side, Roof::Edge& edge) {
+    std::string step = fmt::format("step_{}", side);
+    std::string upper = fmt::format("step_{}_upper_length", side);
+    std::string parapet = fmt::format("parapet_{}", side);
+    bool ok = positive_length(r, s, step, edge.step) &&
+              positive_length(r, s, upper, edge.upper_length) &&
+              positive_length(r, s, parapet, edge.parapet);
+    if (ok && (s.find(step) != nullptr) != (s.find(upper) != nullptr)) {
+        const syntax::Setting* given = s.find(step) != nullptr ? s.find(step) : s.find(upper);
+        r.diagnostics.error(given->key.where,
+                            fmt::format("a roof step needs both its height and the upper roof's "
+                                        "length: {} and {}",
+                                        step, upper));
+        ok = false;
+    }
+    if (ok && s.find(step) != nullptr && s.find(parapet) != nullptr) {
+        r.diagnostics.error(
+            s.find(parapet)->key.where,
+            fmt::format("the {} end has a step; a parapet there is not supported", side));
+        ok = false;
+    }
+    return ok;
+}
+
 void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
     std::vector<MemberId> members;
     bool found = true;
@@ -346,7 +383,9 @@ void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
         }
     }
     Settings s(r, decl.settings,
-               {"tributary", "surface", "insulation", "ventilated", "rafter_spans"},
+               {"tributary", "surface", "insulation", "ventilated", "rafter_spans", "step_left",
+                "step_left_upper_length", "step_right", "step_right_upper_length", "parapet_left",
+                "parapet_right"},
                fmt::format("roof '{}'", decl.name.text).c_str());
     Roof roof;
     roof.name = decl.name.text;
@@ -369,7 +408,8 @@ void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
     roof.ventilated = s.word("ventilated", {"yes", "no"}).value_or("no") == "yes";
     roof.simple_rafters =
         s.word("rafter_spans", {"simple", "continuous"}).value_or("continuous") == "simple";
-    if (!names.add(decl.name, r.diagnostics) || !found || !tributary_ok)
+    bool edges_ok = read_edge(r, s, "left", roof.left) & read_edge(r, s, "right", roof.right);
+    if (!names.add(decl.name, r.diagnostics) || !found || !tributary_ok || !edges_ok)
         return;
     for (MemberId m : members) {
         if (!r.member_valid[at(m)])

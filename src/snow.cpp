@@ -73,6 +73,12 @@ class SnowDeriver {
             add_case(std::move(minimum));
         for (LoadCase& lc : unbalanced_cases_)
             add_case(std::move(lc));
+        for (LoadCase& lc : drift_cases_) {
+            // A drift rides on the balanced load of every roof (without rain-on-snow).
+            lc.distributed.insert(lc.distributed.begin(), plain_balanced_.distributed.begin(),
+                                  plain_balanced_.distributed.end());
+            add_case(std::move(lc));
+        }
         mark_unverified();
     }
 
@@ -112,6 +118,11 @@ class SnowDeriver {
     void unbalanced_case(const Roof& roof, const std::vector<double>& ps, bool wind_from_left,
                          double ridge_x);
     std::vector<LoadCase> unbalanced_cases_;
+    std::vector<LoadCase> drift_cases_;
+    LoadCase plain_balanced_;  ///< ps on every roof, for the drift cases
+    void drift_at(const Roof& roof, double ps, bool left_end);
+    void drift_load(const Roof& roof, double wall_x, double toward, double w, double pd,
+                    LoadCase& lc) const;
     double slope_factor(const Roof& roof, double slope, const std::string& members);
     double rain_on_snow(double slope, double W);
     double minimum_load(double slope);
@@ -327,8 +338,11 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
         line(fmt::format("on the members: {} x {} = {} down, on the horizontal projection",
                          pressure(p), length(roof.tributary), line_load(p * roof.tributary)));
         load_members(roof, plane, p, balanced);
+        load_members(roof, plane, ps, plain_balanced_);
     }
     unbalanced(roof, ps_of, steepest);
+    drift_at(roof, ps_of.front(), true);
+    drift_at(roof, ps_of.back(), false);
     double pm = minimum_load(steepest);
     if (pm > 0.0) {
         line(fmt::format(
@@ -517,6 +531,122 @@ void SnowDeriver::trace_drift(double lu, double hd, const char* lu_is) {
                      (site_.pg + t_.drift_pg_offset) / kPoundPerSquareFoot, t_.drift_offset / kFoot,
                      hd / kFoot),
          "ASCE 7-16 Fig. 7.6-1");
+}
+
+/// The horizontal extent of a roof.
+std::pair<double, double> extent_of(const Model& m, const Roof& roof) {
+    double left = INFINITY, right = -INFINITY;
+    for (MemberId id : roof.members) {
+        for (NodeId n : {m.members[at(id)].start, m.members[at(id)].end}) {
+            left = std::min(left, m.nodes[at(n)].x);
+            right = std::max(right, m.nodes[at(n)].x);
+        }
+    }
+    return {left, right};
+}
+
+/// A drift at a step or parapet at one end of a roof (Sec. 7.7.1, 7.8): the
+/// larger of the leeward and windward heights at a step, 0.75 hd at a parapet;
+/// width 4 hd, or 4 hd^2/hc with the height cut to hc; at most 8 hc; a triangle
+/// from the wall, cut at the roof's far end when it is wider than the roof.
+void SnowDeriver::drift_at(const Roof& roof, double ps, bool left_end) {
+    const Roof::Edge& edge = left_end ? roof.left : roof.right;
+    if (edge.step == 0.0 && edge.parapet == 0.0)
+        return;
+    const char* end = left_end ? "left" : "right";
+    bool step = edge.step > 0.0;
+    std::string where = fmt::format("{} at the {} end", step ? "roof step" : "parapet", end);
+    std::string clause = step ? "ASCE 7-16 Sec. 7.7.1" : "ASCE 7-16 Sec. 7.8";
+    auto [left, right] = extent_of(m_, roof);
+    double length_of_roof = right - left;
+    double gamma = snow_density(t_, site_.pg);
+    double hb = ps / gamma;
+    double hc = (step ? edge.step : edge.parapet) - hb;
+    line(fmt::format("{}: hb = ps / gamma = {} / {} = {}; hc = {} - hb = {}", where, pressure(ps),
+                     density(gamma), length(hb), length(step ? edge.step : edge.parapet),
+                     length(hc)),
+         clause);
+    if (hb > 0.0 && hc < 0.2 * hb) {
+        line(fmt::format("drift not required at the {}: hc / hb = {:.2f} is below 0.2", where,
+                         hc / hb),
+             clause);
+        return;
+    }
+    double hd;
+    if (step) {
+        double leeward = drift_height(t_, site_.pg, edge.upper_length);
+        double windward = 0.75 * drift_height(t_, site_.pg, length_of_roof);
+        trace_drift(edge.upper_length, leeward, "the upper roof's length");
+        trace_drift(length_of_roof, windward / 0.75, "this roof's length");
+        hd = std::max(leeward, windward);
+        line(fmt::format("leeward hd = {}, windward 0.75 hd = {}: the {} governs", length(leeward),
+                         length(windward), leeward >= windward ? "leeward" : "windward"),
+             clause);
+    } else {
+        hd = 0.75 * drift_height(t_, site_.pg, length_of_roof);
+        trace_drift(length_of_roof, hd / 0.75, "this roof's length");
+        line(fmt::format("parapet drift: 0.75 hd = {}", length(hd)), clause);
+    }
+    double w = 4.0 * hd;
+    if (hd > hc) {
+        w = 4.0 * hd * hd / hc;
+        line(fmt::format("hd = {} > hc = {}: w = 4 hd^2 / hc = {}, height cut to hc", length(hd),
+                         length(hc), length(w)),
+             clause);
+        hd = hc;
+    } else {
+        line(fmt::format("hd = {} <= hc = {}: w = 4 hd = {}", length(hd), length(hc), length(w)),
+             clause);
+    }
+    if (w > 8.0 * hc) {
+        line(fmt::format("w is at most 8 hc = {}", length(8.0 * hc)), clause);
+        w = 8.0 * hc;
+    }
+    double pd = hd * gamma;
+    line(fmt::format("pd = hd gamma = {} x {} = {}, a triangle from the wall over w = {}",
+                     length(hd), density(gamma), pressure(pd), length(w)),
+         clause);
+    if (w > length_of_roof) {
+        line(fmt::format("the drift is cut at the roof's far end: w = {} is wider than the roof "
+                         "({}); the triangle is not rescaled",
+                         length(w), length(length_of_roof)),
+             clause);
+    }
+    drift_cases_.push_back(
+        new_case(fmt::format("drift.{}.{}_{}", roof.name, step ? "step" : "parapet", end).c_str()));
+    drift_load(roof, left_end ? left : right, left_end ? 1.0 : -1.0, w, pd, drift_cases_.back());
+}
+
+/// The drift triangle's member loads: peak pd at `wall_x`, zero at w toward the
+/// roof, cut where it crosses member ends and at the roof's end.
+void SnowDeriver::drift_load(const Roof& roof, double wall_x, double toward, double w, double pd,
+                             LoadCase& lc) const {
+    auto intensity = [&](double x) { return pd * std::max(0.0, 1.0 - std::abs(x - wall_x) / w); };
+    double far = wall_x + toward * w;
+    double lo_drift = std::min(wall_x, far), hi_drift = std::max(wall_x, far);
+    for (MemberId id : roof.members) {
+        const Member& mem = m_.members[at(id)];
+        double xs = m_.nodes[at(mem.start)].x, xe = m_.nodes[at(mem.end)].x;
+        double lo = std::max(std::min(xs, xe), lo_drift), hi = std::min(std::max(xs, xe), hi_drift);
+        if (!(hi - lo > 1e-9))
+            continue;
+        DistributedLoad load;
+        load.member = id;
+        load.direction = LoadDirection::down;
+        load.projected = true;
+        double a = std::abs(lo - xs), b = std::abs(hi - xs);
+        double pa = intensity(lo), pb = intensity(hi);
+        if (a > b) {
+            std::swap(a, b);
+            std::swap(pa, pb);
+        }
+        load.start = a;
+        load.end = b;
+        load.w_start = pa * roof.tributary;
+        load.w_end = pb * roof.tributary;
+        load.where = roof.where;
+        lc.distributed.push_back(load);
+    }
 }
 
 LoadCase SnowDeriver::new_case(const char* what) const {

@@ -367,3 +367,89 @@ TEST_CASE("snow: no unbalanced load on a flat roof or below 1/2 on 12") {
     CHECK(find_case(a.model, "S.unbalanced.wind_from_left") == nullptr);
     CHECK(trace_has(a.model, "unbalanced load not required: roof main is not a hip or gable roof"));
 }
+
+namespace {
+
+/// The flat frame (3 bays of 24 ft, pg = 40 psf, heated: pf = ps = 28 psf) with
+/// settings for its roof's ends.
+std::string stepped(const std::string& edges) {
+    return flat_frame(
+        "  pg = 40 psf\n  terrain = C\n  exposure = partially\n  thermal = heated\n  risk = II\n",
+        edges);
+}
+
+/// The drift part of a drift case: its loads after the balanced ones (3 members).
+std::vector<DistributedLoad> drift_part(const Model& m, const std::string& name) {
+    const LoadCase* lc = find_case(m, name);
+    REQUIRE(lc != nullptr);
+    REQUIRE(lc->distributed.size() > 3);
+    return {lc->distributed.begin() + 3, lc->distributed.end()};
+}
+
+}  // namespace
+
+TEST_CASE("snow: a leeward step drift with hd <= hc") {
+    // ASCE 7-16 Sec. 7.7.1 (from memory), Eq. 7.7-1, Fig. 7.6-1. gamma = 19.2 pcf;
+    // hb = 28 / 19.2 = 1.4583 ft; hc = 8 - 1.4583 = 6.5417 ft. Leeward hd (lu = 60 ft)
+    // = 0.43 x 60^(1/3) x 50^(1/4) - 1.5 = 2.9764 ft; windward 0.75 hd (lu = 72 ft)
+    // = 0.75 x 3.2571 = 2.4428 ft: leeward governs. w = 4 hd = 11.906 ft; pd = hd gamma
+    // = 57.147 psf, a triangle from the wall (x = 0) on eave.A.B.
+    Analysis a = analysed(stepped("  step_left = 8 ft\n  step_left_upper_length = 60 ft\n"));
+    auto drift = drift_part(a.model, "S.drift.main.step_left");
+    REQUIRE(drift.size() == 1);
+    CHECK(a.model.members[at(drift[0].member)].name == "eave.A.B");
+    CHECK(drift[0].start == 0.0);
+    CHECK(drift[0].end / kFt == Approx(4 * 2.9764).epsilon(1e-4));
+    CHECK(drift[0].w_start / (20 * kFt) == Approx(2.9764 * 19.2 * kPsf).epsilon(1e-4));
+    CHECK(drift[0].w_end == Approx(0.0).margin(1e-9));
+    // Equilibrium of the whole case (statics): balanced 28 psf x 72 ft x 20 ft plus the
+    // triangle's area 0.5 x pd x w x 20 ft, all carried by the supports.
+    std::size_t c = 0;
+    while (a.model.cases[c].name != "S.drift.main.step_left")
+        ++c;
+    double total = (28 * 72 + 0.5 * 2.9764 * 19.2 * 4 * 2.9764) * 20 * 4.4482216152605;
+    CHECK(a.results.cases[c].equilibrium.reactions[1] == Approx(total).epsilon(1e-4));
+}
+
+TEST_CASE("snow: a step drift higher than the clear height is cut to hc and widened") {
+    // Sec. 7.7.1 (from memory): step 3 ft, hc = 3 - 1.4583 = 1.5417 ft < hd = 2.9764 ft,
+    // so w = 4 hd^2 / hc = 22.985 ft, at most 8 hc = 12.333 ft; the height is hc,
+    // pd = 1.5417 x 19.2 = 29.6 psf.
+    Analysis a = analysed(stepped("  step_left = 3 ft\n  step_left_upper_length = 60 ft\n"));
+    auto drift = drift_part(a.model, "S.drift.main.step_left");
+    REQUIRE(drift.size() == 1);
+    CHECK(drift[0].end / kFt == Approx(8 * 1.54167).epsilon(1e-4));
+    CHECK(drift[0].w_start / (20 * kFt) == Approx(1.54167 * 19.2 * kPsf).epsilon(1e-4));
+}
+
+TEST_CASE("snow: the windward drift governs below a short upper roof") {
+    // Sec. 7.7.1 (from memory): upper roof 20 ft gives leeward hd = 0.43 x 20^(1/3) x
+    // 50^(1/4) - 1.5 = 1.6040 ft; windward 0.75 x 3.2571 = 2.4428 ft governs. The drift
+    // at the right end runs leftwards from x = 72 ft over w = 9.771 ft on eave.C.D.
+    Analysis a = analysed(stepped("  step_right = 10 ft\n  step_right_upper_length = 20 ft\n"));
+    CHECK(trace_has(a.model, "the windward governs"));
+    auto drift = drift_part(a.model, "S.drift.main.step_right");
+    REQUIRE(drift.size() == 1);
+    CHECK(a.model.members[at(drift[0].member)].name == "eave.C.D");
+    CHECK(drift[0].end / kFt == Approx(24).epsilon(1e-12));
+    CHECK(drift[0].start / kFt == Approx(24 - 4 * 2.4428).epsilon(1e-4));
+    CHECK(drift[0].w_end / (20 * kFt) == Approx(2.4428 * 19.2 * kPsf).epsilon(1e-4));
+}
+
+TEST_CASE("snow: a parapet drift, and one cut where it crosses a member end") {
+    // Sec. 7.8 (from memory): 0.75 hd with lu = the roof's length (72 ft) = 2.4428 ft;
+    // parapet 6 ft: hc = 4.5417 ft >= hd, w = 9.771 ft: on eave.A.B only.
+    Analysis a = analysed(stepped("  parapet_left = 6 ft\n"));
+    auto drift = drift_part(a.model, "S.drift.main.parapet_left");
+    REQUIRE(drift.size() == 1);
+    // A high step: leeward hd with lu = 400 ft = 0.43 x 400^(1/3) x 50^(1/4) - 1.5 = 6.9249
+    // ft, w = 27.700 ft: the triangle crosses from eave.A.B (0..24 ft) onto eave.B.C, where
+    // it runs from pd (1 - 24/25.124) to 0 over 3.700 ft.
+    Analysis b = analysed(stepped("  step_left = 20 ft\n  step_left_upper_length = 400 ft\n"));
+    auto wide = drift_part(b.model, "S.drift.main.step_left");
+    REQUIRE(wide.size() == 2);
+    double pd = 6.9249 * 19.2 * kPsf * 20 * kFt;
+    CHECK(wide[0].w_end == Approx(pd * (1 - 24 / 27.6996)).epsilon(1e-3));
+    CHECK(wide[1].w_start == Approx(pd * (1 - 24 / 27.6996)).epsilon(1e-3));
+    CHECK(wide[1].end / kFt == Approx(27.6996 - 24).epsilon(1e-3));
+}
