@@ -25,7 +25,7 @@ FIRN_ERROR(title, "expected the model title in double quotes, as in: model \"Fra
 FIRN_ERROR(one<'"'>, "expected '\"' to close the text on this line")
 FIRN_ERROR(kw_units, "expected 'units', as in: report units kip, ft")
 FIRN_ERROR(report_item, "expected a unit such as kip or ft, or 'displacement' and a unit")
-FIRN_ERROR(grid_axis, "expected 'x' (column lines) or 'y' (levels) after 'grid'")
+FIRN_ERROR(grid_axis, "expected 'x' (column lines), 'y' (levels) or 'plan' (the plan lines of the frames) after 'grid'")
 FIRN_ERROR(grid_line, "expected a grid line such as A = 0 ft")
 FIRN_ERROR(equals, "expected '='")
 FIRN_ERROR(expr, "expected a value such as 12 ft")

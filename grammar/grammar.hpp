@@ -67,6 +67,7 @@ struct kw_on : TAO_PEGTL_KEYWORD("on") {};
 struct kw_other : TAO_PEGTL_KEYWORD("other") {};
 struct kw_outside : TAO_PEGTL_KEYWORD("outside") {};
 struct kw_pinned : TAO_PEGTL_KEYWORD("pinned") {};
+struct kw_plan : TAO_PEGTL_KEYWORD("plan") {};
 struct kw_point : TAO_PEGTL_KEYWORD("point") {};
 struct kw_projected : TAO_PEGTL_KEYWORD("projected") {};
 struct kw_rafters : TAO_PEGTL_KEYWORD("rafters") {};
@@ -224,10 +225,11 @@ struct report_begin : kw_report {};
 struct report_stmt : if_must<report_begin, sp, kw_units, sp, report_item,
                              star<if_must<list_sep, report_item>>> {};
 
-// grid_stmt   <- 'grid' sp axis sp (grid_run / grid_line (list_sep grid_line)*)
+// grid_stmt   <- 'grid' sp ('x' / 'y' / 'plan') sp (grid_run / grid_line (list_sep grid_line)*)
+//                `plan`: the building's plan grid, the lines its frames stand on
 // grid_line   <- name sp '=' sp expr
 // grid_run    <- name '..' name sp 'spacing' sp expr (list_sep expr)* (sp 'from' sp expr)?
-struct grid_axis : sor<kw_x, kw_y> {};
+struct grid_axis : sor<kw_x, kw_y, kw_plan> {};
 struct grid_line_name : name {};
 struct grid_line : if_must<grid_line_name, sp, equals, sp, expr> {};
 struct dots : string<'.', '.'> {};

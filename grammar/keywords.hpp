@@ -26,7 +26,8 @@ inline constexpr std::array<std::string_view, 56> keywords{
 };
 
 /// Words that are keywords only where the grammar expects them, and otherwise
-/// free for names: `roof` starts `roof live`, but engineers name levels "roof".
-inline constexpr std::array<std::string_view, 1> contextual_keywords{"roof"};
+/// free for names: `roof` starts `roof live`, but engineers name levels "roof";
+/// `plan` follows `grid` only.
+inline constexpr std::array<std::string_view, 2> contextual_keywords{"plan", "roof"};
 
 }  // namespace firn::grammar

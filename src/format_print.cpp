@@ -411,7 +411,7 @@ void Printer::print(const syntax::ReportUnits& r) {
 
 void Printer::print(const syntax::Grid& g) {
     word("grid");
-    word(g.axis == syntax::Axis::x ? "x" : "y");
+    word(g.plan ? "plan" : g.axis == syntax::Axis::x ? "x" : "y");
     if (g.run) {
         name(g.run->first);
         glued("..");

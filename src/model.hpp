@@ -169,10 +169,11 @@ struct SnowTables {
     double density_per_pg = 0.0;     ///< gamma = this x pg + base (1/m), at most max
     double density_base = 0.0;       ///< N/m^3
     double density_max = 0.0;
-    double drift_coefficient = 0.0;  ///< hd = c lu^(1/3) (pg + pg_offset)^(1/4) - offset, in ft and psf
-    double drift_pg_offset = 0.0;    ///< Pa
-    double drift_offset = 0.0;       ///< m
-    double drift_min_lu = 0.0;       ///< m
+    double drift_coefficient =
+        0.0;  ///< hd = c lu^(1/3) (pg + pg_offset)^(1/4) - offset, in ft and psf
+    double drift_pg_offset = 0.0;      ///< Pa
+    double drift_offset = 0.0;         ///< m
+    double drift_min_lu = 0.0;         ///< m
     double unbalanced_min_rise = 0.0;  ///< rise per run from which unbalanced loads apply
     double unbalanced_max_rise = 0.0;
     double unbalanced_windward = 0.0;  ///< windward load / ps
@@ -214,6 +215,13 @@ struct Roof {
         double parapet = 0.0;       ///< m: the parapet's height above this roof (0: none)
     };
     Edge left, right;
+    /// How the tributary width was found: given, or from the plan grid.
+    struct Tributary {
+        std::string frame;       ///< the plan line of this frame (empty: given)
+        double left_bay = 0.0;   ///< m, 0 at an end frame
+        double right_bay = 0.0;  ///< m
+        double overhang = 0.0;   ///< m, beyond an end frame
+    } tributary_from;
     SourceRange where;
 };
 
@@ -239,8 +247,9 @@ struct Model {
     std::string title;
     std::string source_name;  ///< the model file as named on the command line
     DisplayUnits units;
-    std::vector<GridLine> grid_x;  ///< column lines
-    std::vector<GridLine> grid_y;  ///< levels
+    std::vector<GridLine> grid_x;      ///< column lines
+    std::vector<GridLine> grid_y;      ///< levels
+    std::vector<GridLine> plan_lines;  ///< the plan grid: the lines the frames stand on
     std::vector<Node> nodes;
     std::vector<Material> materials;
     std::vector<Section> sections;

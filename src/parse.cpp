@@ -724,6 +724,7 @@ struct action<g::grid_axis> {
     template <typename Input>
     static void apply(const Input& in, Builder& b) {
         b.current<syntax::Grid>().axis = axis_of(in.string_view());
+        b.current<syntax::Grid>().plan = in.string_view() == "plan";
     }
 };
 

@@ -285,8 +285,39 @@ void refuse_coincident_lines(Resolver& r) {
 
 }  // namespace
 
+namespace {
+
+/// `grid plan ...`: the plan lines the building's frames stand on, kept apart
+/// from the frame's own grid (they run across it, not in its plane).
+void resolve_plan_grid(Resolver& r, const syntax::Grid& grid) {
+    auto add = [&](const syntax::Name& name, double place) {
+        if (r.plan_lines.add(name, r.diagnostics))
+            r.model.plan_lines.push_back(GridLine{name.text, place, name.where});
+    };
+    if (grid.run) {
+        auto names = run_names(r, *grid.run);
+        auto places = names ? run_places(r, *grid.run, names->size()) : std::nullopt;
+        if (!names || !places)
+            return;
+        for (std::size_t k = 0; k < names->size(); ++k)
+            add(syntax::Name{(*names)[k], run_range(*grid.run)}, (*places)[k]);
+        return;
+    }
+    for (const syntax::Grid::Line& line : grid.lines) {
+        auto v = r.value(line.at, expect::length);
+        if (v && r.within(line.at, *v, kMaxCoordinate, "coordinate"))
+            add(line.name, *v);
+    }
+}
+
+}  // namespace
+
 void resolve_grids(Resolver& r, const std::vector<const syntax::Grid*>& grids) {
     for (const syntax::Grid* grid : grids) {
+        if (grid->plan) {
+            resolve_plan_grid(r, *grid);
+            continue;
+        }
         if (grid->run) {
             resolve_run(r, *grid);
             continue;

@@ -98,6 +98,7 @@ struct Resolver {
     NameTable members{"member"};
     NameTable cases{"load case"};
     NameTable groups{"group"};
+    NameTable plan_lines{"plan line"};
     /// A group: its statement (none for a group made only by tags) and members.
     struct Group {
         const syntax::GroupDecl* decl = nullptr;

@@ -332,6 +332,90 @@ std::optional<std::vector<MemberId>> roof_chain(Resolver& r, const syntax::RoofD
     return chain;
 }
 
+/// "; did you mean 'x'?", or "; the plan lines are 1, 2, 3" when nothing is near.
+std::string near_or_all(const std::string& word, const std::vector<std::string>& names) {
+    std::string near = did_you_mean(word, names);
+    if (!near.empty() || names.size() > 12)
+        return near;
+    return fmt::format("; the plan lines are {}", fmt::join(names, ", "));
+}
+
+/// The frame's plan line and the bays beside it (an end frame has one), or
+/// false after an error.
+bool plan_bays(Resolver& r, const syntax::Setting& frame, Roof::Tributary& t) {
+    // A plan line is named like any grid line, and a bare number such as 3 names one.
+    const syntax::Expr& e = frame.value;
+    bool named = e.kind == syntax::Expr::Kind::constant ||
+                 (e.kind == syntax::Expr::Kind::number && e.unit.empty() && !e.bad_unit);
+    const auto& lines = r.model.plan_lines;
+    auto it = std::find_if(lines.begin(), lines.end(),
+                           [&](const GridLine& g) { return named && g.name == e.literal; });
+    if (it == lines.end()) {
+        std::vector<std::string> names;
+        for (const GridLine& g : lines)
+            names.push_back(g.name);
+        r.diagnostics.error(e.where, lines.empty()
+                                         ? std::string("'frame' names a plan line, and the model "
+                                                       "has no plan grid (grid plan 1..6 spacing "
+                                                       "25 ft)")
+                                         : fmt::format("unknown plan line '{}'{}", e.literal,
+                                                       near_or_all(e.literal, names)));
+        return false;
+    }
+    t.frame = it->name;
+    for (const GridLine& g : lines) {
+        double d = g.position - it->position;
+        if (d < -1e-9 && (t.left_bay == 0.0 || -d < t.left_bay))
+            t.left_bay = -d;
+        if (d > 1e-9 && (t.right_bay == 0.0 || d < t.right_bay))
+            t.right_bay = d;
+    }
+    return true;
+}
+
+/// The tributary width: given, or half of each bay beside the frame's plan line,
+/// plus the overhang beyond an end frame.
+bool tributary_width(Resolver& r, Settings& s, const syntax::RoofDecl& decl, Roof& roof,
+                     double& out) {
+    const syntax::Setting* given = s.find("tributary");
+    const syntax::Setting* frame = s.find("frame");
+    if (given != nullptr && frame != nullptr) {
+        r.diagnostics.error(frame->key.where,
+                            "give the tributary width or the frame's plan line, not both");
+        return false;
+    }
+    if (frame != nullptr) {
+        Roof::Tributary& t = roof.tributary_from;
+        if (!plan_bays(r, *frame, t))
+            return false;
+        if (s.find("overhang") != nullptr && !s.value("overhang", expect::length, t.overhang))
+            return false;
+        bool end_frame = t.left_bay == 0.0 || t.right_bay == 0.0;
+        if (!end_frame && t.overhang > 0.0) {
+            r.diagnostics.error(s.find("overhang")->key.where,
+                                fmt::format("plan line '{}' is not an end frame; an overhang "
+                                            "beyond the end frames does not reach it",
+                                            t.frame));
+            return false;
+        }
+        out = 0.5 * (t.left_bay + t.right_bay) + t.overhang;
+        return out > 0.0;
+    }
+    if (given == nullptr) {
+        r.diagnostics.error(decl.name.where,
+                            fmt::format("roof '{}' needs its tributary width, as in: tributary = "
+                                        "20 ft, or its frame's plan line, as in: frame = 3",
+                                        decl.name.text));
+        return false;
+    }
+    if (!s.value("tributary", expect::length, out))
+        return false;
+    if (out > 0.0)
+        return true;
+    r.diagnostics.error(given->value.where, "a tributary width must be greater than zero");
+    return false;
+}
+
 /// A positive length setting; false after an error (reported).
 bool positive_length(Resolver& r, Settings& s, const std::string& key, double& out) {
     if (s.find(key) == nullptr)
@@ -383,25 +467,15 @@ void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
         }
     }
     Settings s(r, decl.settings,
-               {"tributary", "surface", "insulation", "ventilated", "rafter_spans", "step_left",
-                "step_left_upper_length", "step_right", "step_right_upper_length", "parapet_left",
-                "parapet_right"},
+               {"tributary", "frame", "overhang", "surface", "insulation", "ventilated",
+                "rafter_spans", "step_left", "step_left_upper_length", "step_right",
+                "step_right_upper_length", "parapet_left", "parapet_right"},
                fmt::format("roof '{}'", decl.name.text).c_str());
     Roof roof;
     roof.name = decl.name.text;
     roof.where = decl.name.where;
     double tributary = 0.0;
-    bool tributary_ok = s.value("tributary", expect::length, tributary);
-    if (s.find("tributary") == nullptr) {
-        r.diagnostics.error(decl.name.where,
-                            fmt::format("roof '{}' needs its tributary width, as in: tributary = "
-                                        "20 ft",
-                                        decl.name.text));
-    } else if (tributary_ok && !(tributary > 0.0)) {
-        r.diagnostics.error(s.find("tributary")->value.where,
-                            "a tributary width must be greater than zero");
-        tributary_ok = false;
-    }
+    bool tributary_ok = tributary_width(r, s, decl, roof, tributary);
     roof.slippery =
         s.word("surface", {"slippery", "nonslippery"}).value_or("nonslippery") == "slippery";
     s.value("insulation", kNumber, roof.insulation_R);

@@ -303,6 +303,16 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
     heading(fmt::format("Roof {}: members {}; tributary width {}; {} surface", roof.name,
                         fmt::join(names, ", "), length(roof.tributary),
                         roof.slippery ? "unobstructed slippery" : "other"));
+    const Roof::Tributary& t = roof.tributary_from;
+    if (!t.frame.empty()) {
+        line(fmt::format("tributary width of the frame on plan line {} = half of each bay beside "
+                         "it{} = ({} + {}) / 2{} = {}",
+                         t.frame, t.overhang > 0.0 ? ", plus the overhang" : "", length(t.left_bay),
+                         length(t.right_bay),
+                         t.overhang > 0.0 ? fmt::format(" + {}", length(t.overhang)) : "",
+                         length(roof.tributary)),
+             "common practice");
+    }
     double W = eave_to_ridge(m_, roof);
     double rain = rain_on_snow(steepest, W);
     // One Cs per roof plane: members of equal slope share it.

@@ -453,3 +453,30 @@ TEST_CASE("snow: a parapet drift, and one cut where it crosses a member end") {
     CHECK(wide[1].w_start == Approx(pd * (1 - 24 / 27.6996)).epsilon(1e-3));
     CHECK(wide[1].end / kFt == Approx(27.6996 - 24).epsilon(1e-3));
 }
+
+TEST_CASE("snow: the tributary width from the plan grid") {
+    // Common practice: an interior frame carries half of each bay beside it, an end frame
+    // half of its one bay plus the roof's overhang beyond it. Plan lines 1..5 at 20, 30,
+    // 30, 25 ft. Frame 2: (20 + 30) / 2 = 25 ft; frame 5: 25 / 2 + 1.5 = 14 ft.
+    auto frame = [](const char* settings) {
+        std::string text = flat_frame(kSite, "");
+        text.replace(text.find("  tributary = 20 ft\n"), 20, settings);
+        return "grid plan 1..5 spacing 20 ft, 30 ft, 30 ft, 25 ft\n" + text;
+    };
+    double pf = 33.6 * kPsf;  // as in the first test
+    Analysis interior = analysed(frame("  frame = 2\n"));
+    const LoadCase* lc = find_case(interior.model, "S.balanced");
+    REQUIRE(lc != nullptr);
+    CHECK(lc->distributed[0].w_start == Approx(pf * 25 * kFt).epsilon(1e-12));
+    CHECK(trace_has(interior.model,
+                    "tributary width of the frame on plan line 2 = half of each "
+                    "bay beside it = (20.000 ft + 30.000 ft) / 2 = 25.000 ft"));
+    Analysis end = analysed(frame("  frame = 5\n  overhang = 1.5 ft\n"));
+    CHECK(find_case(end.model, "S.balanced")->distributed[0].w_start ==
+          Approx(pf * 14 * kFt).epsilon(1e-12));
+    CHECK(first_message(frame("  frame = 3\n  overhang = 1.5 ft\n")) ==
+          "input:23:3: error: plan line '3' is not an end frame; an overhang beyond the end "
+          "frames does not reach it");
+    CHECK(first_message(frame("  frame = 7\n")) ==
+          "input:22:11: error: unknown plan line '7'; the plan lines are 1, 2, 3, 4, 5");
+}

@@ -91,6 +91,7 @@ struct Grid {
         std::optional<Expr> start;   ///< where the first line is; 0 when not given
     };
     Axis axis = Axis::x;
+    bool plan = false;  ///< `grid plan`: the plan lines the frames stand on (axis unused)
     std::vector<Line> lines;
     std::optional<Run> run;
 };

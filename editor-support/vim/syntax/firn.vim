@@ -14,7 +14,7 @@ syn iskeyword @,48-57,_
 syn keyword firnKeyword along amend at axial because beams case clockwise columns counterclockwise
 syn keyword firnKeyword dead displacement down fixed free from grid group hinge ishape
 syn keyword firnKeyword let linear live material member model moment node on other
-syn keyword firnKeyword outside pinned point projected rafters rectangle report roller
+syn keyword firnKeyword outside pinned plan point projected rafters rectangle report roller
 syn keyword firnKeyword roof rotation section self snow spacing spring support tag to
 syn keyword firnKeyword transverse uniform units up use weight wind x y
 
