@@ -57,6 +57,40 @@ Geometry geometry_of(const Model& m, MemberId id) {
     return Geometry{std::atan2(std::abs(b.y - a.y), run), run};
 }
 
+/// A roof's horizontal extent and its ridge (its highest node strictly between
+/// its ends), if it has one.
+struct RoofShape {
+    double left = INFINITY, right = -INFINITY;
+    std::optional<double> ridge;
+};
+
+RoofShape shape_of(const Model& m, const Roof& roof) {
+    RoofShape shape;
+    double top = -INFINITY, top_x = 0.0;
+    for (MemberId id : roof.members) {
+        for (NodeId n : {m.members[at(id)].start, m.members[at(id)].end}) {
+            const Node& node = m.nodes[at(n)];
+            shape.left = std::min(shape.left, node.x);
+            shape.right = std::max(shape.right, node.x);
+            if (node.y > top + 1e-9) {
+                top = node.y;
+                top_x = node.x;
+            }
+        }
+    }
+    if (top_x > shape.left + 1e-6 && top_x < shape.right - 1e-6)
+        shape.ridge = top_x;
+    return shape;
+}
+
+/// W for rain-on-snow: the horizontal distance from an eave to the ridge, or
+/// the whole run of a roof without one.
+double eave_to_ridge(const RoofShape& shape) {
+    if (!shape.ridge)
+        return shape.right - shape.left;
+    return std::max(*shape.ridge - shape.left, shape.right - *shape.ridge);
+}
+
 class SnowDeriver {
   public:
     SnowDeriver(Model& m, Diagnostics& d)
@@ -116,7 +150,7 @@ class SnowDeriver {
     void derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& minimum);
     void unbalanced(const Roof& roof, const std::vector<double>& ps, double steepest);
     void unbalanced_case(const Roof& roof, const std::vector<double>& ps, bool wind_from_left,
-                         double ridge_x);
+                         const RoofShape& shape);
     std::vector<LoadCase> unbalanced_cases_;
     std::vector<LoadCase> drift_cases_;
     LoadCase plain_balanced_;  ///< ps on every roof, for the drift cases
@@ -274,25 +308,6 @@ double SnowDeriver::minimum_load(double slope) {
     return pm;
 }
 
-/// W for rain-on-snow: the horizontal distance from an eave to the ridge (the
-/// highest point), or the whole run of a flat roof.
-double eave_to_ridge(const Model& m, const Roof& roof) {
-    double left = INFINITY, right = -INFINITY, ridge_x = 0.0, top = -INFINITY;
-    for (MemberId id : roof.members) {
-        for (NodeId n : {m.members[at(id)].start, m.members[at(id)].end}) {
-            const Node& node = m.nodes[at(n)];
-            left = std::min(left, node.x);
-            right = std::max(right, node.x);
-            if (node.y > top + 1e-9) {
-                top = node.y;
-                ridge_x = node.x;
-            }
-        }
-    }
-    bool interior_ridge = ridge_x > left + 1e-6 && ridge_x < right - 1e-6;
-    return interior_ridge ? std::max(ridge_x - left, right - ridge_x) : right - left;
-}
-
 void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& minimum) {
     std::vector<std::string> names;
     double steepest = 0.0;
@@ -313,7 +328,7 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
                          length(roof.tributary)),
              "common practice");
     }
-    double W = eave_to_ridge(m_, roof);
+    double W = eave_to_ridge(shape_of(m_, roof));
     double rain = rain_on_snow(steepest, W);
     // One Cs per roof plane: members of equal slope share it.
     std::vector<char> done(roof.members.size(), 0);
@@ -363,30 +378,11 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
     }
 }
 
-/// The x of a roof's ridge (its highest node strictly between its ends), if it has one.
-std::optional<double> ridge_of(const Model& m, const Roof& roof) {
-    double left = INFINITY, right = -INFINITY, top = -INFINITY, ridge_x = 0.0;
-    for (MemberId id : roof.members) {
-        for (NodeId n : {m.members[at(id)].start, m.members[at(id)].end}) {
-            const Node& node = m.nodes[at(n)];
-            left = std::min(left, node.x);
-            right = std::max(right, node.x);
-            if (node.y > top + 1e-9) {
-                top = node.y;
-                ridge_x = node.x;
-            }
-        }
-    }
-    if (ridge_x > left + 1e-6 && ridge_x < right - 1e-6)
-        return ridge_x;
-    return std::nullopt;
-}
-
 /// Unbalanced loads on a gable (Sec. 7.6.1): one case for wind from each side.
 void SnowDeriver::unbalanced(const Roof& roof, const std::vector<double>& ps, double steepest) {
     const char* clause = "ASCE 7-16 Sec. 7.6.1";
-    auto ridge = ridge_of(m_, roof);
-    if (!ridge) {
+    RoofShape shape = shape_of(m_, roof);
+    if (!shape.ridge) {
         line(fmt::format("unbalanced load not required: roof {} is not a hip or gable roof (no "
                          "ridge between its eaves)",
                          roof.name),
@@ -405,12 +401,13 @@ void SnowDeriver::unbalanced(const Roof& roof, const std::vector<double>& ps, do
                      degrees(steepest), degrees(std::atan(t_.unbalanced_min_rise)),
                      degrees(std::atan(t_.unbalanced_max_rise))),
          clause);
-    unbalanced_case(roof, ps, true, *ridge);
-    unbalanced_case(roof, ps, false, *ridge);
+    unbalanced_case(roof, ps, true, shape);
+    unbalanced_case(roof, ps, false, shape);
 }
 
 void SnowDeriver::unbalanced_case(const Roof& roof, const std::vector<double>& ps,
-                                  bool wind_from_left, double ridge_x) {
+                                  bool wind_from_left, const RoofShape& shape) {
+    double ridge_x = *shape.ridge;
     const char* clause = "ASCE 7-16 Sec. 7.6.1, Fig. 7.6-2";
     LoadCase& lc =
         case_named(wind_from_left ? "unbalanced.wind_from_left" : "unbalanced.wind_from_right");
@@ -420,17 +417,12 @@ void SnowDeriver::unbalanced_case(const Roof& roof, const std::vector<double>& p
         double mid = 0.5 * (m_.nodes[at(mem.start)].x + m_.nodes[at(mem.end)].x);
         return wind_from_left ? mid < ridge_x : mid > ridge_x;
     };
-    double left = INFINITY, right = -INFINITY, leeward_slope = 0.0;
+    double leeward_slope = 0.0;
     for (std::size_t i = 0; i < roof.members.size(); ++i) {
-        const Member& mem = m_.members[at(roof.members[i])];
-        for (NodeId n : {mem.start, mem.end}) {
-            left = std::min(left, m_.nodes[at(n)].x);
-            right = std::max(right, m_.nodes[at(n)].x);
-        }
         if (!windward(roof.members[i]))
             leeward_slope = std::max(leeward_slope, geometry_of(m_, roof.members[i]).slope);
     }
-    double W = wind_from_left ? ridge_x - left : right - ridge_x;
+    double W = wind_from_left ? ridge_x - shape.left : shape.right - ridge_x;
     std::string side = wind_from_left ? "wind from the left" : "wind from the right";
     if (roof.simple_rafters && W <= t_.unbalanced_narrow_W) {
         double p = site_.Is.value * site_.pg;
@@ -543,18 +535,6 @@ void SnowDeriver::trace_drift(double lu, double hd, const char* lu_is) {
          "ASCE 7-16 Fig. 7.6-1");
 }
 
-/// The horizontal extent of a roof.
-std::pair<double, double> extent_of(const Model& m, const Roof& roof) {
-    double left = INFINITY, right = -INFINITY;
-    for (MemberId id : roof.members) {
-        for (NodeId n : {m.members[at(id)].start, m.members[at(id)].end}) {
-            left = std::min(left, m.nodes[at(n)].x);
-            right = std::max(right, m.nodes[at(n)].x);
-        }
-    }
-    return {left, right};
-}
-
 /// A drift at a step or parapet at one end of a roof (Sec. 7.7.1, 7.8): the
 /// larger of the leeward and windward heights at a step, 0.75 hd at a parapet;
 /// width 4 hd, or 4 hd^2/hc with the height cut to hc; at most 8 hc; a triangle
@@ -567,7 +547,8 @@ void SnowDeriver::drift_at(const Roof& roof, double ps, bool left_end) {
     bool step = edge.step > 0.0;
     std::string where = fmt::format("{} at the {} end", step ? "roof step" : "parapet", end);
     std::string clause = step ? "ASCE 7-16 Sec. 7.7.1" : "ASCE 7-16 Sec. 7.8";
-    auto [left, right] = extent_of(m_, roof);
+    RoofShape shape = shape_of(m_, roof);
+    double left = shape.left, right = shape.right;
     double length_of_roof = right - left;
     double gamma = snow_density(t_, site_.pg);
     double hb = ps / gamma;
