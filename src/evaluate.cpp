@@ -3,8 +3,23 @@
 
 #include <fmt/format.h>
 #include <cmath>
+#include <cstdlib>
 
 namespace firn {
+namespace {
+
+/// The largest power of force or length a value may have. No quantity of a
+/// frame needs more, and Dimension keeps its powers in 8 bits, which would wrap.
+constexpr long long kMaxPower = 100;
+
+/// The dimension force^f * length^l, or nullopt if a power is beyond kMaxPower.
+std::optional<Dimension> dimension_of(long long force, long long length) {
+    if (std::abs(force) > kMaxPower || std::abs(length) > kMaxPower)
+        return std::nullopt;
+    return Dimension{static_cast<std::int8_t>(force), static_cast<std::int8_t>(length)};
+}
+
+}  // namespace
 
 std::optional<Quantity> unit_value(const std::vector<syntax::UnitFactor>& unit,
                                    Diagnostics& diagnostics) {
@@ -18,9 +33,18 @@ std::optional<Quantity> unit_value(const std::vector<syntax::UnitFactor>& unit,
             ok = false;
             continue;
         }
-        int exponent = f.divides ? -f.exponent : f.exponent;
-        q.value *= std::pow(u->to_si, exponent);
-        q.dimension = q.dimension * power(u->dimension, exponent);
+        // Wide integers: a written power may be any int, even the most negative.
+        long long exponent = f.divides ? -static_cast<long long>(f.exponent) : f.exponent;
+        auto d = dimension_of(q.dimension.force + u->dimension.force * exponent,
+                              q.dimension.length + u->dimension.length * exponent);
+        if (!d) {
+            diagnostics.error(f.where, fmt::format("this unit's power is too high (beyond "
+                                                   "force or length to the power {})",
+                                                   kMaxPower));
+            return std::nullopt;
+        }
+        q.value *= std::pow(u->to_si, static_cast<double>(exponent));
+        q.dimension = *d;
     }
     if (!ok)
         return std::nullopt;
@@ -59,7 +83,32 @@ std::optional<Quantity> evaluate_number(const syntax::Expr& e, Diagnostics& diag
 }
 
 const char* operation_verb(syntax::Expr::Kind kind) {
-    return kind == syntax::Expr::Kind::add ? "add" : "subtract";
+    using K = syntax::Expr::Kind;
+    return kind == K::add        ? "add"
+           : kind == K::subtract ? "subtract"
+           : kind == K::multiply ? "multiply"
+                                 : "divide";
+}
+
+/// a * b or a / b, refused when the powers of the result's dimension would go
+/// beyond kMaxPower (a dimension check must never pass by wrapping around).
+std::optional<Quantity> multiply(const syntax::Expr& e, Quantity a, Quantity b,
+                                 Diagnostics& diagnostics) {
+    int sign = e.kind == syntax::Expr::Kind::divide ? -1 : 1;
+    auto d = dimension_of(a.dimension.force + sign * b.dimension.force,
+                          a.dimension.length + sign * b.dimension.length);
+    if (!d) {
+        diagnostics.error(e.where, fmt::format("cannot {} {} and {}: the result would be "
+                                               "beyond force or length to the power {}",
+                                               operation_verb(e.kind), describe(a.dimension),
+                                               describe(b.dimension), kMaxPower));
+        return std::nullopt;
+    }
+    if (sign < 0 && b.value == 0.0) {
+        diagnostics.error(e.rhs->where, "division by zero");
+        return std::nullopt;
+    }
+    return Quantity{sign > 0 ? a.value * b.value : a.value / b.value, *d};
 }
 
 std::optional<Quantity> combine(const syntax::Expr& e, Quantity a, Quantity b,
@@ -76,13 +125,8 @@ std::optional<Quantity> combine(const syntax::Expr& e, Quantity a, Quantity b,
             }
             return Quantity{e.kind == K::add ? a.value + b.value : a.value - b.value, a.dimension};
         case K::multiply:
-            return Quantity{a.value * b.value, a.dimension * b.dimension};
         case K::divide:
-            if (b.value == 0.0) {
-                diagnostics.error(e.rhs->where, "division by zero");
-                return std::nullopt;
-            }
-            return Quantity{a.value / b.value, a.dimension / b.dimension};
+            return multiply(e, a, b, diagnostics);
         default:
             return std::nullopt;
     }

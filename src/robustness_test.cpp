@@ -128,3 +128,25 @@ TEST_CASE("a title that is not UTF-8 is an error at the bad byte") {
     CHECK(first_message("model \"caf\xC3\xA9 \xE2\x80\x94 frame\"\n") ==
           "input:1:1: error: the model has no members");
 }
+
+TEST_CASE("a unit's power beyond 100 is refused, never wrapped into another dimension") {
+    // Dimensions keep their powers in 8 bits: ft^128 wrapped to ft^-128, and
+    // 1 ft * 1 ft^128 * 1 ft^128 passed as a length. A power of -2147483648
+    // under '/' overflowed an int.
+    CHECK(first_message(std::string(kBaseModel) +
+                        "node N3 at x = 1 ft * 1 ft^128 * 1 ft^128, y = 0 ft\n") ==
+          "input:9:25: error: this unit's power is too high (beyond force or length to the "
+          "power 100)");
+    CHECK(first_message(std::string(kBaseModel) + "let a = 1 kip/ft^-2147483648\n") ==
+          "input:9:15: error: this unit's power is too high (beyond force or length to the "
+          "power 100)");
+    CHECK(first_message(std::string(kBaseModel) + "let a = 1 kcf^40\n") ==
+          "input:9:11: error: this unit's power is too high (beyond force or length to the "
+          "power 100)");
+    CHECK(first_message(std::string(kBaseModel) + "let a = (1 ft^100) * (1 ft^100) / 1 ft^100\n") ==
+          "input:9:9: error: cannot multiply a quantity of dimension length^100 and a quantity "
+          "of dimension length^100: the result would be beyond force or length to the power 100");
+    CHECK(messages_for(std::string(kBaseModel) + "let a = (1 ft^100) / (1 ft^99)\n"
+                                                 "node N3 at x = a, y = 1 ft\n"
+                                                 "member B2 from N2 to N3 section beam\n") == "");
+}
