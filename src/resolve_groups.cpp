@@ -2,12 +2,16 @@
 // member references lists accept: a member, a group, or a pattern with '*'.
 #include <fmt/format.h>
 #include <algorithm>
+#include <map>
 #include <set>
 
 #include "resolve_internal.hpp"
 
 namespace firn::resolve_detail {
 namespace {
+
+/// Groups in groups deeper than this are refused (as deep expressions are).
+constexpr std::size_t kMaxGroupNesting = 100;
 
 /// True if `text` matches `pattern`, where '*' stands for any run of characters.
 bool glob_match(std::string_view pattern, std::string_view text) {
@@ -81,11 +85,23 @@ std::optional<std::vector<MemberId>> members_matching(Resolver& r, const syntax:
     return ids;
 }
 
-/// Appends `more` to `ids`, leaving out members already there.
-void append_unique(std::vector<MemberId>& ids, const std::vector<MemberId>& more) {
+/// Flags, one per member, of the members in `ids`: a group of every member
+/// of a large model is checked for repeats in linear time, not quadratic.
+std::vector<char> listed_in(const Resolver& r, const std::vector<MemberId>& ids) {
+    std::vector<char> listed(r.model.members.size(), 0);
+    for (MemberId id : ids)
+        listed[at(id)] = 1;
+    return listed;
+}
+
+/// Appends `more` to `ids`, leaving out members already `listed` there.
+void append_unique(std::vector<MemberId>& ids, const std::vector<MemberId>& more,
+                   std::vector<char>& listed) {
     for (MemberId id : more) {
-        if (std::find(ids.begin(), ids.end(), id) == ids.end())
+        if (!listed[at(id)]) {
+            listed[at(id)] = 1;
             ids.push_back(id);
+        }
     }
 }
 
@@ -101,12 +117,19 @@ std::optional<std::vector<MemberId>> group_members(Resolver& r, std::size_t g,
                                                    fmt::join(chain, " -> ")));
         return std::nullopt;
     }
+    if (group.state == State::waiting && r.expanding_groups.size() >= kMaxGroupNesting) {
+        // Expanding recurses once per level: a long chain would overflow the stack.
+        r.diagnostics.error(ref.where, fmt::format("groups nest too deeply (more than {} levels)",
+                                                   kMaxGroupNesting));
+        return std::nullopt;
+    }
     if (group.state == State::waiting) {
         group.state = State::expanding;
         r.expanding_groups.push_back(group.decl->name.text);
+        std::vector<char> listed = listed_in(r, group.members);
         for (const syntax::Name& item : group.decl->members) {
             if (auto ids = r.find_members(item))
-                append_unique(group.members, *ids);
+                append_unique(group.members, *ids, listed);
         }
         r.expanding_groups.pop_back();
         group.state = State::done;
@@ -145,7 +168,8 @@ void resolve_groups(Resolver& r, const std::vector<const syntax::GroupDecl*>& gr
         if (!clashes(decl->name) && r.groups.add(decl->name, r.diagnostics))
             r.group_entries.push_back(Resolver::Group{decl, {}, Resolver::Group::State::waiting});
     }
-    std::set<std::pair<FileId, std::uint32_t>> refused;  // clashing tags, reported once each
+    std::set<std::pair<FileId, std::uint32_t>> refused;   // clashing tags, reported once each
+    std::map<std::size_t, std::vector<MemberId>> tagged;  // by group, in the order tagged
     for (const auto& [tag, member] : r.tagged) {
         auto g = r.groups.find_quietly(tag.text);
         if (!g) {
@@ -158,7 +182,11 @@ void resolve_groups(Resolver& r, const std::vector<const syntax::GroupDecl*>& gr
             r.group_entries.push_back(Resolver::Group{nullptr, {}, Resolver::Group::State::done});
             g = r.group_entries.size() - 1;
         }
-        append_unique(r.group_entries[*g].members, {member});
+        tagged[*g].push_back(member);
+    }
+    for (const auto& [g, members] : tagged) {
+        std::vector<char> listed = listed_in(r, r.group_entries[g].members);
+        append_unique(r.group_entries[g].members, members, listed);
     }
     for (std::size_t g = 0; g < r.group_entries.size(); ++g) {
         if (r.group_entries[g].decl != nullptr)

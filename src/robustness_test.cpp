@@ -1,5 +1,6 @@
 // Hostile and unusual input: never a crash, hang or wrong answer; always a
 // located error or a correct result.
+#include <fmt/format.h>
 #include <catch2/catch.hpp>
 
 #include "driver.hpp"
@@ -149,4 +150,29 @@ TEST_CASE("a unit's power beyond 100 is refused, never wrapped into another dime
     CHECK(messages_for(std::string(kBaseModel) + "let a = (1 ft^100) / (1 ft^99)\n"
                                                  "node N3 at x = a, y = 1 ft\n"
                                                  "member B2 from N2 to N3 section beam\n") == "");
+}
+
+TEST_CASE("groups nested deeper than 100 levels are refused, not a stack overflow") {
+    std::string text = std::string(kBaseModel);
+    for (int i = 0; i < 100000; ++i)
+        text += fmt::format("group g{} = g{}\n", i, i + 1);
+    text += "group g100000 = B1\ncase D dead { uniform 1 kip/ft down on g0 }\n";
+    // g0 to g99 are being expanded when g99 names g100.
+    CHECK(first_message(text) ==
+          "input:108:13: error: groups nest too deeply (more than 100 levels)");
+}
+
+TEST_CASE("a group of every member of a large model, in many groups, takes linear time") {
+    // Found by hand while fuzzing: each member added to a group was looked for
+    // in the whole group, so 20 groups of 5000 members took half a minute.
+    std::string text = std::string(kBaseModel) +
+                       "grid x 1..5000 spacing 1 ft\ngrid y a = 10 ft, b = 11 ft\n"
+                       "columns on 1..5000 from a to b section beam tag t\ngroup all = *, t\n";
+    for (int i = 0; i < 200; ++i)
+        text += fmt::format("group g{} = all, t, all\n", i);
+    text += "case D dead { uniform 1 kip/ft down on g199 }\n";
+    Analysis a = analyse_text("input", text + "support fixed at a\n");
+    INFO(render(a.diagnostics, a.sources));
+    REQUIRE(a.ok);
+    CHECK(a.model.cases[0].distributed.size() == 5001);  // B1 and the columns, each once
 }
