@@ -18,6 +18,31 @@ namespace {
 constexpr double kMinMemberLength = 1e-6;  // m
 constexpr double kOnLine = 1e-6;           // m: a point this close to a line lies on it
 constexpr std::size_t kMaxRunLines = 10000;
+// Limits of a whole model, far above any building frame (the largest benchmark
+// frame has 202 lines and 20,100 members): a few runs and generators in a
+// small file could otherwise ask for a hundred million members.
+constexpr std::size_t kMaxGridLines = 2 * kMaxRunLines;
+constexpr std::size_t kMaxMembers = 100000;
+
+/// False, after an error at `where`, if `count` more grid lines would pass kMaxGridLines.
+bool room_for_lines(Resolver& r, std::size_t count, SourceRange where) {
+    if (r.grid.size() + count <= kMaxGridLines)
+        return true;
+    r.diagnostics.error(where, fmt::format("a model has at most {} grid lines", kMaxGridLines));
+    return false;
+}
+
+/// False, after an error at `where`, if `count` more members would pass kMaxMembers.
+bool room_for_members(Resolver& r, std::size_t count, SourceRange where, const char* what) {
+    std::size_t total = r.model.members.size() + count;
+    if (total <= kMaxMembers)
+        return true;
+    r.diagnostics.error(where, fmt::format("{} would bring the model to {} members; a model "
+                                           "has at most {}",
+                                           what, total, kMaxMembers));
+    r.members_missing = true;
+    return false;
+}
 
 // ---------------------------------------------------------------- grid runs
 
@@ -226,7 +251,10 @@ std::vector<std::string> meant_names(const syntax::Grid::Run& run) {
 /// Defines the lines a run with an error was meant to have, without places,
 /// so statements naming them are quiet instead of repeating the run's error.
 void add_unplaced_lines(Resolver& r, const syntax::Grid& grid) {
-    for (const std::string& name : meant_names(*grid.run)) {
+    std::vector<std::string> names = meant_names(*grid.run);
+    if (r.grid.size() + names.size() > kMaxGridLines)
+        return;  // statements naming them may report them unknown: a rare second error
+    for (const std::string& name : names) {
         if (!r.grid_lines.find_quietly(name))
             add_grid_line(r, grid.axis, syntax::Name{name, run_range(*grid.run)}, std::nullopt);
     }
@@ -239,8 +267,10 @@ void resolve_run(Resolver& r, const syntax::Grid& grid) {
         add_unplaced_lines(r, grid);
         return;
     }
-    auto places = run_places(r, run, names->size());
     SourceRange where = run_range(run);
+    if (!room_for_lines(r, names->size(), where))
+        return;
+    auto places = run_places(r, run, names->size());
     for (std::size_t k = 0; k < names->size(); ++k) {
         add_grid_line(r, grid.axis, syntax::Name{(*names)[k], where},
                       places ? std::optional((*places)[k]) : std::nullopt);
@@ -322,6 +352,8 @@ void resolve_grids(Resolver& r, const std::vector<const syntax::Grid*>& grids) {
             resolve_run(r, *grid);
             continue;
         }
+        if (!room_for_lines(r, grid->lines.size(), grid->lines.front().name.where))
+            continue;
         for (const syntax::Grid::Line& line : grid->lines) {
             auto v = r.value(line.at, expect::length);
             if (v && !r.within(line.at, *v, kMaxCoordinate, "coordinate"))
@@ -587,6 +619,8 @@ bool placed(const Resolver& r, std::optional<NodeId> n) {
 void resolve_member(Resolver& r, const syntax::MemberDecl& decl) {
     auto start = r.find_node(decl.start);
     auto end = r.find_node(decl.end);
+    if (!room_for_members(r, 1, decl.name.where, "this member"))
+        return;
     MemberAdder adder(r, decl.options);
     NewMember m{decl.name.text, start.value_or(NodeId{}), end.value_or(NodeId{}), decl.name.where};
     adder.add(m, placed(r, start) && placed(r, end), decl.end.where);
@@ -738,6 +772,12 @@ void resolve_grid_members(Resolver& r, const Decl& decl,
                                 fmt::format("{} from '{}' to '{}' need two different {}s", what,
                                             decl.from.text, decl.to.text, axis_noun(across)));
         }
+        std::size_t count = lines.size() * (std::max<std::size_t>(crossing.size(), 1) - 1);
+        SourceRange named{
+            along.front().first.where.file, along.front().first.where.begin,
+            along.back().last ? along.back().last->where.end : along.back().first.where.end};
+        if (!room_for_members(r, count, named, fmt::format("these {}", what).c_str()))
+            lines.clear();
         for (const auto& [line, where] : lines) {
             split_along(r, line, crossing, where,
                         [&](const NewMember& m) { adder.add(m, true, decl.to.where); });
@@ -759,7 +799,8 @@ std::string point_label(const Resolver& r, NodeId n) {
 }
 
 /// One straight piece of a run of rafters, split where it crosses column lines.
-void rafter_piece(Resolver& r, const syntax::RaftersDecl& decl, NodeId a, NodeId b,
+/// False if the model has no room for it.
+bool rafter_piece(Resolver& r, const syntax::RaftersDecl& decl, NodeId a, NodeId b,
                   SourceRange where, MemberAdder& adder) {
     Node pa = r.model.nodes[at(a)], pb = r.model.nodes[at(b)];
     if (pa.x > pb.x) {
@@ -778,19 +819,26 @@ void rafter_piece(Resolver& r, const syntax::RaftersDecl& decl, NodeId a, NodeId
     std::stable_sort(crossing.begin(), crossing.end(), [&](std::size_t p, std::size_t q) {
         return r.grid[p].position < r.grid[q].position;
     });
+    if (!room_for_members(r, crossing.size() + 1, where, "these rafters"))
+        return false;
+    // A crossing is labelled by its line: looking each point up among all
+    // lines would make a long run quadratic.
+    std::vector<std::string> labels{point_label(r, a)};
     for (std::size_t i : crossing) {
         double t = (r.grid[i].position - pa.x) / (pb.x - pa.x);
         std::string name = fmt::format("{}.{}", r.grid_lines.names()[i], decl.run.text);
         points.push_back(
             r.node_at_place(name, r.grid[i].position, pa.y + t * (pb.y - pa.y), where));
+        labels.push_back(r.grid_lines.names()[i]);
     }
     points.push_back(b);
+    labels.push_back(point_label(r, b));
     for (std::size_t k = 0; k + 1 < points.size(); ++k) {
-        NewMember m{fmt::format("{}.{}.{}", decl.run.text, point_label(r, points[k]),
-                                point_label(r, points[k + 1])),
-                    points[k], points[k + 1], where};
+        NewMember m{fmt::format("{}.{}.{}", decl.run.text, labels[k], labels[k + 1]), points[k],
+                    points[k + 1], where};
         adder.add(m, true, where);
     }
+    return true;
 }
 
 /// Why no rafter can run from `a` to `b`, or nullptr if one can.
@@ -819,7 +867,8 @@ void resolve_rafters(Resolver& r, const syntax::RaftersDecl& decl) {
             r.members_missing = true;
             continue;
         }
-        rafter_piece(r, decl, *points[k], *points[k + 1], decl.run.where, adder);
+        if (!rafter_piece(r, decl, *points[k], *points[k + 1], decl.run.where, adder))
+            break;
     }
     adder.finish("these rafters");
 }

@@ -176,3 +176,27 @@ TEST_CASE("a group of every member of a large model, in many groups, takes linea
     REQUIRE(a.ok);
     CHECK(a.model.cases[0].distributed.size() == 5001);  // B1 and the columns, each once
 }
+
+TEST_CASE("generators cannot make more than 100000 members or 20000 grid lines") {
+    // Found by hand while fuzzing: 150 bytes of runs and one generator asked
+    // for 9 million members and ran out of time and memory.
+    std::string grid =
+        std::string(kBaseModel) + "grid x 1..10000 spacing 1 ft\ngrid y L1..L10000 spacing 1 ft\n";
+    CHECK(first_message(grid + "columns on 1..10000 from L1 to L11 section beam\n") ==
+          "input:11:12: error: these columns would bring the model to 100001 members; a model "
+          "has at most 100000");
+    CHECK(first_message(grid + "grid y M1..M2 spacing 1 ft from 1 in\n") ==
+          "input:11:8: error: a model has at most 20000 grid lines");
+}
+
+TEST_CASE("rafters across thousands of column lines take linear time") {
+    // Found by hand while fuzzing: each piece's ends were looked up among all
+    // column lines, so two runs across 10000 lines took a minute.
+    Analysis a = analyse_text("input", std::string(kBaseModel) +
+                                           "grid x 1..10000 spacing 1 ft\n"
+                                           "grid y a = 0 ft, b = 1 ft\n"
+                                           "rafters r from 1.a to 10000.b section beam\n"
+                                           "rafters q from 1.b to 10000.a section beam\n");
+    CHECK(a.model.members.size() == 1 + 2 * 9999);
+    CHECK(a.model.members.back().name == "q.9999.10000");
+}
