@@ -12,6 +12,25 @@ namespace {
 /// frame needs more, and Dimension keeps its powers in 8 bits, which would wrap.
 constexpr long long kMaxPower = 100;
 
+/// How deep evaluation may go before a value names another value. One
+/// expression is at most about a thousand levels deep (the parser's limits),
+/// but values naming values add their depths: thirty values of a thousand
+/// terms each overflowed the stack, and so did 3900 values each naming the
+/// next in a sanitizer build. This keeps the whole well inside it.
+constexpr int kMaxEvaluationDepth = 2000;
+
+/// The depth of evaluate() calls on this thread, across values naming values.
+thread_local int evaluation_depth = 0;
+
+/// Counts one evaluate() call for as long as it runs.
+class DepthGuard {
+  public:
+    DepthGuard() { ++evaluation_depth; }
+    ~DepthGuard() { --evaluation_depth; }
+    DepthGuard(const DepthGuard&) = delete;
+    DepthGuard& operator=(const DepthGuard&) = delete;
+};
+
 /// The dimension force^f * length^l, or nullopt if a power is beyond kMaxPower.
 std::optional<Dimension> dimension_of(long long force, long long length) {
     if (std::abs(force) > kMaxPower || std::abs(length) > kMaxPower)
@@ -235,6 +254,13 @@ std::optional<Quantity> evaluate_leaf(const syntax::Expr& e, Diagnostics& diagno
                 diagnostics.error(e.where, fmt::format("unknown value '{}'", e.literal));
                 return std::nullopt;
             }
+            if (evaluation_depth >= kMaxEvaluationDepth) {
+                diagnostics.error(e.where, fmt::format("'{}' is too deep in a chain of values "
+                                                       "(more than {} levels of values and "
+                                                       "operations)",
+                                                       e.literal, kMaxEvaluationDepth));
+                return std::nullopt;
+            }
             return scope->constant(e, diagnostics);
         case K::call:
             return evaluate_call(e, diagnostics, scope);
@@ -253,6 +279,7 @@ std::optional<Quantity> evaluate_leaf(const syntax::Expr& e, Diagnostics& diagno
 
 std::optional<Quantity> evaluate(const syntax::Expr& e, Diagnostics& diagnostics, Scope* scope) {
     using K = syntax::Expr::Kind;
+    DepthGuard depth;
     std::optional<Quantity> result;
     if (e.lhs == nullptr) {
         result = evaluate_leaf(e, diagnostics, scope);

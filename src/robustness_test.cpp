@@ -200,3 +200,28 @@ TEST_CASE("rafters across thousands of column lines take linear time") {
     CHECK(a.model.members.size() == 1 + 2 * 9999);
     CHECK(a.model.members.back().name == "q.9999.10000");
 }
+
+TEST_CASE("values naming values too deeply are refused, not a stack overflow") {
+    // Found by hand while fuzzing: each value naming the next one nests the
+    // evaluation; 30000 of them, or 30 of a thousand terms each, overflowed
+    // the stack.
+    std::string plain = std::string(kBaseModel);
+    for (int i = 0; i < 100000; ++i)
+        plain += fmt::format("let v{} = v{}\n", i, i + 1);
+    plain += "let v100000 = 1 ft\n";
+    // v0 is evaluated first; v1999 names v2000 at depth 2000.
+    CHECK(first_message(plain) ==
+          "input:2008:13: error: 'v2000' is too deep in a chain of values (more than 2000 "
+          "levels of values and operations)");
+    std::string terms;
+    for (int i = 0; i < 999; ++i)
+        terms += " + 0 ft";
+    std::string chained = std::string(kBaseModel);
+    for (int i = 0; i < 30; ++i)
+        chained += fmt::format("let v{} = v{}{}\n", i, i + 1, terms);
+    chained += "let v30 = 1 ft\n";
+    // Each value's first term is 1000 levels down its own sum.
+    CHECK(first_message(chained) ==
+          "input:10:10: error: 'v2' is too deep in a chain of values (more than 2000 levels of "
+          "values and operations)");
+}
