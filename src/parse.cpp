@@ -349,7 +349,12 @@ syntax::UnitFactor unit_factor(const Input& in, const Builder& b, bool divides) 
         ++q;
     if (q < in.end()) {
         int exponent = 1;
-        std::from_chars(q, in.end(), exponent);
+        auto [end, ec] = std::from_chars(q, in.end(), exponent);
+        // Too large for an int: keep it far beyond any dimension, so that
+        // evaluate refuses it instead of reading the unit without its power.
+        if (ec == std::errc::result_out_of_range)
+            exponent = std::numeric_limits<int>::max();
+        (void)end;
         f.exponent = exponent;
     }
     f.where = b.range(p, in.end());

@@ -141,6 +141,10 @@ TEST_CASE("a unit's power beyond 100 is refused, never wrapped into another dime
     CHECK(first_message(std::string(kBaseModel) + "let a = 1 kip/ft^-2147483648\n") ==
           "input:9:15: error: this unit's power is too high (beyond force or length to the "
           "power 100)");
+    // An exponent too large for an int is refused too, not read as a power of 1.
+    CHECK(first_message(std::string(kBaseModel) + "let a = 3 ft^99999999999\n") ==
+          "input:9:11: error: this unit's power is too high (beyond force or length to the "
+          "power 100)");
     CHECK(first_message(std::string(kBaseModel) + "let a = 1 kcf^40\n") ==
           "input:9:11: error: this unit's power is too high (beyond force or length to the "
           "power 100)");
