@@ -178,6 +178,13 @@ struct SnowTables {
     double unbalanced_max_rise = 0.0;
     double unbalanced_windward = 0.0;  ///< windward load / ps
     double unbalanced_narrow_W = 0.0;  ///< m: the simply supported rafter rule applies up to this
+    double ice_dam_factor = 0.0;       ///< x pf on eave overhangs
+    double ice_dam_R_unventilated = 0.0;
+    double ice_dam_R_ventilated = 0.0;
+    double sliding_factor = 0.0;  ///< sliding load per length of eave = this x pf x W
+    double sliding_width = 0.0;   ///< m, over which it spreads on the lower roof
+    double sliding_min_rise_slippery = 0.0;
+    double sliding_min_rise_other = 0.0;
 };
 
 /// A factor of the snow provisions: its value and, when the user gave it
@@ -213,6 +220,8 @@ struct Roof {
         double step = 0.0;          ///< m: the upper roof's edge above this roof (0: none)
         double upper_length = 0.0;  ///< m: the upper roof's length upwind of the step
         double parapet = 0.0;       ///< m: the parapet's height above this roof (0: none)
+        std::string sliding_from;   ///< a higher roof whose snow may slide onto this end
+        SourceRange sliding_where;
     };
     Edge left, right;
     /// How the tributary width was found: given, or from the plan grid.

@@ -164,6 +164,13 @@ SnowTables read_tables(Library& lib) {
     t.unbalanced_max_rise = lib.need("unbalanced.max_rise", dim::number);
     t.unbalanced_windward = lib.need("unbalanced.windward", dim::number);
     t.unbalanced_narrow_W = lib.need("unbalanced.narrow_W", dim::length);
+    t.ice_dam_factor = lib.need("ice_dam.factor", dim::number);
+    t.ice_dam_R_unventilated = lib.need("ice_dam.R_unventilated", dim::number);
+    t.ice_dam_R_ventilated = lib.need("ice_dam.R_ventilated", dim::number);
+    t.sliding_factor = lib.need("sliding.factor", dim::number);
+    t.sliding_width = lib.need("sliding.width", dim::length);
+    t.sliding_min_rise_slippery = lib.need("sliding.min_rise_slippery", dim::number);
+    t.sliding_min_rise_other = lib.need("sliding.min_rise_other", dim::number);
     return t;
 }
 
@@ -433,6 +440,17 @@ bool read_edge(Resolver& r, Settings& s, const char* side, Roof::Edge& edge) {
     std::string step = fmt::format("step_{}", side);
     std::string upper = fmt::format("step_{}_upper_length", side);
     std::string parapet = fmt::format("parapet_{}", side);
+    if (const syntax::Setting* from = s.find(fmt::format("sliding_from_{}", side))) {
+        if (from->value.kind == syntax::Expr::Kind::constant) {
+            edge.sliding_from = from->value.literal;
+            edge.sliding_where = from->value.where;
+        } else {
+            r.diagnostics.error(from->value.where,
+                                "sliding_from names the roof the snow slides "
+                                "from, as in: sliding_from_left = upper");
+            return false;
+        }
+    }
     bool ok = positive_length(r, s, step, edge.step) &&
               positive_length(r, s, upper, edge.upper_length) &&
               positive_length(r, s, parapet, edge.parapet);
@@ -466,11 +484,12 @@ void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
             }
         }
     }
-    Settings s(r, decl.settings,
-               {"tributary", "frame", "overhang", "surface", "insulation", "ventilated",
-                "rafter_spans", "step_left", "step_left_upper_length", "step_right",
-                "step_right_upper_length", "parapet_left", "parapet_right"},
-               fmt::format("roof '{}'", decl.name.text).c_str());
+    Settings s(
+        r, decl.settings,
+        {"tributary", "frame", "overhang", "surface", "insulation", "ventilated", "rafter_spans",
+         "step_left", "step_left_upper_length", "step_right", "step_right_upper_length",
+         "parapet_left", "parapet_right", "sliding_from_left", "sliding_from_right"},
+        fmt::format("roof '{}'", decl.name.text).c_str());
     Roof roof;
     roof.name = decl.name.text;
     roof.where = decl.name.where;
@@ -495,6 +514,28 @@ void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
     roof.members = std::move(*chain);
     roof.tributary = tributary;
     r.model.roofs.push_back(std::move(roof));
+}
+
+}  // namespace
+
+namespace {
+
+/// A roof that snow slides from must be another roof of the model.
+void check_sliding_sources(Resolver& r, const NameTable& names) {
+    for (const Roof& roof : r.model.roofs) {
+        for (const Roof::Edge* edge : {&roof.left, &roof.right}) {
+            if (edge->sliding_from.empty())
+                continue;
+            if (edge->sliding_from == roof.name) {
+                r.diagnostics.error(edge->sliding_where,
+                                    "snow slides onto a roof from another, higher roof");
+            } else if (!names.find_quietly(edge->sliding_from)) {
+                r.diagnostics.error(edge->sliding_where,
+                                    fmt::format("unknown roof '{}'{}", edge->sliding_from,
+                                                did_you_mean(edge->sliding_from, names.names())));
+            }
+        }
+    }
 }
 
 }  // namespace
@@ -543,6 +584,7 @@ void resolve_snow(Resolver& r, const std::vector<const syntax::SnowDecl*>& snow,
                                             decl->name.text));
         }
     }
+    check_sliding_sources(r, names);
 }
 
 }  // namespace firn::resolve_detail

@@ -22,7 +22,8 @@ constexpr double kSameSlope = 1e-6;
 bool from_memory(std::string_view clause) {
     for (std::string_view c :
          {"Table 7.3-1", "Table 1.5-2", "Sec. 7.3.4", "Sec. 7.10", "Fig. 7.4-1a", "Fig. 7.4-1b",
-          "Fig. 7.4-1c", "Sec. 7.4.1", "Sec. 7.6.1", "Fig. 7.6-2", "Fig. 7.6-1"}) {
+          "Fig. 7.4-1c", "Sec. 7.4.1", "Sec. 7.6.1", "Fig. 7.6-2", "Fig. 7.6-1", "Sec. 7.7.1",
+          "Sec. 7.8", "Sec. 7.4.5", "Sec. 7.9"}) {
         if (clause.ends_with(c))
             return true;
     }
@@ -107,6 +108,8 @@ class SnowDeriver {
             add_case(std::move(minimum));
         for (LoadCase& lc : unbalanced_cases_)
             add_case(std::move(lc));
+        if (!ice_dam_.distributed.empty())
+            add_case(std::move(ice_dam_));
         for (LoadCase& lc : drift_cases_) {
             // A drift rides on the balanced load of every roof (without rain-on-snow).
             lc.distributed.insert(lc.distributed.begin(), plain_balanced_.distributed.begin(),
@@ -154,7 +157,11 @@ class SnowDeriver {
     std::vector<LoadCase> unbalanced_cases_;
     std::vector<LoadCase> drift_cases_;
     LoadCase plain_balanced_;  ///< ps on every roof, for the drift cases
+    LoadCase ice_dam_;         ///< 2 pf on eave overhangs (combined with dead load only)
     void drift_at(const Roof& roof, double ps, bool left_end);
+    void sliding_onto(const Roof& roof, bool left_end);
+    void ice_dam(const Roof& roof);
+    std::vector<MemberId> overhangs(const Roof& roof) const;
     void drift_load(const Roof& roof, double wall_x, double toward, double w, double pd,
                     LoadCase& lc) const;
     double slope_factor(const Roof& roof, double slope, const std::string& members);
@@ -368,6 +375,9 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
     unbalanced(roof, ps_of, steepest);
     drift_at(roof, ps_of.front(), true);
     drift_at(roof, ps_of.back(), false);
+    sliding_onto(roof, true);
+    sliding_onto(roof, false);
+    ice_dam(roof);
     double pm = minimum_load(steepest);
     if (pm > 0.0) {
         line(fmt::format(
@@ -606,6 +616,108 @@ void SnowDeriver::drift_at(const Roof& roof, double ps, bool left_end) {
     drift_cases_.push_back(
         new_case(fmt::format("drift.{}.{}_{}", roof.name, step ? "step" : "parapet", end).c_str()));
     drift_load(roof, left_end ? left : right, left_end ? 1.0 : -1.0, w, pd, drift_cases_.back());
+}
+
+/// Sliding snow from a higher roof onto one end of this one (Sec. 7.9): 0.4 pf W
+/// per length of eave over 15 ft from the upper eave, on the balanced load.
+void SnowDeriver::sliding_onto(const Roof& roof, bool left_end) {
+    const Roof::Edge& edge = left_end ? roof.left : roof.right;
+    if (edge.sliding_from.empty())
+        return;
+    const char* clause = "ASCE 7-16 Sec. 7.9";
+    const char* end = left_end ? "left" : "right";
+    auto upper = std::find_if(m_.roofs.begin(), m_.roofs.end(),
+                              [&](const Roof& u) { return u.name == edge.sliding_from; });
+    if (upper == m_.roofs.end())
+        return;  // reported by resolve
+    double slope = 0.0;
+    for (MemberId id : upper->members)
+        slope = std::max(slope, geometry_of(m_, id).slope);
+    double needed = upper->slippery ? t_.sliding_min_rise_slippery : t_.sliding_min_rise_other;
+    if (!(std::tan(slope) > needed + 1e-12)) {
+        line(fmt::format("sliding snow from roof {} onto the {} end not required: its slope {} "
+                         "is not above {} ({} surface)",
+                         upper->name, end, degrees(slope), degrees(std::atan(needed)),
+                         upper->slippery ? "slippery" : "other"),
+             clause);
+        return;
+    }
+    RoofShape up = shape_of(m_, *upper), low = shape_of(m_, roof);
+    double W = eave_to_ridge(up);
+    double total = t_.sliding_factor * pf_ * W;  // N/m of eave
+    double q = total / t_.sliding_width;
+    double width = std::min(t_.sliding_width, low.right - low.left);
+    line(fmt::format(
+             "sliding snow from roof {} onto the {} end: {:g} pf W = {:g} x {} x {} = {} "
+             "per length of eave, over {}: {} on {}{}",
+             upper->name, end, t_.sliding_factor, t_.sliding_factor, pressure(pf_), length(W),
+             line_load(total), length(t_.sliding_width), pressure(q), length(width),
+             width < t_.sliding_width ? " (the lower roof is narrower: cut, not raised)" : ""),
+         clause);
+    drift_cases_.push_back(new_case(fmt::format("sliding.{}.{}", roof.name, end).c_str()));
+    double from = left_end ? low.left : low.right - width;
+    double to = left_end ? low.left + width : low.right;
+    for (MemberId id : roof.members)
+        load_part(roof, id, from, to, q, drift_cases_.back());
+}
+
+/// Members at a roof's ends that overhang: their outer node carries no other
+/// member and no support.
+std::vector<MemberId> SnowDeriver::overhangs(const Roof& roof) const {
+    std::vector<MemberId> found;
+    auto free_end = [&](NodeId n) {
+        std::size_t count = 0;
+        for (const Member& m : m_.members)
+            count += static_cast<std::size_t>(m.start == n) + static_cast<std::size_t>(m.end == n);
+        bool supported = std::any_of(m_.supports.begin(), m_.supports.end(),
+                                     [&](const Support& s) { return s.node == n; });
+        return count == 1 && !supported;
+    };
+    for (MemberId id : {roof.members.front(), roof.members.back()}) {
+        const Member& m = m_.members[at(id)];
+        bool outer = free_end(m.start) || free_end(m.end);
+        if (outer && std::find(found.begin(), found.end(), id) == found.end())
+            found.push_back(id);
+    }
+    return found;
+}
+
+/// Ice dams along eaves (Sec. 7.4.5): 2 pf on the overhangs of a warm roof
+/// without enough insulation, a case combined with dead load only.
+void SnowDeriver::ice_dam(const Roof& roof) {
+    const char* clause = "ASCE 7-16 Sec. 7.4.5";
+    std::vector<MemberId> eaves = overhangs(roof);
+    if (eaves.empty()) {
+        line(fmt::format("ice dam load not required: roof {} has no eave overhang", roof.name),
+             clause);
+        return;
+    }
+    if (curve_of(site_.Ct.value) != 0) {
+        line(fmt::format("ice dam load not required: not a warm roof (Ct = {})",
+                         factor(site_.Ct.value)),
+             clause);
+        return;
+    }
+    double needed = roof.ventilated ? t_.ice_dam_R_ventilated : t_.ice_dam_R_unventilated;
+    if (roof.insulation_R >= needed) {
+        line(
+            fmt::format("ice dam load not required: insulation R {:g} is at least {:g} ({})",
+                        roof.insulation_R, needed, roof.ventilated ? "ventilated" : "unventilated"),
+            clause);
+        return;
+    }
+    double p = t_.ice_dam_factor * pf_;
+    std::vector<std::string> names;
+    for (MemberId id : eaves)
+        names.push_back(m_.members[at(id)].name);
+    line(fmt::format("ice dam load {:g} pf = {:g} x {} = {} on the eave overhangs {} (insulation "
+                     "R {:g} below {:g}); case {}.ice_dam, combined with dead load only",
+                     t_.ice_dam_factor, t_.ice_dam_factor, pressure(pf_), pressure(p),
+                     fmt::join(names, ", "), roof.insulation_R, needed, site_.name),
+         clause);
+    if (ice_dam_.name.empty())
+        ice_dam_ = new_case("ice_dam");
+    load_members(roof, eaves, p, ice_dam_);
 }
 
 /// The drift triangle's member loads: peak pd at `wall_x`, zero at w toward the

@@ -480,3 +480,72 @@ TEST_CASE("snow: the tributary width from the plan grid") {
     CHECK(first_message(frame("  frame = 7\n")) ==
           "input:22:11: error: unknown plan line '7'; the plan lines are 1, 2, 3, 4, 5");
 }
+
+namespace {
+
+const char* const kWarmSite =
+    "snow S {\n  standard = asce7_16\n  pg = 40 psf\n  terrain = C\n  exposure = partially\n"
+    "  thermal = heated\n  risk = II\n}\n";
+
+/// A flat roof that overhangs its first column by 2 ft (member eave.A.B).
+std::string overhanging(const char* roof_extra) {
+    return fmt::format(
+        "model \"eaves\"\nuse materials\nuse asce7_16\nreport units kip, ft\n"
+        "grid x A..E spacing 2 ft, 24 ft, 24 ft, 24 ft\ngrid y base = 0 ft, eave = 16 ft\n"
+        "section s structural_steel, A = 11.8 in2, I = 510 in4\n"
+        "columns on B..E from base to eave section s\n"
+        "beams along eave from A to E section s\nsupport fixed at base\n{}"
+        "roof main on eave.* {{\n  tributary = 20 ft\n{}}}\n",
+        kWarmSite, roof_extra);
+}
+
+/// A monoslope upper roof (6:12, run 20 ft) whose eave stands above the left end of a
+/// flat lower roof `lower` ft wide.
+std::string sliding(int lower) {
+    return fmt::format(
+        "model \"sliding\"\nuse materials\nuse asce7_16\nreport units kip, ft\n"
+        "grid x A = 0 ft, B = 20 ft, C = 20 ft + {} ft\n"
+        "grid y base = 0 ft, low = 12 ft, mid = 20 ft, top = 30 ft\n"
+        "section s structural_steel, A = 11.8 in2, I = 510 in4\n"
+        "columns on A from base to top section s\ncolumns on B from base to mid section s\n"
+        "columns on C from base to low section s\n"
+        "rafters slope from A.top to B.mid section s\nbeams along low from B to C section s\n"
+        "support fixed at base\n{}roof upper on slope.* {{\n  tributary = 20 ft\n}}\n"
+        "roof lower on low.* {{\n  tributary = 20 ft\n  sliding_from_left = upper\n}}\n",
+        lower, kWarmSite);
+}
+
+}  // namespace
+
+TEST_CASE("snow: an ice dam load on the eave overhang of a poorly insulated warm roof") {
+    // ASCE 7-16 Sec. 7.4.5 (from memory): 2 pf = 2 x 28 psf = 56 psf on the overhang only,
+    // for a warm (heated) roof with R-19 < R-30, unventilated; none with R-30.
+    Analysis a = analysed(overhanging("  insulation = 19\n"));
+    const LoadCase* ice = find_case(a.model, "S.ice_dam");
+    REQUIRE(ice != nullptr);
+    REQUIRE(ice->distributed.size() == 1);
+    CHECK(a.model.members[at(ice->distributed[0].member)].name == "eave.A.B");
+    CHECK(ice->distributed[0].w_start / (20 * kFt) == Approx(56 * kPsf).epsilon(1e-12));
+    Analysis b = analysed(overhanging("  insulation = 30\n"));
+    CHECK(find_case(b.model, "S.ice_dam") == nullptr);
+    CHECK(trace_has(b.model, "ice dam load not required: insulation R 30 is at least 30"));
+}
+
+TEST_CASE("snow: sliding snow from an upper roof, and onto a narrow lower roof") {
+    // ASCE 7-16 Sec. 7.9 (from memory): the 6:12 upper roof (26.57 deg > 2 on 12, a
+    // non-slippery surface) slides 0.4 pf W = 0.4 x 28 psf x 20 ft = 224 lb/ft of eave,
+    // over 15 ft: 14.933 psf on the lower roof from its left end, on top of the balanced load.
+    Analysis a = analysed(sliding(30));
+    const LoadCase* lc = find_case(a.model, "S.sliding.lower.left");
+    REQUIRE(lc != nullptr);
+    const DistributedLoad& slide = lc->distributed.back();
+    CHECK(a.model.members[at(slide.member)].name == "low.B.C");
+    CHECK(slide.start == 0.0);
+    CHECK(slide.end / kFt == Approx(15).epsilon(1e-12));
+    CHECK(slide.w_start / (20 * kFt) == Approx(224.0 / 15 * kPsf).epsilon(1e-12));
+    // A lower roof 10 ft wide keeps the intensity over its width (the load is cut).
+    Analysis n = analysed(sliding(10));
+    const DistributedLoad& narrow = find_case(n.model, "S.sliding.lower.left")->distributed.back();
+    CHECK(narrow.end / kFt == Approx(10).epsilon(1e-12));
+    CHECK(narrow.w_start / (20 * kFt) == Approx(224.0 / 15 * kPsf).epsilon(1e-12));
+}
