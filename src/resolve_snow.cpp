@@ -91,7 +91,6 @@ class Settings {
 
 inline constexpr Expected kPressure{dim::pressure, "a pressure", "40 psf"};
 inline constexpr Expected kNumber{dim::number, "a plain number", "1.1"};
-inline constexpr Expected kAngle{dim::number, "an angle", "15 deg"};
 
 /// Reads library values of the standard, reporting each one it lacks once.
 class Library {
