@@ -172,6 +172,34 @@ class SnowDeriver {
     void load_members(const Roof& roof, const std::vector<MemberId>& members, double pressure,
                       LoadCase& lc) const;
     void load_member(const Roof& roof, MemberId id, double pressure, LoadCase& lc) const;
+    /// A pressure `pressure_at(x)`, linear in x, over the part of a member between two
+    /// x on the horizontal projection, cut where the part crosses the member's ends.
+    template <typename Pressure>
+    void load_between(const Roof& roof, MemberId id, double x_from, double x_to,
+                      Pressure pressure_at, LoadCase& lc) const {
+        const Member& mem = m_.members[at(id)];
+        double xs = m_.nodes[at(mem.start)].x, xe = m_.nodes[at(mem.end)].x;
+        double lo = std::max(std::min(xs, xe), x_from), hi = std::min(std::max(xs, xe), x_to);
+        double pa = pressure_at(lo), pb = pressure_at(hi);
+        if (!(hi - lo > 1e-9) || (pa == 0.0 && pb == 0.0))
+            return;
+        // Positions are measured from the start node, which may be the right end.
+        double a = std::abs(lo - xs), b = std::abs(hi - xs);
+        if (a > b) {
+            std::swap(a, b);
+            std::swap(pa, pb);
+        }
+        DistributedLoad load;
+        load.member = id;
+        load.direction = LoadDirection::down;
+        load.projected = true;
+        load.start = a;
+        load.end = b;
+        load.w_start = pa * roof.tributary;
+        load.w_end = pb * roof.tributary;
+        load.where = roof.where;
+        lc.distributed.push_back(load);
+    }
     void load_part(const Roof& roof, MemberId id, double x_from, double x_to, double pressure,
                    LoadCase& lc) const;
     LoadCase& case_named(const char* what);
@@ -480,38 +508,14 @@ void SnowDeriver::load_members(const Roof& roof, const std::vector<MemberId>& me
 }
 
 void SnowDeriver::load_member(const Roof& roof, MemberId id, double p, LoadCase& lc) const {
-    if (p == 0.0)
-        return;
-    DistributedLoad load;
-    load.member = id;
-    load.direction = LoadDirection::down;
-    load.projected = true;
-    load.start = 0.0;
-    load.end = geometry_of(m_, id).run;
-    load.w_start = load.w_end = p * roof.tributary;
-    load.where = roof.where;
-    lc.distributed.push_back(load);
+    load_between(
+        roof, id, -INFINITY, INFINITY, [p](double) { return p; }, lc);
 }
 
-/// A uniform pressure over the part of a member between two x (on the
-/// horizontal projection), cut where the part crosses the member's ends.
 void SnowDeriver::load_part(const Roof& roof, MemberId id, double x_from, double x_to, double p,
                             LoadCase& lc) const {
-    const Member& mem = m_.members[at(id)];
-    double xs = m_.nodes[at(mem.start)].x, xe = m_.nodes[at(mem.end)].x;
-    double lo = std::max(std::min(xs, xe), x_from), hi = std::min(std::max(xs, xe), x_to);
-    if (!(hi - lo > 1e-9) || p == 0.0)
-        return;
-    DistributedLoad load;
-    load.member = id;
-    load.direction = LoadDirection::down;
-    load.projected = true;
-    double a = std::abs(lo - xs), b = std::abs(hi - xs);
-    load.start = std::min(a, b);
-    load.end = std::max(a, b);
-    load.w_start = load.w_end = p * roof.tributary;
-    load.where = roof.where;
-    lc.distributed.push_back(load);
+    load_between(
+        roof, id, x_from, x_to, [p](double) { return p; }, lc);
 }
 
 LoadCase& SnowDeriver::case_named(const char* what) {
@@ -727,29 +731,8 @@ void SnowDeriver::drift_load(const Roof& roof, double wall_x, double toward, dou
     auto intensity = [&](double x) { return pd * std::max(0.0, 1.0 - std::abs(x - wall_x) / w); };
     double far = wall_x + toward * w;
     double lo_drift = std::min(wall_x, far), hi_drift = std::max(wall_x, far);
-    for (MemberId id : roof.members) {
-        const Member& mem = m_.members[at(id)];
-        double xs = m_.nodes[at(mem.start)].x, xe = m_.nodes[at(mem.end)].x;
-        double lo = std::max(std::min(xs, xe), lo_drift), hi = std::min(std::max(xs, xe), hi_drift);
-        if (!(hi - lo > 1e-9))
-            continue;
-        DistributedLoad load;
-        load.member = id;
-        load.direction = LoadDirection::down;
-        load.projected = true;
-        double a = std::abs(lo - xs), b = std::abs(hi - xs);
-        double pa = intensity(lo), pb = intensity(hi);
-        if (a > b) {
-            std::swap(a, b);
-            std::swap(pa, pb);
-        }
-        load.start = a;
-        load.end = b;
-        load.w_start = pa * roof.tributary;
-        load.w_end = pb * roof.tributary;
-        load.where = roof.where;
-        lc.distributed.push_back(load);
-    }
+    for (MemberId id : roof.members)
+        load_between(roof, id, lo_drift, hi_drift, intensity, lc);
 }
 
 LoadCase SnowDeriver::new_case(const char* what) const {
