@@ -19,7 +19,7 @@ struct errors {
 #define FIRN_ERROR(rule, text) \
     template <> inline constexpr const char* errors::message<rule> = text;
 
-FIRN_ERROR(unknown_statement, "expected a statement (model, use, let, report, grid, node, material, section, member, columns, beams, rafters, group, support, case, snow, roof or amend)")
+FIRN_ERROR(unknown_statement, "expected a statement (model, use, let, report, grid, node, material, section, member, columns, beams, rafters, group, support, case, snow, roof, projection or amend)")
 FIRN_ERROR(end_of_statement, "expected the end of the statement (a new line or ';')")
 FIRN_ERROR(title, "expected the model title in double quotes, as in: model \"Frame on line 3\"")
 FIRN_ERROR(one<'"'>, "expected '\"' to close the text on this line")
@@ -108,6 +108,9 @@ FIRN_ERROR(roof_name, "expected a roof name, as in: roof main on eave.* {")
 FIRN_ERROR(roof_on, "expected 'on' and the roof's members, as in: roof main on eave.* {")
 FIRN_ERROR(roof_members, "expected the roof's members, a group or a pattern such as eave.*")
 FIRN_ERROR(roof_member, "expected a member, a group or a pattern such as eave.*")
+FIRN_ERROR(projection_name, "expected a name for the projection, as in: projection unit on main {")
+FIRN_ERROR(projection_on, "expected 'on' and the roof it stands on, as in: projection unit on main {")
+FIRN_ERROR(projection_roof, "expected the name of the roof the projection stands on")
 FIRN_ERROR(amend_name, "expected the name of the library value to amend")
 
 #undef FIRN_ERROR

@@ -75,6 +75,7 @@ struct kw_rectangle : TAO_PEGTL_KEYWORD("rectangle") {};
 struct kw_report : TAO_PEGTL_KEYWORD("report") {};
 struct kw_roller : TAO_PEGTL_KEYWORD("roller") {};
 struct kw_roof : TAO_PEGTL_KEYWORD("roof") {};
+struct kw_projection : TAO_PEGTL_KEYWORD("projection") {};
 struct kw_rotation : TAO_PEGTL_KEYWORD("rotation") {};
 struct kw_section : TAO_PEGTL_KEYWORD("section") {};
 struct kw_self : TAO_PEGTL_KEYWORD("self") {};
@@ -513,6 +514,15 @@ struct roof_on : kw_on {};
 struct roof_stmt : if_must<roof_begin, sp, roof_name, sp, roof_on, sp, roof_members, sp,
                            settings_block> {};
 
+// projection_stmt <- 'projection' sp name sp 'on' sp name sp '{' ... '}'
+//                a rooftop unit or penthouse standing on a roof (drifts of Sec. 7.8)
+struct projection_begin : kw_projection {};
+struct projection_name : name {};
+struct projection_on : kw_on {};
+struct projection_roof : name {};
+struct projection_stmt : if_must<projection_begin, sp, projection_name, sp, projection_on, sp,
+                                 projection_roof, sp, settings_block> {};
+
 // amend_stmt  <- 'amend' sp name sp '=' sp expr sp 'because' sp quoted
 //                replaces a value of the library, with the reason
 struct amend_name : name {};
@@ -523,7 +533,7 @@ struct unknown_statement : failure {};
 struct statement : sor<model_stmt, use_stmt, let_stmt, report_stmt, grid_stmt, node_stmt,
                        material_stmt, section_stmt, member_stmt, columns_stmt, beams_stmt,
                        rafters_stmt, group_stmt, support_stmt, case_stmt, snow_stmt, roof_stmt,
-                       amend_stmt,
+                       projection_stmt, amend_stmt,
                        raise<unknown_statement>> {};
 struct statement_line : seq<statement, sp, must<end_of_statement>> {};
 struct top_item : seq<not_at<eof>, recover<statement_line, skip_statement>, sp_nl> {};

@@ -27,7 +27,8 @@ inline constexpr std::array<std::string_view, 56> keywords{
 
 /// Words that are keywords only where the grammar expects them, and otherwise
 /// free for names: `roof` starts `roof live`, but engineers name levels "roof";
-/// `plan` follows `grid` only.
-inline constexpr std::array<std::string_view, 2> contextual_keywords{"plan", "roof"};
+/// `plan` follows `grid` only; `projection` starts a statement only.
+inline constexpr std::array<std::string_view, 3> contextual_keywords{"plan", "projection",
+                                                                          "roof"};
 
 }  // namespace firn::grammar

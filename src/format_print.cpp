@@ -603,7 +603,7 @@ void Printer::print(const syntax::SnowDecl& s) {
 }
 
 void Printer::print(const syntax::RoofDecl& r) {
-    word("roof");
+    word(r.projection ? "projection" : "roof");
     name(r.name);
     word("on");
     names(r.members);

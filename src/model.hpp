@@ -174,6 +174,8 @@ struct SnowTables {
     double drift_pg_offset = 0.0;      ///< Pa
     double drift_offset = 0.0;         ///< m
     double drift_min_lu = 0.0;         ///< m
+    double adjacent_max_gap = 0.0;     ///< m: a drift from an adjacent structure below this gap
+    double projection_min_face = 0.0;  ///< m: no drift on a shorter side of a projection
     double unbalanced_min_rise = 0.0;  ///< rise per run from which unbalanced loads apply
     double unbalanced_max_rise = 0.0;
     double unbalanced_windward = 0.0;  ///< windward load / ps
@@ -222,6 +224,10 @@ struct Roof {
         double parapet = 0.0;       ///< m: the parapet's height above this roof (0: none)
         std::string sliding_from;   ///< a higher roof whose snow may slide onto this end
         SourceRange sliding_where;
+        /// A separate, higher structure beyond a gap (Sec. 7.7.2); 0: none.
+        double adjacent = 0.0;         ///< m: its roof edge above this roof (h)
+        double adjacent_gap = 0.0;     ///< m: the horizontal gap between the two (s)
+        double adjacent_length = 0.0;  ///< m: its roof's length, upwind of the gap
     };
     Edge left, right;
     /// How the tributary width was found: given, or from the plan grid.
@@ -231,6 +237,19 @@ struct Roof {
         double right_bay = 0.0;  ///< m
         double overhang = 0.0;   ///< m, beyond an end frame
     } tributary_from;
+    SourceRange where;
+};
+
+/// A rooftop unit or penthouse standing on a roof (a `projection` statement),
+/// seen in the frame's plane: where it stands, how wide and high it is, and
+/// the length of its faces across the frame.
+struct Projection {
+    std::string name;
+    std::size_t roof = 0;      ///< index into Model::roofs
+    double left_face = 0.0;    ///< m: horizontally from the roof's left end to its left face
+    double width = 0.0;        ///< m: in the frame's plane
+    double face_length = 0.0;  ///< m: its faces' length across the frame
+    double height = 0.0;       ///< m: above the roof
     SourceRange where;
 };
 
@@ -267,6 +286,7 @@ struct Model {
     std::vector<LoadCase> cases;
     std::optional<SnowSite> snow;
     std::vector<Roof> roofs;
+    std::vector<Projection> projections;
     std::vector<Amendment> amendments;
     std::vector<TraceLine> snow_trace;  ///< filled by derive_snow
 };

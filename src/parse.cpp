@@ -159,8 +159,8 @@ bool starts_line(const char* at, const char* begin) {
 
 /// True if the text at `at` begins with a keyword that starts a top-level statement.
 bool starts_statement(const char* at, const char* end) {
-    static constexpr std::array<std::string_view, 18> words{
-        "snow",    "roof",  "amend",   "model",    "use",     "let",
+    static constexpr std::array<std::string_view, 19> words{
+        "snow",    "roof",  "projection", "amend",   "model",    "use",     "let",
         "report",  "grid",  "node",    "material", "section", "member",
         "columns", "beams", "rafters", "group",    "support", "case"};
     for (std::string_view w : words) {
@@ -1070,7 +1070,9 @@ struct action<g::block_open> {
         b.block_line = b.range(in).begin.line;
         b.block_open = in.begin();
         b.block_kind = std::holds_alternative<syntax::SnowDecl>(b.statement->node)   ? "snow"
-                       : std::holds_alternative<syntax::RoofDecl>(b.statement->node) ? "roof"
+                       : std::holds_alternative<syntax::RoofDecl>(b.statement->node)
+                           ? (std::get<syntax::RoofDecl>(b.statement->node).projection ? "projection"
+                                                                                        : "roof")
                                                                                      : "case";
         b.block_close_reported = false;
     }
@@ -1093,7 +1095,18 @@ struct action<g::snow_name> : store_name<&syntax::SnowDecl::name> {};
 template <>
 struct action<g::roof_begin> : begin_statement<syntax::RoofDecl> {};
 template <>
+struct action<g::projection_begin> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        action<g::roof_begin>::apply(in, b);
+        b.current<syntax::RoofDecl>().projection = true;
+    }
+};
+template <>
 struct action<g::roof_name> : store_name<&syntax::RoofDecl::name> {};
+template <>
+struct action<g::projection_name> : store_name<&syntax::RoofDecl::name> {};
+
 template <>
 struct action<g::roof_member> {
     template <typename Input>
@@ -1101,6 +1114,8 @@ struct action<g::roof_member> {
         b.current<syntax::RoofDecl>().members.push_back(b.name(in));
     }
 };
+template <>
+struct action<g::projection_roof> : action<g::roof_member> {};
 
 template <>
 struct action<g::setting_key> : action<g::grid_line_name> {};

@@ -170,6 +170,7 @@ struct Collected {
     std::vector<const syntax::GroupDecl*> groups;
     std::vector<const syntax::SnowDecl*> snow;
     std::vector<const syntax::RoofDecl*> roofs;
+    std::vector<const syntax::RoofDecl*> projections;
     std::vector<const syntax::AmendDecl*> amends;
     std::vector<const syntax::Statement*> snow_statements;
     std::vector<const syntax::SupportDecl*> supports;
@@ -210,7 +211,7 @@ Collected collect(std::span<const syntax::Tree> trees) {
                         c.snow_statements.push_back(&s);
                     }
                     if constexpr (std::is_same_v<T, syntax::RoofDecl>)
-                        c.roofs.push_back(&node);
+                        (node.projection ? c.projections : c.roofs).push_back(&node);
                     if constexpr (std::is_same_v<T, syntax::AmendDecl>)
                         c.amends.push_back(&node);
                     if constexpr (std::is_same_v<T, syntax::SupportDecl>)
@@ -672,7 +673,7 @@ Model resolve(std::span<const syntax::Tree> trees, Diagnostics& diagnostics) {
     resolve_groups(r, c.groups);
     resolve_supports(r, c);
     resolve_cases(r, c.cases);
-    resolve_snow(r, c.snow, c.roofs, c.amends, c.snow_statements);
+    resolve_snow(r, c.snow, c.roofs, c.projections, c.amends, c.snow_statements);
     check_whole_model(r, c);
     return std::move(r.model);
 }

@@ -162,6 +162,7 @@ void resolve_groups(Resolver& r, const std::vector<const syntax::GroupDecl*>& gr
 /// Reads the `snow`, `roof` and `amend` statements into r.model.
 void resolve_snow(Resolver& r, const std::vector<const syntax::SnowDecl*>& snow,
                   const std::vector<const syntax::RoofDecl*>& roofs,
+                  const std::vector<const syntax::RoofDecl*>& projections,
                   const std::vector<const syntax::AmendDecl*>& amends,
                   const std::vector<const syntax::Statement*>& snow_statements);
 

@@ -159,6 +159,8 @@ SnowTables read_tables(Library& lib) {
     t.drift_pg_offset = lib.need("drift.pg_offset", dim::pressure);
     t.drift_offset = lib.need("drift.offset", dim::length);
     t.drift_min_lu = lib.need("drift.min_lu", dim::length);
+    t.adjacent_max_gap = lib.need("adjacent.max_gap", dim::length);
+    t.projection_min_face = lib.need("projection.min_face", dim::length);
     t.unbalanced_min_rise = lib.need("unbalanced.min_rise", dim::number);
     t.unbalanced_max_rise = lib.need("unbalanced.max_rise", dim::number);
     t.unbalanced_windward = lib.need("unbalanced.windward", dim::number);
@@ -434,40 +436,77 @@ bool positive_length(Resolver& r, Settings& s, const std::string& key, double& o
     return false;
 }
 
-/// A roof step or parapet at one end of the roof (`step_left = 8 ft`, ...).
+/// Settings that describe one thing together: all given or none. False after an error.
+bool all_or_none(Resolver& r, Settings& s, const std::vector<std::string>& keys,
+                 const char* what) {
+    std::size_t given = 0;
+    for (const std::string& key : keys)
+        given += s.find(key) != nullptr ? 1U : 0U;
+    if (given == 0 || given == keys.size())
+        return true;
+    auto first = std::find_if(keys.begin(), keys.end(),
+                              [&](const std::string& k) { return s.find(k) != nullptr; });
+    r.diagnostics.error(s.find(*first)->key.where,
+                        fmt::format("{} needs all of {}", what, fmt::join(keys, ", ")));
+    return false;
+}
+
+/// At most one of the things that can stand at one end of a roof.
+bool one_at_an_end(Resolver& r, Settings& s, const char* side,
+                   const std::vector<std::string>& keys) {
+    const syntax::Setting* first = nullptr;
+    for (const std::string& key : keys) {
+        const syntax::Setting* given = s.find(key);
+        if (given == nullptr)
+            continue;
+        if (first == nullptr) {
+            first = given;
+            continue;
+        }
+        Diagnostic& d = r.diagnostics.error(
+            given->key.where, fmt::format("the {} end already has {}; one of {} at an end", side,
+                                          first->key.text, fmt::join(keys, ", ")));
+        d.note(first->key.where, "given here");
+        return false;
+    }
+    return true;
+}
+
+/// The roof snow slides onto this end from, if any; false after an error.
+bool read_sliding(Resolver& r, Settings& s, const char* side, Roof::Edge& edge) {
+    const syntax::Setting* from = s.find(fmt::format("sliding_from_{}", side));
+    if (from == nullptr)
+        return true;
+    if (from->value.kind != syntax::Expr::Kind::constant) {
+        r.diagnostics.error(from->value.where,
+                            "sliding_from names the roof the snow slides "
+                            "from, as in: sliding_from_left = upper");
+        return false;
+    }
+    edge.sliding_from = from->value.literal;
+    edge.sliding_where = from->value.where;
+    return true;
+}
+
+/// What stands at one end of the roof: a step up to a higher roof (`step_left = 8 ft`
+/// with `step_left_upper_length`), a parapet, or a separate higher structure beyond a
+/// gap (`adjacent_left = 12 ft` with `_gap` and `_length`).
 bool read_edge(Resolver& r, Settings& s, const char* side, Roof::Edge& edge) {
     std::string step = fmt::format("step_{}", side);
     std::string upper = fmt::format("step_{}_upper_length", side);
     std::string parapet = fmt::format("parapet_{}", side);
-    if (const syntax::Setting* from = s.find(fmt::format("sliding_from_{}", side))) {
-        if (from->value.kind == syntax::Expr::Kind::constant) {
-            edge.sliding_from = from->value.literal;
-            edge.sliding_where = from->value.where;
-        } else {
-            r.diagnostics.error(from->value.where,
-                                "sliding_from names the roof the snow slides "
-                                "from, as in: sliding_from_left = upper");
-            return false;
-        }
-    }
-    bool ok = positive_length(r, s, step, edge.step) &&
-              positive_length(r, s, upper, edge.upper_length) &&
-              positive_length(r, s, parapet, edge.parapet);
-    if (ok && (s.find(step) != nullptr) != (s.find(upper) != nullptr)) {
-        const syntax::Setting* given = s.find(step) != nullptr ? s.find(step) : s.find(upper);
-        r.diagnostics.error(given->key.where,
-                            fmt::format("a roof step needs both its height and the upper roof's "
-                                        "length: {} and {}",
-                                        step, upper));
-        ok = false;
-    }
-    if (ok && s.find(step) != nullptr && s.find(parapet) != nullptr) {
-        r.diagnostics.error(
-            s.find(parapet)->key.where,
-            fmt::format("the {} end has a step; a parapet there is not supported", side));
-        ok = false;
-    }
-    return ok;
+    std::string adjacent = fmt::format("adjacent_{}", side);
+    std::string gap = fmt::format("adjacent_{}_gap", side);
+    std::string adjacent_length = fmt::format("adjacent_{}_length", side);
+    bool ok = read_sliding(r, s, side, edge) & positive_length(r, s, step, edge.step) &
+              positive_length(r, s, upper, edge.upper_length) &
+              positive_length(r, s, parapet, edge.parapet) &
+              positive_length(r, s, adjacent, edge.adjacent) &
+              positive_length(r, s, gap, edge.adjacent_gap) &
+              positive_length(r, s, adjacent_length, edge.adjacent_length);
+    return ok && all_or_none(r, s, {step, upper}, "a roof step") &&
+           all_or_none(r, s, {adjacent, gap, adjacent_length}, "an adjacent structure") &&
+           one_at_an_end(r, s, side, {step, parapet, adjacent});
 }
 
 void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
@@ -487,7 +526,9 @@ void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
         r, decl.settings,
         {"tributary", "frame", "overhang", "surface", "insulation", "ventilated", "rafter_spans",
          "step_left", "step_left_upper_length", "step_right", "step_right_upper_length",
-         "parapet_left", "parapet_right", "sliding_from_left", "sliding_from_right"},
+         "parapet_left", "parapet_right", "sliding_from_left", "sliding_from_right",
+         "adjacent_left", "adjacent_left_gap", "adjacent_left_length", "adjacent_right",
+         "adjacent_right_gap", "adjacent_right_length"},
         fmt::format("roof '{}'", decl.name.text).c_str());
     Roof roof;
     roof.name = decl.name.text;
@@ -518,6 +559,63 @@ void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
 }  // namespace
 
 namespace {
+
+/// The horizontal extent of a resolved roof (m).
+std::pair<double, double> roof_extent(const Model& m, const Roof& roof) {
+    double lo = INFINITY, hi = -INFINITY;
+    for (MemberId id : roof.members) {
+        for (NodeId n : {m.members[at(id)].start, m.members[at(id)].end}) {
+            lo = std::min(lo, m.nodes[at(n)].x);
+            hi = std::max(hi, m.nodes[at(n)].x);
+        }
+    }
+    return {lo, hi};
+}
+
+/// `projection unit on main { left_face = ..., width = ..., face_length = ..., height = ... }`
+void resolve_projection(Resolver& r, const syntax::RoofDecl& decl, const NameTable& roof_names,
+                        NameTable& names) {
+    Settings s(r, decl.settings, {"left_face", "width", "face_length", "height"},
+               fmt::format("projection '{}'", decl.name.text).c_str());
+    Projection p;
+    p.name = decl.name.text;
+    p.where = decl.name.where;
+    bool ok = names.add(decl.name, r.diagnostics);
+    for (const char* key : {"left_face", "width", "face_length", "height"}) {
+        if (s.find(key) == nullptr) {
+            r.diagnostics.error(decl.name.where,
+                                fmt::format("projection '{}' needs its {}", p.name, key));
+            ok = false;
+        }
+    }
+    bool values_ok = s.value("left_face", expect::length, p.left_face) &
+                     positive_length(r, s, "width", p.width) &
+                     positive_length(r, s, "face_length", p.face_length) &
+                     positive_length(r, s, "height", p.height);
+    ok = ok && values_ok;
+    const syntax::Name& roof_name = decl.members.front();
+    auto roof = std::find_if(r.model.roofs.begin(), r.model.roofs.end(),
+                             [&](const Roof& x) { return x.name == roof_name.text; });
+    if (roof == r.model.roofs.end()) {
+        if (!roof_names.find_quietly(roof_name.text))
+            roof_names.find(roof_name, r.diagnostics);  // reports the unknown roof
+        return;  // a roof that failed has its own error
+    }
+    auto [lo, hi] = roof_extent(r.model, *roof);
+    if (ok && (p.left_face < 0.0 || p.left_face + p.width > hi - lo + 1e-9)) {
+        r.diagnostics.error(s.find("left_face")->value.where,
+                            fmt::format("projection '{}' does not stand on roof '{}': it must "
+                                        "lie within the roof's horizontal length, {}",
+                                        p.name, roof->name,
+                                        fmt::format("{:g} {}", r.model.units.length.from_si(hi - lo),
+                                                    r.model.units.length.name)));
+        ok = false;
+    }
+    if (!ok)
+        return;
+    p.roof = static_cast<std::size_t>(roof - r.model.roofs.begin());
+    r.model.projections.push_back(std::move(p));
+}
 
 /// A roof that snow slides from must be another roof of the model.
 void check_sliding_sources(Resolver& r, const NameTable& names) {
@@ -562,6 +660,7 @@ void record_amendments(Resolver& r, const std::vector<const syntax::AmendDecl*>&
 
 void resolve_snow(Resolver& r, const std::vector<const syntax::SnowDecl*>& snow,
                   const std::vector<const syntax::RoofDecl*>& roofs,
+                  const std::vector<const syntax::RoofDecl*>& projections,
                   const std::vector<const syntax::AmendDecl*>& amends,
                   const std::vector<const syntax::Statement*>& snow_statements) {
     record_amendments(r, amends);
@@ -584,6 +683,9 @@ void resolve_snow(Resolver& r, const std::vector<const syntax::SnowDecl*>& snow,
         }
     }
     check_sliding_sources(r, names);
+    NameTable projection_names{"projection"};
+    for (const syntax::RoofDecl* decl : projections)
+        resolve_projection(r, *decl, names, projection_names);
 }
 
 }  // namespace firn::resolve_detail

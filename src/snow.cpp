@@ -1,54 +1,18 @@
 // snow: ASCE 7-16 Chapter 7, the formulas. The standard's numbers come from
 // its library module (model.snow->tables); every value derived here is
 // written to the trace with its formula, the values put in and its clause.
+// Drifts and sliding snow are in snow_drift.cpp.
 #include "snow.hpp"
 
-#include <fmt/format.h>
-#include <algorithm>
-#include <cmath>
-#include <numbers>
+#include "snow_internal.hpp"
 
 namespace firn {
-namespace {
+namespace snow_detail {
 
-constexpr double kDegree = std::numbers::pi / 180.0;
-constexpr double kFoot = 0.3048;                                           // m, exact
-constexpr double kPoundPerSquareFoot = 4.4482216152605 / (kFoot * kFoot);  // Pa, exact
-/// Slopes closer than this are one slope (rad): members of one roof plane.
-constexpr double kSameSlope = 1e-6;
-
-/// Clauses whose values were entered from memory (see stdlib/asce7_16.firn);
-/// the trace marks them so a reviewer verifies them against the printed standard.
-bool from_memory(std::string_view clause) {
-    for (std::string_view c :
-         {"Table 7.3-1", "Table 1.5-2", "Sec. 7.3.4", "Sec. 7.10", "Fig. 7.4-1a", "Fig. 7.4-1b",
-          "Fig. 7.4-1c", "Sec. 7.4.1", "Sec. 7.6.1", "Fig. 7.6-2", "Fig. 7.6-1", "Sec. 7.7.1",
-          "Sec. 7.8", "Sec. 7.4.5", "Sec. 7.9"}) {
-        if (clause.ends_with(c))
-            return true;
-    }
-    return false;
-}
-
-/// Which curve of Fig. 7.4-1 a thermal factor selects: warm, cold ventilated, cold.
 std::size_t curve_of(double Ct) {
     return Ct <= 1.0 + 1e-9 ? 0 : (Ct < 1.2 - 1e-9 ? 1 : 2);
 }
 
-/// Cs on a curve that is 1 up to its knee and falls linearly to 0 at `zero`.
-double on_curve(double knee, double zero, double slope) {
-    if (slope <= knee)
-        return 1.0;
-    if (slope >= zero)
-        return 0.0;
-    return 1.0 - (slope - knee) / (zero - knee);
-}
-
-/// The slope of a member from horizontal (rad) and its horizontal length (m).
-struct Geometry {
-    double slope;
-    double run;
-};
 
 Geometry geometry_of(const Model& m, MemberId id) {
     const Member& member = m.members[at(id)];
@@ -57,13 +21,6 @@ Geometry geometry_of(const Model& m, MemberId id) {
     double run = std::abs(b.x - a.x);
     return Geometry{std::atan2(std::abs(b.y - a.y), run), run};
 }
-
-/// A roof's horizontal extent and its ridge (its highest node strictly between
-/// its ends), if it has one.
-struct RoofShape {
-    double left = INFINITY, right = -INFINITY;
-    std::optional<double> ridge;
-};
 
 RoofShape shape_of(const Model& m, const Roof& roof) {
     RoofShape shape;
@@ -84,133 +41,38 @@ RoofShape shape_of(const Model& m, const Roof& roof) {
     return shape;
 }
 
-/// W for rain-on-snow: the horizontal distance from an eave to the ridge, or
-/// the whole run of a roof without one.
 double eave_to_ridge(const RoofShape& shape) {
     if (!shape.ridge)
         return shape.right - shape.left;
     return std::max(*shape.ridge - shape.left, shape.right - *shape.ridge);
 }
 
-class SnowDeriver {
-  public:
-    SnowDeriver(Model& m, Diagnostics& d)
-        : m_(m), d_(d), site_(*m.snow), t_(m.snow->tables), u_(m.units) {}
+namespace {
 
-    void run() {
-        trace_site();
-        LoadCase balanced = new_case("balanced");
-        LoadCase minimum = new_case("minimum");
-        for (const Roof& roof : m_.roofs)
-            derive_roof(roof, balanced, minimum);
-        add_case(std::move(balanced));
-        if (!minimum.distributed.empty())
-            add_case(std::move(minimum));
-        for (LoadCase& lc : unbalanced_cases_)
-            add_case(std::move(lc));
-        if (!ice_dam_.distributed.empty())
-            add_case(std::move(ice_dam_));
-        for (LoadCase& lc : drift_cases_) {
-            // A drift rides on the balanced load of every roof (without rain-on-snow).
-            lc.distributed.insert(lc.distributed.begin(), plain_balanced_.distributed.begin(),
-                                  plain_balanced_.distributed.end());
-            add_case(std::move(lc));
-        }
-        mark_unverified();
-    }
+/// Cs on a curve that is 1 up to its knee and falls linearly to 0 at `zero`.
+double on_curve(double knee, double zero, double slope) {
+    if (slope <= knee)
+        return 1.0;
+    if (slope >= zero)
+        return 0.0;
+    return 1.0 - (slope - knee) / (zero - knee);
+}
 
-  private:
-    Model& m_;
-    Diagnostics& d_;
-    const SnowSite& site_;
-    const SnowTables& t_;
-    const DisplayUnits& u_;
-    double pf_ = 0.0;
+/// Clauses whose values were entered from memory (see stdlib/asce7_16.firn);
+/// the trace marks them so a reviewer verifies them against the printed standard.
+bool from_memory(std::string_view clause) {
+    for (std::string_view c :
+         {"Table 7.3-1", "Table 1.5-2", "Sec. 7.3.4", "Sec. 7.10", "Fig. 7.4-1a", "Fig. 7.4-1b",
+          "Fig. 7.4-1c", "Sec. 7.4.1", "Sec. 7.6.1", "Fig. 7.6-2", "Fig. 7.6-1", "Sec. 7.7.1",
+          "Sec. 7.8", "Sec. 7.7.2", "Sec. 7.4.5", "Sec. 7.9"}) {
+        if (clause.ends_with(c))
+            return true;
+    }
+    return false;
+}
 
-    std::string pressure(double pa) const {
-        return fmt::format("{:.{}f} {}", u_.pressure.from_si(pa), u_.pressure.decimals,
-                           u_.pressure.name);
-    }
-    std::string length(double m) const {
-        return fmt::format("{:.{}f} {}", u_.length.from_si(m), u_.length.decimals, u_.length.name);
-    }
-    std::string line_load(double n_per_m) const {
-        return fmt::format("{:.{}f} {}", u_.force_per_length.from_si(n_per_m),
-                           u_.force_per_length.decimals, u_.force_per_length.name);
-    }
-    static std::string degrees(double rad) { return fmt::format("{:.2f} deg", rad / kDegree); }
-    static std::string factor(double v) { return fmt::format("{:.2f}", v); }
+}  // namespace
 
-    void line(std::string text, std::string clause = "") {
-        m_.snow_trace.push_back(TraceLine{std::move(text), std::move(clause), false});
-    }
-    void heading(std::string text) {
-        m_.snow_trace.push_back(TraceLine{std::move(text), "", true});
-    }
-
-    void trace_site();
-    void trace_factor(const char* symbol, const SnowFactor& f, const std::string& basis);
-    void derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& minimum);
-    void unbalanced(const Roof& roof, const std::vector<double>& ps, double steepest);
-    void unbalanced_case(const Roof& roof, const std::vector<double>& ps, bool wind_from_left,
-                         const RoofShape& shape);
-    std::vector<LoadCase> unbalanced_cases_;
-    std::vector<LoadCase> drift_cases_;
-    LoadCase plain_balanced_;  ///< ps on every roof, for the drift cases
-    LoadCase ice_dam_;         ///< 2 pf on eave overhangs (combined with dead load only)
-    void drift_at(const Roof& roof, double ps, bool left_end);
-    void sliding_onto(const Roof& roof, bool left_end);
-    void ice_dam(const Roof& roof);
-    std::vector<MemberId> overhangs(const Roof& roof) const;
-    void drift_load(const Roof& roof, double wall_x, double toward, double w, double pd,
-                    LoadCase& lc) const;
-    double slope_factor(const Roof& roof, double slope, const std::string& members);
-    double rain_on_snow(double slope, double W);
-    double minimum_load(double slope);
-    LoadCase new_case(const char* what) const;
-    void add_case(LoadCase lc);
-    void load_members(const Roof& roof, const std::vector<MemberId>& members, double pressure,
-                      LoadCase& lc) const;
-    void load_member(const Roof& roof, MemberId id, double pressure, LoadCase& lc) const;
-    /// A pressure `pressure_at(x)`, linear in x, over the part of a member between two
-    /// x on the horizontal projection, cut where the part crosses the member's ends.
-    template <typename Pressure>
-    void load_between(const Roof& roof, MemberId id, double x_from, double x_to,
-                      Pressure pressure_at, LoadCase& lc) const {
-        const Member& mem = m_.members[at(id)];
-        double xs = m_.nodes[at(mem.start)].x, xe = m_.nodes[at(mem.end)].x;
-        double lo = std::max(std::min(xs, xe), x_from), hi = std::min(std::max(xs, xe), x_to);
-        double pa = pressure_at(lo), pb = pressure_at(hi);
-        if (!(hi - lo > 1e-9) || (pa == 0.0 && pb == 0.0))
-            return;
-        // Positions are measured from the start node, which may be the right end.
-        double a = std::abs(lo - xs), b = std::abs(hi - xs);
-        if (a > b) {
-            std::swap(a, b);
-            std::swap(pa, pb);
-        }
-        DistributedLoad load;
-        load.member = id;
-        load.direction = LoadDirection::down;
-        load.projected = true;
-        load.start = a;
-        load.end = b;
-        load.w_start = pa * roof.tributary;
-        load.w_end = pb * roof.tributary;
-        load.where = roof.where;
-        lc.distributed.push_back(load);
-    }
-    void load_part(const Roof& roof, MemberId id, double x_from, double x_to, double pressure,
-                   LoadCase& lc) const;
-    LoadCase& case_named(const char* what);
-    void trace_density(double gamma);
-    void trace_drift(double lu, double hd, const char* lu_is);
-    std::string density(double n_per_m3) const {
-        return fmt::format("{:.{}f} {}", u_.unit_weight.from_si(n_per_m3), u_.unit_weight.decimals,
-                           u_.unit_weight.name);
-    }
-    void mark_unverified();
-};
 
 void SnowDeriver::trace_site() {
     heading(fmt::format("Snow data {}: {}, Chapter 7", site_.name, "ASCE 7-16"));
@@ -403,6 +265,8 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
     unbalanced(roof, ps_of, steepest);
     drift_at(roof, ps_of.front(), true);
     drift_at(roof, ps_of.back(), false);
+    adjacent_drift(roof, ps_of.front(), true);
+    adjacent_drift(roof, ps_of.back(), false);
     sliding_onto(roof, true);
     sliding_onto(roof, false);
     ice_dam(roof);
@@ -413,6 +277,11 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
             "projection",
             site_.name, pressure(pm), length(roof.tributary), line_load(pm * roof.tributary)));
         load_members(roof, roof.members, pm, minimum);
+    }
+    // Last: each projection opens a part of the trace of its own.
+    for (const Projection& p : m_.projections) {
+        if (&m_.roofs[p.roof] == &roof)
+            projection_drifts(p, ps_of);
     }
 }
 
@@ -528,142 +397,6 @@ LoadCase& SnowDeriver::case_named(const char* what) {
     return unbalanced_cases_.back();
 }
 
-void SnowDeriver::trace_density(double gamma) {
-    line(fmt::format("gamma = {:g} pg + {} = {:g} x {} + {} = {} (at most {})",
-                     t_.density_per_pg * kFoot, density(t_.density_base), t_.density_per_pg * kFoot,
-                     pressure(site_.pg), density(t_.density_base), density(gamma),
-                     density(t_.density_max)),
-         "ASCE 7-16 Eq. 7.7-1");
-}
-
-/// The drift height line, with the formula in its own units (ft and psf).
-void SnowDeriver::trace_drift(double lu, double hd, const char* lu_is) {
-    double used = std::max(lu, t_.drift_min_lu);
-    line(fmt::format("hd = {:g} lu^(1/3) (pg + {:g})^(1/4) - {:g} (ft, psf) with lu = {} = {} "
-                     "(at least {:g} ft): {:g} x {:.3f}^(1/3) x {:.3f}^(1/4) - {:g} = {:.3f} ft",
-                     t_.drift_coefficient, t_.drift_pg_offset / kPoundPerSquareFoot,
-                     t_.drift_offset / kFoot, lu_is, length(lu), t_.drift_min_lu / kFoot,
-                     t_.drift_coefficient, used / kFoot,
-                     (site_.pg + t_.drift_pg_offset) / kPoundPerSquareFoot, t_.drift_offset / kFoot,
-                     hd / kFoot),
-         "ASCE 7-16 Fig. 7.6-1");
-}
-
-/// A drift at a step or parapet at one end of a roof (Sec. 7.7.1, 7.8): the
-/// larger of the leeward and windward heights at a step, 0.75 hd at a parapet;
-/// width 4 hd, or 4 hd^2/hc with the height cut to hc; at most 8 hc; a triangle
-/// from the wall, cut at the roof's far end when it is wider than the roof.
-void SnowDeriver::drift_at(const Roof& roof, double ps, bool left_end) {
-    const Roof::Edge& edge = left_end ? roof.left : roof.right;
-    if (edge.step == 0.0 && edge.parapet == 0.0)
-        return;
-    const char* end = left_end ? "left" : "right";
-    bool step = edge.step > 0.0;
-    std::string where = fmt::format("{} at the {} end", step ? "roof step" : "parapet", end);
-    std::string clause = step ? "ASCE 7-16 Sec. 7.7.1" : "ASCE 7-16 Sec. 7.8";
-    RoofShape shape = shape_of(m_, roof);
-    double left = shape.left, right = shape.right;
-    double length_of_roof = right - left;
-    double gamma = snow_density(t_, site_.pg);
-    double hb = ps / gamma;
-    double hc = (step ? edge.step : edge.parapet) - hb;
-    line(fmt::format("{}: hb = ps / gamma = {} / {} = {}; hc = {} - hb = {}", where, pressure(ps),
-                     density(gamma), length(hb), length(step ? edge.step : edge.parapet),
-                     length(hc)),
-         clause);
-    if (hb > 0.0 && hc < 0.2 * hb) {
-        line(fmt::format("drift not required at the {}: hc / hb = {:.2f} is below 0.2", where,
-                         hc / hb),
-             clause);
-        return;
-    }
-    double hd;
-    if (step) {
-        double leeward = drift_height(t_, site_.pg, edge.upper_length);
-        double windward = 0.75 * drift_height(t_, site_.pg, length_of_roof);
-        trace_drift(edge.upper_length, leeward, "the upper roof's length");
-        trace_drift(length_of_roof, windward / 0.75, "this roof's length");
-        hd = std::max(leeward, windward);
-        line(fmt::format("leeward hd = {}, windward 0.75 hd = {}: the {} governs", length(leeward),
-                         length(windward), leeward >= windward ? "leeward" : "windward"),
-             clause);
-    } else {
-        hd = 0.75 * drift_height(t_, site_.pg, length_of_roof);
-        trace_drift(length_of_roof, hd / 0.75, "this roof's length");
-        line(fmt::format("parapet drift: 0.75 hd = {}", length(hd)), clause);
-    }
-    double w = 4.0 * hd;
-    if (hd > hc) {
-        w = 4.0 * hd * hd / hc;
-        line(fmt::format("hd = {} > hc = {}: w = 4 hd^2 / hc = {}, height cut to hc", length(hd),
-                         length(hc), length(w)),
-             clause);
-        hd = hc;
-    } else {
-        line(fmt::format("hd = {} <= hc = {}: w = 4 hd = {}", length(hd), length(hc), length(w)),
-             clause);
-    }
-    if (w > 8.0 * hc) {
-        line(fmt::format("w is at most 8 hc = {}", length(8.0 * hc)), clause);
-        w = 8.0 * hc;
-    }
-    double pd = hd * gamma;
-    line(fmt::format("pd = hd gamma = {} x {} = {}, a triangle from the wall over w = {}",
-                     length(hd), density(gamma), pressure(pd), length(w)),
-         clause);
-    if (w > length_of_roof) {
-        line(fmt::format("the drift is cut at the roof's far end: w = {} is wider than the roof "
-                         "({}); the triangle is not rescaled",
-                         length(w), length(length_of_roof)),
-             clause);
-    }
-    drift_cases_.push_back(
-        new_case(fmt::format("drift.{}.{}_{}", roof.name, step ? "step" : "parapet", end).c_str()));
-    drift_load(roof, left_end ? left : right, left_end ? 1.0 : -1.0, w, pd, drift_cases_.back());
-}
-
-/// Sliding snow from a higher roof onto one end of this one (Sec. 7.9): 0.4 pf W
-/// per length of eave over 15 ft from the upper eave, on the balanced load.
-void SnowDeriver::sliding_onto(const Roof& roof, bool left_end) {
-    const Roof::Edge& edge = left_end ? roof.left : roof.right;
-    if (edge.sliding_from.empty())
-        return;
-    const char* clause = "ASCE 7-16 Sec. 7.9";
-    const char* end = left_end ? "left" : "right";
-    auto upper = std::find_if(m_.roofs.begin(), m_.roofs.end(),
-                              [&](const Roof& u) { return u.name == edge.sliding_from; });
-    if (upper == m_.roofs.end())
-        return;  // reported by resolve
-    double slope = 0.0;
-    for (MemberId id : upper->members)
-        slope = std::max(slope, geometry_of(m_, id).slope);
-    double needed = upper->slippery ? t_.sliding_min_rise_slippery : t_.sliding_min_rise_other;
-    if (!(std::tan(slope) > needed + 1e-12)) {
-        line(fmt::format("sliding snow from roof {} onto the {} end not required: its slope {} "
-                         "is not above {} ({} surface)",
-                         upper->name, end, degrees(slope), degrees(std::atan(needed)),
-                         upper->slippery ? "slippery" : "other"),
-             clause);
-        return;
-    }
-    RoofShape up = shape_of(m_, *upper), low = shape_of(m_, roof);
-    double W = eave_to_ridge(up);
-    double total = t_.sliding_factor * pf_ * W;  // N/m of eave
-    double q = total / t_.sliding_width;
-    double width = std::min(t_.sliding_width, low.right - low.left);
-    line(fmt::format(
-             "sliding snow from roof {} onto the {} end: {:g} pf W = {:g} x {} x {} = {} "
-             "per length of eave, over {}: {} on {}{}",
-             upper->name, end, t_.sliding_factor, t_.sliding_factor, pressure(pf_), length(W),
-             line_load(total), length(t_.sliding_width), pressure(q), length(width),
-             width < t_.sliding_width ? " (the lower roof is narrower: cut, not raised)" : ""),
-         clause);
-    drift_cases_.push_back(new_case(fmt::format("sliding.{}.{}", roof.name, end).c_str()));
-    double from = left_end ? low.left : low.right - width;
-    double to = left_end ? low.left + width : low.right;
-    for (MemberId id : roof.members)
-        load_part(roof, id, from, to, q, drift_cases_.back());
-}
 
 /// Members at a roof's ends that overhang: their outer node carries no other
 /// member and no support.
@@ -724,16 +457,6 @@ void SnowDeriver::ice_dam(const Roof& roof) {
     load_members(roof, eaves, p, ice_dam_);
 }
 
-/// The drift triangle's member loads: peak pd at `wall_x`, zero at w toward the
-/// roof, cut where it crosses member ends and at the roof's end.
-void SnowDeriver::drift_load(const Roof& roof, double wall_x, double toward, double w, double pd,
-                             LoadCase& lc) const {
-    auto intensity = [&](double x) { return pd * std::max(0.0, 1.0 - std::abs(x - wall_x) / w); };
-    double far = wall_x + toward * w;
-    double lo_drift = std::min(wall_x, far), hi_drift = std::max(wall_x, far);
-    for (MemberId id : roof.members)
-        load_between(roof, id, lo_drift, hi_drift, intensity, lc);
-}
 
 LoadCase SnowDeriver::new_case(const char* what) const {
     LoadCase lc;
@@ -772,7 +495,9 @@ void SnowDeriver::mark_unverified() {
     }
 }
 
-}  // namespace
+}  // namespace snow_detail
+
+using namespace snow_detail;
 
 double snow_density(const SnowTables& t, double pg) {
     return std::min(t.density_per_pg * pg + t.density_base, t.density_max);

@@ -454,6 +454,74 @@ TEST_CASE("snow: a parapet drift, and one cut where it crosses a member end") {
     CHECK(wide[1].end / kFt == Approx(27.6996 - 24).epsilon(1e-3));
 }
 
+TEST_CASE("snow: a leeward drift from an adjacent higher structure beyond a gap") {
+    // ASCE 7-16 Sec. 7.7.2 (from memory): h = 10 ft, s = 6 ft < 20 ft and < 6h. Leeward hd
+    // with lu = the higher roof's 60 ft = 2.9764 ft (Fig. 7.6-1, as in the step test), at
+    // most (6h - s)/6 = 9 ft; width min(6 hd, 6h - s) = min(17.858, 54) = 17.858 ft.
+    // Windward 0.75 hd (lu = 72 ft) = 2.4427 ft (Sec. 7.7.1) is lower: leeward governs.
+    Analysis a = analysed(stepped(
+        "  adjacent_left = 10 ft\n  adjacent_left_gap = 6 ft\n  adjacent_left_length = 60 ft\n"));
+    CHECK(trace_has(a.model, "the leeward governs"));
+    auto drift = drift_part(a.model, "S.drift.main.adjacent_left");
+    REQUIRE(drift.size() == 1);
+    CHECK(a.model.members[at(drift[0].member)].name == "eave.A.B");
+    CHECK(drift[0].start == 0.0);
+    CHECK(drift[0].end / kFt == Approx(6 * 2.9764).epsilon(1e-4));
+    CHECK(drift[0].w_start / (20 * kFt) == Approx(2.9764 * 19.2 * kPsf).epsilon(1e-4));
+}
+
+TEST_CASE("snow: a drift from an adjacent structure limited by the gap, and none beyond 20 ft") {
+    // Sec. 7.7.2 (from memory): h = 3 ft, s = 4 ft: height min(2.9764, (18 - 4)/6 = 2.3333)
+    // = 2.3333 ft, width min(17.858, 14) = 14 ft. Windward 0.75 hd = 2.4427 ft exceeds
+    // hc = 3 - 1.4583 = 1.5417 ft, so it is cut to hc (Sec. 7.7.1): leeward governs.
+    Analysis a = analysed(stepped(
+        "  adjacent_right = 3 ft\n  adjacent_right_gap = 4 ft\n  adjacent_right_length = 60 ft\n"));
+    auto drift = drift_part(a.model, "S.drift.main.adjacent_right");
+    REQUIRE(drift.size() == 1);
+    CHECK(a.model.members[at(drift[0].member)].name == "eave.C.D");
+    CHECK(drift[0].start / kFt == Approx(24 - 14).epsilon(1e-9));
+    CHECK(drift[0].w_end / (20 * kFt) == Approx(2.33333 * 19.2 * kPsf).epsilon(1e-5));
+    // s = 25 ft is not below 20 ft: no drift case.
+    Analysis far = analysed(stepped(
+        "  adjacent_right = 30 ft\n  adjacent_right_gap = 25 ft\n  adjacent_right_length = 60 ft\n"));
+    CHECK(find_case(far.model, "S.drift.main.adjacent_right") == nullptr);
+    CHECK(trace_has(far.model, "is not below both"));
+}
+
+TEST_CASE("snow: drifts at both faces of a roof projection, and none on a face under 15 ft") {
+    // ASCE 7-16 Sec. 7.8 (from memory): faces at 30 and 38 ft on the 72 ft roof; lu = the
+    // longer side, max(30, 34) = 34 ft; 0.75 hd = 0.75 (0.43 x 34^(1/3) x 50^(1/4) - 1.5)
+    // = 1.6532 ft <= hc = 5 - 1.4583 ft; w = 4 x 1.6532 = 6.6128 ft; pd = 31.742 psf over
+    // the 18 ft face (less than the 20 ft tributary width).
+    std::string text = stepped("") +
+                       "projection unit on main {\n  left_face = 30 ft\n  width = 8 ft\n"
+                       "  face_length = 18 ft\n  height = 5 ft\n}\n";
+    Analysis a = analysed(text);
+    double pd = 1.65321 * 19.2 * kPsf * 18 * kFt;
+    // Left face: from x = 30 ft leftwards, across the member end at B (x = 24 ft).
+    auto left = drift_part(a.model, "S.drift.unit.left");
+    REQUIRE(left.size() == 2);
+    CHECK(a.model.members[at(left[0].member)].name == "eave.A.B");
+    CHECK(left[0].start / kFt == Approx(24 - 0.61284).epsilon(1e-4));
+    CHECK(left[0].w_end == Approx(pd * 0.61284 / 6.61284).epsilon(1e-4));
+    CHECK(a.model.members[at(left[1].member)].name == "eave.B.C");
+    CHECK(left[1].end / kFt == Approx(6).epsilon(1e-9));
+    CHECK(left[1].w_end == Approx(pd).epsilon(1e-5));
+    // Right face: from x = 38 ft rightwards, on eave.B.C from 14 ft to 20.613 ft.
+    auto right = drift_part(a.model, "S.drift.unit.right");
+    REQUIRE(right.size() == 1);
+    CHECK(right[0].start / kFt == Approx(14).epsilon(1e-9));
+    CHECK(right[0].end / kFt == Approx(20.61284).epsilon(1e-5));
+    CHECK(right[0].w_start == Approx(pd).epsilon(1e-5));
+    // A 12 ft face is shorter than 15 ft: no drift on it.
+    std::string short_face = stepped("") +
+                             "projection unit on main {\n  left_face = 30 ft\n  width = 8 ft\n"
+                             "  face_length = 12 ft\n  height = 5 ft\n}\n";
+    Analysis b = analysed(short_face);
+    CHECK(find_case(b.model, "S.drift.unit.left") == nullptr);
+    CHECK(trace_has(b.model, "shorter than 15.000 ft"));
+}
+
 TEST_CASE("snow: the tributary width from the plan grid") {
     // Common practice: an interior frame carries half of each bay beside it, an end frame
     // half of its one bay plus the roof's overhang beyond it. Plan lines 1..5 at 20, 30,

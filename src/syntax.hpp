@@ -249,8 +249,11 @@ struct SnowDecl {
     std::vector<Setting> settings;
 };
 
-/// `roof main on eave.* { tributary = 20 ft ... }`
+/// `roof main on eave.* { tributary = 20 ft ... }`, or a projection standing on
+/// a roof, `projection unit on main { left_face = 30 ft ... }` (its one member
+/// name is the roof's name).
 struct RoofDecl {
+    bool projection = false;
     Name name;
     std::vector<Name> members;
     std::vector<Setting> settings;
