@@ -18,12 +18,12 @@ void SnowDeriver::trace_density(double gamma) {
 void SnowDeriver::trace_drift(double lu, double hd, const char* lu_is) {
     double used = std::max(lu, t_.drift_min_lu);
     line(fmt::format("hd = {:g} lu^(1/3) (pg + {:g})^(1/4) - {:g} (ft, psf) with lu = {} = {} "
-                     "(at least {:g} ft): {:g} x {:.3f}^(1/3) x {:.3f}^(1/4) - {:g} = {:.3f} ft",
+                     "(at least {:g} ft): {:g} x {:.3f}^(1/3) x {:.3f}^(1/4) - {:g} = {:.3f} ft{}",
                      t_.drift_coefficient, t_.drift_pg_offset / kPoundPerSquareFoot,
                      t_.drift_offset / kFoot, lu_is, length(lu), t_.drift_min_lu / kFoot,
                      t_.drift_coefficient, used / kFoot,
                      (site_.pg + t_.drift_pg_offset) / kPoundPerSquareFoot, t_.drift_offset / kFoot,
-                     hd / kFoot),
+                     hd / kFoot, u_.length.name == "ft" ? "" : fmt::format(" = {}", length(hd))),
          "ASCE 7-16 Fig. 7.6-1");
 }
 

@@ -246,6 +246,14 @@ TEST_CASE("snow: SI input gives the same loads as US customary") {
     CHECK(pressure_on(si.model, "S.balanced") == Approx(0.7 * 1.2 * 1915.0).epsilon(1e-12));
 }
 
+TEST_CASE("snow: the drift formula takes SI values through its own units exactly") {
+    // ASCE 7-16 Fig. 7.6-1: hd = 0.43 lu^(1/3) (pg + 10)^(1/4) - 1.5 in ft and psf. For
+    // lu = 20 m = 65.6168 ft and pg = 2.0 kPa = 41.7709 psf (1 ft = 0.3048 m and
+    // 1 lbf = 4.4482216152605 N, both exact by definition): hd = 3.15223 ft = 0.960801 m.
+    Analysis a = analysed(flat_frame(kSite));
+    CHECK(drift_height(a.model.snow->tables, 2000.0, 20.0) == Approx(0.960801).epsilon(1e-6));
+}
+
 TEST_CASE("snow: balanced snow on a simple span gives wL^2/8") {
     // Statics, common practice: a simply supported beam under uniform w has
     // M_mid = wL^2/8 and reactions wL/2. w = pf x 20 ft with pf = 33.6 psf (above).
