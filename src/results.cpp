@@ -10,20 +10,14 @@
 #include <algorithm>
 #include <cmath>
 #include <span>
+#include <type_traits>
 
 #include "element.hpp"
 #include "parallel.hpp"
 #include "polynomial.hpp"
+#include "results_internal.hpp"
 
 namespace firn {
-namespace {
-
-/// Case-independent data of one member for the result loops.
-struct MemberInfo {
-    ElementProperties properties;
-    MemberGeometry geometry;
-    std::size_t start = 0, end = 0;  ///< node indices
-};
 
 MemberInfo member_info(const Model& model, MemberId id) {
     const Member& m = model.members[at(id)];
@@ -38,28 +32,14 @@ std::vector<MemberInfo> member_infos(const Model& model) {
     return out;
 }
 
-/// N, V, M and deflection at the end of a piece (before any jump there).
-struct PieceEnd {
-    double n, v, m, w;
-};
-
-/// Buffers one worker reuses for every member, so the member loop does not
-/// allocate. `ends` holds each piece's end values: the summaries need them
-/// and they fall out of building the next piece, so they are kept, not
-/// evaluated again.
-struct Scratch {
-    std::vector<double> breaks;
-    std::vector<FunctionPiece> pieces;
-    std::vector<PieceEnd> ends;
-};
-
-/// Global end displacements of a member in one case, turned to local axes.
 ElementVector local_displacements(const Solution& s, CaseId c, const MemberInfo& m) {
     const double* u = s.displacements.data() + at(c) * s.node_count * 3;
     ElementVector global{u[m.start * 3], u[m.start * 3 + 1], u[m.start * 3 + 2],
                          u[m.end * 3],   u[m.end * 3 + 1],   u[m.end * 3 + 2]};
     return to_local(global, m.geometry);
 }
+
+namespace {
 
 /// Piece boundaries: the ends and every load start, end and point, sorted,
 /// with near-coincident positions (closer than `tolerance`) merged.
@@ -134,8 +114,8 @@ FunctionPiece make_piece(double s0, double s1, const Carried& c, const std::arra
                          shear, moment, deflection};
 }
 
-/// The exact functions of one member, into scratch.pieces. `forces` are the
-/// local end forces the nodes apply to the member.
+}  // namespace
+
 void build_functions(const MemberInfo& m, std::span<const LocalDistributed> spread,
                      std::span<const LocalPoint> points, const ElementVector& forces, Scratch& s) {
     double length = m.geometry.length, tolerance = 1e-12 * length;
@@ -164,6 +144,8 @@ void build_functions(const MemberInfo& m, std::span<const LocalDistributed> spre
     }
 }
 
+namespace {
+
 /// Calls visit(t, value) at both ends of [0, h] (p(h) = end) and wherever p'
 /// vanishes inside.
 template <typename Visit>
@@ -178,10 +160,30 @@ void visit_stationary(const Polynomial& p, const Polynomial& dp, double h, doubl
     visit(h, end);
 }
 
-/// Candidates closer than this share of the member's largest value count as
-/// equal: the first position along the member then wins, on any machine, and
-/// rounding noise never shows up as a tiny extreme somewhere along the member.
-constexpr double kTie = 1e-9;
+/// Which function a candidate value belongs to, passed as a type so that the
+/// code keeping each candidate is chosen at compile time.
+template <Function F>
+using FunctionTag = std::integral_constant<Function, F>;
+
+/// Calls visit(FunctionTag, position, value) at every place an extreme of a
+/// member function can be: both sides of each piece end and each stationary
+/// point, piece by piece from the start node.
+template <typename Visit>
+void visit_candidates(const Scratch& functions, Visit visit) {
+    for (std::size_t i = 0; i < functions.pieces.size(); ++i) {
+        const FunctionPiece& p = functions.pieces[i];
+        const PieceEnd& end = functions.ends[i];
+        double h = p.b - p.a;
+        auto of = [&](auto tag) {
+            return [&, tag](double t, double v) { visit(tag, p.a + t, v); };
+        };
+        visit_stationary(p.moment, p.shear, h, end.m, of(FunctionTag<f_moment>{}));
+        visit_stationary(p.shear, derivative(p.shear), h, end.v, of(FunctionTag<f_shear>{}));
+        visit_stationary(p.axial, derivative(p.axial), h, end.n, of(FunctionTag<f_axial>{}));
+        visit_stationary(p.deflection, derivative(p.deflection), h, end.w,
+                         of(FunctionTag<f_deflection>{}));
+    }
+}
 
 void keep_largest(Extreme& e, double value, double position, double tie) {
     if (value > e.value + tie)
@@ -196,9 +198,9 @@ void keep_largest_magnitude(Extreme& e, double value, double position, double ti
         e = Extreme{value, position};
 }
 
-/// Largest |value| at the piece ends of each function (N, V, M, deflection),
-/// the scale for the tie tolerance.
-std::array<double, 4> end_scales(const Scratch& functions) {
+/// The tie tolerance of each function (ORDER FUNCTION): kTie times its largest
+/// |value| at the piece ends.
+std::array<double, 4> tie_tolerances(const Scratch& functions) {
     std::array<double, 4> scale{};
     for (std::size_t i = 0; i < functions.pieces.size(); ++i) {
         const FunctionPiece& p = functions.pieces[i];
@@ -208,39 +210,62 @@ std::array<double, 4> end_scales(const Scratch& functions) {
         scale[2] = std::max({scale[2], std::abs(p.moment.c[0]), std::abs(e.m)});
         scale[3] = std::max({scale[3], std::abs(p.deflection.c[0]), std::abs(e.w)});
     }
+    for (double& t : scale)
+        t *= kTie;
     return scale;
 }
 
-MemberSummary summarize(const Scratch& functions) {
-    MemberSummary s;
+/// The summary's end values, and the tolerances for its extremes.
+std::array<double, 4> start_summary(const Scratch& functions, MemberSummary& s) {
     const FunctionPiece& first = functions.pieces.front();
     const PieceEnd& last = functions.ends.back();
     s.start = {first.axial.c[0], first.shear.c[0], first.moment.c[0]};
     s.end = {last.n, last.v, last.m};
-    std::array<double, 4> tie = end_scales(functions);
-    for (double& t : tie)
-        t *= kTie;
-    for (std::size_t i = 0; i < functions.pieces.size(); ++i) {
-        const FunctionPiece& p = functions.pieces[i];
-        const PieceEnd& end = functions.ends[i];
-        double h = p.b - p.a;
-        visit_stationary(p.moment, p.shear, h, end.m, [&](double t, double v) {
-            keep_largest(s.moment_max, v, p.a + t, tie[2]);
-            keep_smallest(s.moment_min, v, p.a + t, tie[2]);
-        });
-        visit_stationary(p.shear, derivative(p.shear), h, end.v, [&](double t, double v) {
-            keep_largest_magnitude(s.shear_max, v, p.a + t, tie[1]);
-        });
-        visit_stationary(p.axial, derivative(p.axial), h, end.n, [&](double t, double v) {
-            keep_largest(s.axial_max, v, p.a + t, tie[0]);
-            keep_smallest(s.axial_min, v, p.a + t, tie[0]);
-        });
-        visit_stationary(p.deflection, derivative(p.deflection), h, end.w, [&](double t, double v) {
-            keep_largest_magnitude(s.deflection_max, v, p.a + t, tie[3]);
-        });
+    return tie_tolerances(functions);
+}
+
+/// Keeps a candidate of function F in the summary.
+template <Function F>
+void keep_in_summary(MemberSummary& s, double position, double v, double tie) {
+    if constexpr (F == f_moment) {
+        keep_largest(s.moment_max, v, position, tie);
+        keep_smallest(s.moment_min, v, position, tie);
+    } else if constexpr (F == f_shear) {
+        keep_largest_magnitude(s.shear_max, v, position, tie);
+    } else if constexpr (F == f_axial) {
+        keep_largest(s.axial_max, v, position, tie);
+        keep_smallest(s.axial_min, v, position, tie);
+    } else {
+        keep_largest_magnitude(s.deflection_max, v, position, tie);
     }
+}
+
+}  // namespace
+
+MemberSummary summarize(const Scratch& functions) {
+    MemberSummary s;
+    std::array<double, 4> tie = start_summary(functions, s);
+    visit_candidates(functions, [&](auto tag, double position, double v) {
+        constexpr Function f = decltype(tag)::value;
+        keep_in_summary<f>(s, position, v, tie[f]);
+    });
     return s;
 }
+
+MemberSummary summarize(const Scratch& functions, FunctionExtremes& extremes) {
+    MemberSummary s;
+    extremes = FunctionExtremes{};
+    std::array<double, 4> tie = start_summary(functions, s);
+    visit_candidates(functions, [&](auto tag, double position, double v) {
+        constexpr Function f = decltype(tag)::value;
+        keep_in_summary<f>(s, position, v, tie[f]);
+        keep_largest(extremes.max[f], v, position, tie[f]);
+        keep_smallest(extremes.min[f], v, position, tie[f]);
+    });
+    return s;
+}
+
+namespace {
 
 /// Everything a case needs besides the model, shared by all workers.
 struct Context {
