@@ -11,7 +11,10 @@
 #include <cstdlib>
 #include <cstring>
 #include <string>
+#include <utility>
+#include <vector>
 
+#include "combine.hpp"
 #include "driver.hpp"
 #include "file_io.hpp"
 #include "frame_generator.hpp"
@@ -33,6 +36,29 @@ std::size_t arg(int argc, char** argv, int i, std::size_t fallback) {
     return argc > i ? static_cast<std::size_t>(std::strtoul(argv[i], nullptr, 10)) : fallback;
 }
 
+/// Every case alone, then 1.2 x case 0 + 1.6 x each other case: about twice
+/// as many combinations as cases, as a strength design set would have.
+std::vector<firn::Combination> bench_combinations(std::size_t cases) {
+    using firn::make_id;
+    std::vector<firn::Combination> out;
+    for (std::size_t c = 0; c < cases; ++c)
+        out.push_back({fmt::format("K{}", c), {{make_id<firn::CaseId>(c), 1.0}}});
+    for (std::size_t c = 1; c < cases; ++c) {
+        out.push_back({fmt::format("1.2 K0 + 1.6 K{}", c),
+                       {{make_id<firn::CaseId>(0), 1.2}, {make_id<firn::CaseId>(c), 1.6}}});
+    }
+    return out;
+}
+
+/// Seconds to combine and envelope every case of an analysis, and how many combinations.
+std::pair<double, std::size_t> time_envelopes(const firn::Analysis& a) {
+    auto start = std::chrono::steady_clock::now();
+    std::vector<firn::Combination> combinations = bench_combinations(a.loads.cases.size());
+    firn::Envelopes e =
+        firn::compute_envelopes(a.model, a.loads, a.solution, a.results, combinations);
+    return {seconds_since(start), e.combinations.size()};
+}
+
 /// Analyses one model text and prints its phase timings; 0 on success.
 int run(const char* style, const std::string& text, std::size_t bays, std::size_t storeys,
         std::size_t cases) {
@@ -50,12 +76,14 @@ int run(const char* style, const std::string& text, std::size_t bays, std::size_
         report_bytes += piece.size();
     });
     double report_time = seconds_since(report_start);
+    auto [combine_time, combination_count] = time_envelopes(a);
     std::printf("%s", fmt::format("frame {} bays x {} storeys, {} cases, {}: {} nodes, {} members, "
-                                  "{} unknowns\nmodel text {:.3f} MB, report {:.1f} MB\n",
+                                  "{} unknowns\nmodel text {:.3f} MB, report {:.1f} MB, "
+                                  "{} combinations\n",
                                   bays, storeys, cases, style, a.model.nodes.size(),
                                   a.model.members.size(), 3 * (a.model.nodes.size() - bays - 1),
                                   static_cast<double>(text.size()) / 1e6,
-                                  static_cast<double>(report_bytes) / 1e6)
+                                  static_cast<double>(report_bytes) / 1e6, combination_count)
                           .c_str());
     double analysis_only = t.loads + t.assemble + t.factor + t.solve + t.results;
     const std::pair<const char*, double> phases[] = {{"parse", t.parse},
@@ -66,7 +94,8 @@ int run(const char* style, const std::string& text, std::size_t bays, std::size_
                                                      {"solve", t.solve},
                                                      {"results", t.results},
                                                      {"model to member results", analysis},
-                                                     {"report (text, to memory)", report_time}};
+                                                     {"report (text, to memory)", report_time},
+                                                     {"combinations + envelopes", combine_time}};
     for (const auto& [name, seconds] : phases)
         std::printf("  %-24s %8.3f s\n", name, seconds);
     std::printf("  %-24s %8.1f %%\n", "parse+resolve / analysis",
