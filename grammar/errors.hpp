@@ -19,7 +19,7 @@ struct errors {
 #define FIRN_ERROR(rule, text) \
     template <> inline constexpr const char* errors::message<rule> = text;
 
-FIRN_ERROR(unknown_statement, "expected a statement (model, use, let, report, grid, node, material, section, member, columns, beams, rafters, group, support, case, snow, roof, projection or amend)")
+FIRN_ERROR(unknown_statement, "expected a statement (model, use, let, report, grid, node, material, section, member, columns, beams, rafters, group, support, case, snow, roof, projection, amend, combinations, combine, pattern, arrange or deflection)")
 FIRN_ERROR(end_of_statement, "expected the end of the statement (a new line or ';')")
 FIRN_ERROR(title, "expected the model title in double quotes, as in: model \"Frame on line 3\"")
 FIRN_ERROR(one<'"'>, "expected '\"' to close the text on this line")
@@ -112,6 +112,27 @@ FIRN_ERROR(projection_name, "expected a name for the projection, as in: projecti
 FIRN_ERROR(projection_on, "expected 'on' and the roof it stands on, as in: projection unit on main {")
 FIRN_ERROR(projection_roof, "expected the name of the roof the projection stands on")
 FIRN_ERROR(amend_name, "expected the name of the library value to amend")
+
+FIRN_ERROR(combinations_name, "expected a name for the set of combinations, as in: combinations strength {")
+FIRN_ERROR(combinations_open, "expected '{' to open the combinations")
+FIRN_ERROR(combination_term, "expected a factor and a load symbol, such as 1.6 L, or alternatives such as 0.5 (Lr or S)")
+FIRN_ERROR(combination_alternative, "expected a load symbol such as S, optionally with a factor, as in: 0.5 W")
+FIRN_ERROR(alternatives_close, "expected 'or' and another load symbol, or ')' to close the alternatives")
+FIRN_ERROR(half_live_label, "expected the label of a combination, as in: half_live_in = 3, 4")
+FIRN_ERROR(combine_set, "expected the name of a set of combinations, as in: combine asce7_16.strength")
+FIRN_ERROR(pattern_name, "expected a name for the rule, as in: pattern alternate {")
+FIRN_ERROR(pattern_open, "expected '{' to open the rule's arrangements")
+FIRN_ERROR(pattern_colon, "expected ':' after the arrangement's name, as in: ends: exterior = 1.0, others = 0.5")
+FIRN_ERROR(pattern_part, "expected a selector and its factor, such as exterior = 1.0")
+FIRN_ERROR(pattern_factor, "expected the factor on the load, a number such as 0.5")
+FIRN_ERROR(arrange_case, "expected the load case to arrange, as in: arrange L on floor.* by alternate")
+FIRN_ERROR(arrange_on, "expected 'on' and the members the arrangements run over")
+FIRN_ERROR(arrange_member, "expected a member, a group or a pattern such as floor.*")
+FIRN_ERROR(arrange_by, "expected 'by' and the name of a pattern rule")
+FIRN_ERROR(arrange_rule, "expected the name of a pattern rule")
+FIRN_ERROR(deflection_member, "expected a member, a group or a pattern such as eave.*")
+FIRN_ERROR(deflection_limit, "expected 'limit' and a row of limits, as in: deflection eave.* limit ibc2018.roof_no_ceiling")
+FIRN_ERROR(deflection_row, "expected a row of deflection limits such as ibc2018.roof_no_ceiling")
 
 #undef FIRN_ERROR
 // clang-format on

@@ -76,6 +76,15 @@ struct kw_report : TAO_PEGTL_KEYWORD("report") {};
 struct kw_roller : TAO_PEGTL_KEYWORD("roller") {};
 struct kw_roof : TAO_PEGTL_KEYWORD("roof") {};
 struct kw_projection : TAO_PEGTL_KEYWORD("projection") {};
+struct kw_combinations : TAO_PEGTL_KEYWORD("combinations") {};
+struct kw_combine : TAO_PEGTL_KEYWORD("combine") {};
+struct kw_or : TAO_PEGTL_KEYWORD("or") {};
+struct kw_half_live_in : TAO_PEGTL_KEYWORD("half_live_in") {};
+struct kw_pattern : TAO_PEGTL_KEYWORD("pattern") {};
+struct kw_arrange : TAO_PEGTL_KEYWORD("arrange") {};
+struct kw_by : TAO_PEGTL_KEYWORD("by") {};
+struct kw_deflection : TAO_PEGTL_KEYWORD("deflection") {};
+struct kw_limit : TAO_PEGTL_KEYWORD("limit") {};
 struct kw_rotation : TAO_PEGTL_KEYWORD("rotation") {};
 struct kw_section : TAO_PEGTL_KEYWORD("section") {};
 struct kw_self : TAO_PEGTL_KEYWORD("self") {};
@@ -523,6 +532,96 @@ struct projection_roof : name {};
 struct projection_stmt : if_must<projection_begin, sp, projection_name, sp, projection_on, sp,
                                  projection_roof, sp, settings_block> {};
 
+// ---------------------------------------------------------------- combinations
+
+// combinations_stmt <- 'combinations' sp name sp '{' sp_nl (combination_item sp_nl)* '}'
+//                a named set of load combinations over the load symbols D, L, Lr, S, R, W
+// combination_line  <- name sp '=' sp combination_term (sp '+' sp_nl combination_term)*
+// combination_term  <- (number sp)? (symbol / '(' sp alternative (sp 'or' sp alternative)* sp ')')
+// alternative       <- (number sp)? symbol
+// half_live_line    <- 'half_live_in' sp '=' sp name (list_sep name)*
+//                the combinations whose factor 1.0 on L may be 0.5 (a permission)
+struct combination_factor : number {};
+struct combination_symbol : name {};
+struct combination_alternative : seq<opt<combination_factor, sp>, combination_symbol> {};
+struct alternatives_open : one<'('> {};
+struct alternatives_close : one<')'> {};
+struct alternatives : if_must<alternatives_open, sp, combination_alternative,
+                              star<sp, kw_or, sp, must<combination_alternative>>, sp,
+                              alternatives_close> {};
+struct combination_term_begin : success {};
+struct combination_term : seq<combination_term_begin, opt<combination_factor, sp>,
+                              sor<alternatives, combination_symbol>> {};
+struct combination_plus : seq<sp, one<'+'>, sp_nl> {};
+struct combination_label : name {};
+struct combination_line : if_must<combination_label, sp, equals, sp, combination_term,
+                                  star<combination_plus, must<combination_term>>> {};
+struct half_live_label : name {};
+struct half_live_line : if_must<kw_half_live_in, sp, equals, sp, half_live_label,
+                                star<list_sep, half_live_label>> {};
+struct combination_entry : seq<sor<half_live_line, combination_line>, sp,
+                               must<end_of_statement>> {};
+struct combination_item : seq<not_at<sor<block_close, eof>>,
+                              recover<combination_entry, skip_in_block>, sp_nl> {};
+struct combinations_name : name {};
+struct combinations_begin : kw_combinations {};
+struct combinations_open : block_open {};
+struct combinations_stmt : if_must<combinations_begin, sp, combinations_name, sp,
+                                   combinations_open, sp_nl, star<combination_item>,
+                                   block_close> {};
+
+// combine_stmt <- 'combine' sp name (list_sep name)* (sp settings_block)?
+//                the combination sets this model is checked for, with their permissions
+struct combine_set : name {};
+struct combine_begin : kw_combine {};
+struct combine_stmt : if_must<combine_begin, sp, combine_set, star<list_sep, combine_set>,
+                              opt<sp, settings_block>> {};
+
+// ---------------------------------------------------------------- arrangements
+
+// pattern_stmt <- 'pattern' sp name sp '{' sp_nl (pattern_line sp_nl)* '}'
+//                a rule that gives each span a factor of a load: one or more arrangements
+// pattern_line <- name sp ':' sp part (list_sep part)*
+// part         <- selector sp '=' sp number
+//                selector: exterior, adjacent_pair, each, all or others (checked on resolve)
+struct pattern_selector : name {};
+struct pattern_factor : number {};
+struct pattern_part : seq<pattern_selector, sp, equals, sp, must<pattern_factor>> {};
+struct pattern_label : name {};
+struct pattern_colon : one<':'> {};
+struct pattern_line : if_must<pattern_label, sp, pattern_colon, sp, pattern_part,
+                              star<list_sep, must<pattern_part>>> {};
+struct pattern_entry : seq<pattern_line, sp, must<end_of_statement>> {};
+struct pattern_item : seq<not_at<sor<block_close, eof>>, recover<pattern_entry, skip_in_block>,
+                          sp_nl> {};
+struct pattern_name : name {};
+struct pattern_begin : kw_pattern {};
+struct pattern_open : block_open {};
+struct pattern_stmt : if_must<pattern_begin, sp, pattern_name, sp, pattern_open, sp_nl,
+                              star<pattern_item>, block_close> {};
+
+// arrange_stmt <- 'arrange' sp name sp 'on' sp member_ref (list_sep member_ref)* sp 'by' sp name
+//                a load case's arrangements over the spans of a run of members
+struct arrange_case : name {};
+struct arrange_member : member_ref {};
+struct arrange_on : kw_on {};
+struct arrange_by : kw_by {};
+struct arrange_rule : name {};
+struct arrange_begin : kw_arrange {};
+struct arrange_stmt : if_must<arrange_begin, sp, arrange_case, sp, arrange_on, sp,
+                              arrange_member, star<list_sep, arrange_member>, sp, arrange_by, sp,
+                              arrange_rule> {};
+
+// deflection_stmt <- 'deflection' sp member_ref (list_sep member_ref)* sp 'limit' sp name
+//                the members' deflection limits, from a row of a limits table
+struct deflection_member : member_ref {};
+struct deflection_limit : kw_limit {};
+struct deflection_row : name {};
+struct deflection_begin : kw_deflection {};
+struct deflection_stmt : if_must<deflection_begin, sp, deflection_member,
+                                 star<list_sep, deflection_member>, sp, deflection_limit, sp,
+                                 deflection_row> {};
+
 // amend_stmt  <- 'amend' sp name sp '=' sp expr sp 'because' sp quoted
 //                replaces a value of the library, with the reason
 struct amend_name : name {};
@@ -533,7 +632,8 @@ struct unknown_statement : failure {};
 struct statement : sor<model_stmt, use_stmt, let_stmt, report_stmt, grid_stmt, node_stmt,
                        material_stmt, section_stmt, member_stmt, columns_stmt, beams_stmt,
                        rafters_stmt, group_stmt, support_stmt, case_stmt, snow_stmt, roof_stmt,
-                       projection_stmt, amend_stmt,
+                       projection_stmt, amend_stmt, combinations_stmt, combine_stmt,
+                       pattern_stmt, arrange_stmt, deflection_stmt,
                        raise<unknown_statement>> {};
 struct statement_line : seq<statement, sp, must<end_of_statement>> {};
 struct top_item : seq<not_at<eof>, recover<statement_line, skip_statement>, sp_nl> {};

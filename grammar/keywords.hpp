@@ -27,8 +27,10 @@ inline constexpr std::array<std::string_view, 56> keywords{
 
 /// Words that are keywords only where the grammar expects them, and otherwise
 /// free for names: `roof` starts `roof live`, but engineers name levels "roof";
-/// `plan` follows `grid` only; `projection` starts a statement only.
-inline constexpr std::array<std::string_view, 3> contextual_keywords{"plan", "projection",
-                                                                          "roof"};
+/// `plan` follows `grid` only; `projection`, `combinations`, `combine`, `pattern` and
+/// `arrange`, `deflection` start a statement only; `limit` follows its members; `or`, `half_live_in` and `by` have meaning inside them.
+inline constexpr std::array<std::string_view, 12> contextual_keywords{
+    "arrange", "by", "combinations", "combine", "deflection", "half_live_in",
+    "limit",   "or", "pattern",      "plan",    "projection", "roof"};
 
 }  // namespace firn::grammar

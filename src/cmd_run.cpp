@@ -37,6 +37,9 @@ int run(const RunArgs& args) {
     Stations stations;
     ReportOptions options;
     options.full = args.full;
+    options.combinations = &a.combinations;
+    options.envelopes = &a.envelopes;
+    options.deflections = &a.deflections;
     if (args.full) {
         stations = compute_stations(a.model, a.loads, a.solution, kStationsPerMember);
         options.stations = &stations;

@@ -3,6 +3,7 @@
 
 #include <chrono>
 
+#include "arrange.hpp"
 #include "file_io.hpp"
 #include "resolve.hpp"
 #include "snow.hpp"
@@ -46,6 +47,7 @@ Analysis analyse_text(std::string name, std::string text, PhaseTimes* times,
         return a;
 
     derive_snow(a.model, a.diagnostics);
+    arrange_cases(a.model, a.diagnostics);
     if (a.diagnostics.has_errors())
         return a;
     a.loads = derive_loads(a.model, a.diagnostics);
@@ -64,6 +66,14 @@ Analysis analyse_text(std::string name, std::string text, PhaseTimes* times,
 
     a.results = compute_results(a.model, a.loads, a.solution);
     t.results = clock.lap();
+    a.combinations = expand_combinations(a.model);
+    for (const CombinationList::SetRange& set : a.combinations.sets) {
+        a.envelopes.push_back(compute_envelopes(
+            a.model, a.loads, a.solution, a.results,
+            std::span(a.combinations.combinations).subspan(set.first, set.count)));
+    }
+    a.deflections = check_deflections(a.model, a.loads, a.solution, a.results);
+    t.combinations = clock.lap();
     a.ok = true;
     return a;
 }

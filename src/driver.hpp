@@ -4,6 +4,8 @@
 
 #include <string>
 
+#include "combinations.hpp"
+#include "deflection.hpp"
 #include "diag.hpp"
 #include "imports.hpp"
 #include "loads.hpp"
@@ -18,6 +20,7 @@ struct PhaseTimes {
     double parse = 0.0, resolve = 0.0, loads = 0.0;
     double assemble = 0.0, factor = 0.0, solve = 0.0;
     double results = 0.0;
+    double combinations = 0.0;  ///< expanding them, their results and envelopes
 };
 
 /// Everything one run of the pipeline produced. `ok` is false when a stage
@@ -29,6 +32,9 @@ struct Analysis {
     LoadSet loads;
     Solution solution;
     Results results;
+    CombinationList combinations;
+    std::vector<Envelopes> envelopes;  ///< per chosen set of combinations
+    std::vector<DeflectionCheck> deflections;
     bool ok = false;
 };
 

@@ -167,7 +167,28 @@ class FilePrinter {
             return settings_block(snow->name, snow->settings);
         if (const auto* roof = std::get_if<syntax::RoofDecl>(&s.node))
             return settings_block(roof->members.back(), roof->settings);
+        if (const auto* combine = std::get_if<syntax::CombineDecl>(&s.node)) {
+            if (combine->settings.empty())
+                return std::nullopt;
+            return settings_block(combine->sets.back(), combine->settings);
+        }
+        if (const auto* set = std::get_if<syntax::CombinationsDecl>(&s.node))
+            return source_lines_block(set->name, set->line_where);
+        if (const auto* rule = std::get_if<syntax::PatternDecl>(&s.node)) {
+            std::vector<SourceRange> where;
+            for (const syntax::PatternDecl::Line& line : rule->lines)
+                where.push_back(line.where);
+            return source_lines_block(rule->name, std::move(where));
+        }
         return std::nullopt;
+    }
+
+    BlockLines source_lines_block(const syntax::Name& before_brace, std::vector<SourceRange> where) {
+        BlockLines block{&before_brace, std::move(where), {}};
+        block.atoms = [this, list = block.where](std::size_t i) {
+            return source_line_atoms(list[i], source_, signature_);
+        };
+        return block;
     }
 
     BlockLines settings_block(const syntax::Name& before_brace,

@@ -65,6 +65,10 @@ std::vector<Atom> load_atoms(const syntax::LoadDecl& load, const SourceRange& wh
 std::vector<Atom> setting_atoms(const syntax::Setting& setting, std::string_view source,
                                 std::string& signature);
 
+/// The atoms of one line of a combinations or pattern block: its words as written.
+std::vector<Atom> source_line_atoms(const SourceRange& where, std::string_view source,
+                                    std::string& signature);
+
 /// Gives each comment inside the statement to the atom it follows.
 void attach_comments(std::vector<Atom>& atoms, const std::vector<Remark>& inside);
 

@@ -163,6 +163,12 @@ class Printer {
     void print_block_header(const syntax::Statement& s, std::uint32_t brace);
     void print_load(const syntax::LoadDecl& load, const SourceRange& where);
     void print_setting(const syntax::Setting& setting);
+    /// A block line of tokens as written (a combination or an arrangement rule).
+    void print_source_line(const SourceRange& where) {
+        signature_ += "\n line:";
+        signature_ += std::string(text_of(where.begin.offset, where.end.offset));
+        source_words(where.begin.offset, where.end.offset);
+    }
 
   private:
     std::string_view source_;
@@ -253,6 +259,11 @@ class Printer {
     void print(const syntax::CaseDecl& c);
     void print(const syntax::SnowDecl& s);
     void print(const syntax::RoofDecl& r);
+    void print(const syntax::CombinationsDecl& c);
+    void print(const syntax::CombineDecl& c);
+    void print(const syntax::PatternDecl& p);
+    void print(const syntax::ArrangeDecl& a);
+    void print(const syntax::DeflectionDecl& d);
     void because(const SourceRange& reason);
     void properties(const std::vector<syntax::Property>& props, bool started);
     void options(const syntax::MemberOptions& o);
@@ -626,6 +637,37 @@ void Printer::print_setting(const syntax::Setting& setting) {
         because(setting.reason_where);
 }
 
+void Printer::print(const syntax::CombinationsDecl& c) {
+    word("combinations");
+    name(c.name);
+}
+
+void Printer::print(const syntax::CombineDecl& c) {
+    word("combine");
+    names(c.sets);
+}
+
+void Printer::print(const syntax::PatternDecl& p) {
+    word("pattern");
+    name(p.name);
+}
+
+void Printer::print(const syntax::ArrangeDecl& a) {
+    word("arrange");
+    name(a.load_case);
+    word("on");
+    names(a.members);
+    word("by");
+    name(a.rule);
+}
+
+void Printer::print(const syntax::DeflectionDecl& d) {
+    word("deflection");
+    names(d.members);
+    word("limit");
+    name(d.row);
+}
+
 void Printer::print(const syntax::AmendDecl& a) {
     word("amend");
     name(a.name);
@@ -683,6 +725,13 @@ std::vector<Atom> statement_atoms(const syntax::Statement& statement, std::strin
                                   std::string& signature) {
     Printer p(source, signature, statement.where.begin.offset);
     p.print(statement);
+    return p.take();
+}
+
+std::vector<Atom> source_line_atoms(const SourceRange& where, std::string_view source,
+                                    std::string& signature) {
+    Printer p(source, signature, where.begin.offset);
+    p.print_source_line(where);
     return p.take();
 }
 

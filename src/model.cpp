@@ -1,6 +1,8 @@
 // model: words for the model's enums.
 #include "model.hpp"
 
+#include <algorithm>
+
 namespace firn {
 
 const char* case_kind_name(CaseKind kind) {
@@ -35,6 +37,15 @@ const char* support_kind_name(Support::Kind kind) {
             return "spring";
     }
     return "fixed";
+}
+
+bool is_free_end(const Model& model, NodeId n) {
+    std::size_t count = 0;
+    for (const Member& m : model.members)
+        count += (m.start == n ? 1U : 0U) + (m.end == n ? 1U : 0U);
+    bool supported = std::any_of(model.supports.begin(), model.supports.end(),
+                                 [n](const Support& s) { return s.node == n; });
+    return count == 1 && !supported;
 }
 
 }  // namespace firn

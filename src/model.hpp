@@ -145,6 +145,13 @@ enum class CaseKind { dead, live, roof_live, snow, wind, other };
 struct LoadCase {
     std::string name;
     CaseKind kind = CaseKind::other;
+    /// The case this one is an arrangement of (its name), or empty: in a
+    /// combination, a case and its arrangements are alternatives.
+    std::string arrangement_of;
+    /// Combined with dead load only (an ice dam): a combination that takes this
+    /// case leaves its other variable loads out.
+    bool with_dead_only = false;
+    std::string description;  ///< what an arrangement loads, for the report
     std::vector<NodalLoad> nodal;
     std::vector<DistributedLoad> distributed;
     std::vector<PointLoad> points;
@@ -217,6 +224,8 @@ struct Roof {
     double insulation_R = 0.0;  ///< thermal resistance, ft^2*h*F/Btu (0: not given)
     bool ventilated = false;
     bool simple_rafters = false;  ///< rafters are simply supported prismatic, ridge to eave
+    std::string partial;  ///< the partial-loading rule (empty: the standard's; "none")
+    SourceRange partial_where;
     /// What stands at one end of the roof: a higher roof (a step) or a parapet.
     struct Edge {
         double step = 0.0;          ///< m: the upper roof's edge above this roof (0: none)
@@ -253,6 +262,78 @@ struct Projection {
     SourceRange where;
 };
 
+/// A load combination rule of a set, as the standard lists it:
+/// `3 = 1.2 D + 1.6 (Lr or S or R) + (L or 0.5 W)`.
+struct CombinationRule {
+    std::string label;
+    struct Alternative {
+        double factor = 1.0;
+        std::string symbol;  ///< D, L, Lr, S, R or W
+    };
+    struct Term {
+        std::vector<Alternative> alternatives;  ///< factors include the term's own
+    };
+    std::vector<Term> terms;
+    bool half_live = false;  ///< L's factor 1.0 may be 0.5 here (where permitted)
+    SourceRange where;
+};
+
+/// A named set of combination rules (`combinations NAME { ... }`).
+struct CombinationSet {
+    std::string name;
+    std::vector<CombinationRule> rules;
+    SourceRange where;
+};
+
+/// The sets a model is combined for (`combine ...`), and the 0.5 L permission.
+struct CombineChoice {
+    std::vector<std::size_t> sets;  ///< into Model::combination_sets
+    bool half_live = false;
+    std::string half_live_reason;
+    SourceRange where;
+};
+
+/// A rule of arrangements: each line gives the spans it selects one factor and
+/// the others another (`ends: exterior = 1.0, others = 0.5`).
+struct PatternRule {
+    enum class Selector { exterior, adjacent_pair, each, all };
+    struct Line {
+        std::string label;
+        Selector selector = Selector::all;
+        double factor = 1.0;
+        double others = 1.0;
+    };
+    std::string name;
+    std::vector<Line> lines;
+    SourceRange where;
+};
+
+/// `arrange CASE on MEMBERS by RULE`: the case's arrangements over the spans of a
+/// run of members.
+struct ArrangeRequest {
+    CaseId load_case{};
+    std::vector<MemberId> members;  ///< in order along the run
+    std::size_t rule = 0;           ///< into Model::patterns
+    SourceRange where;
+};
+
+/// A named set of members (`group`, `tag`), for the report's envelope tables.
+struct MemberGroup {
+    std::string name;
+    std::vector<MemberId> members;
+};
+
+/// Deflection limits on members (`deflection MEMBERS limit ROW`): the ratios n
+/// of the limits l/n a row gives for each kind of load; 0 where it gives none.
+struct DeflectionLimits {
+    std::string row;
+    std::vector<MemberId> members;
+    double live = 0.0;       ///< L or Lr, each case alone
+    double snow_wind = 0.0;  ///< S or W, each case alone
+    double total = 0.0;      ///< D + L
+    SourceRange where;
+};
+
 /// A library value replaced by `amend`, for the trace.
 struct Amendment {
     std::string name;
@@ -283,13 +364,24 @@ struct Model {
     std::vector<Section> sections;
     std::vector<Member> members;
     std::vector<Support> supports;
+    std::vector<MemberGroup> groups;
     std::vector<LoadCase> cases;
     std::optional<SnowSite> snow;
     std::vector<Roof> roofs;
     std::vector<Projection> projections;
     std::vector<Amendment> amendments;
     std::vector<TraceLine> snow_trace;  ///< filled by derive_snow
+    std::vector<CombinationSet> combination_sets;
+    std::optional<CombineChoice> combine;
+    std::vector<PatternRule> patterns;
+    std::vector<ArrangeRequest> arrangements;
+    std::vector<DeflectionLimits> deflection_limits;
+    std::vector<TraceLine> arrangement_trace;  ///< filled by arrange_cases
 };
+
+/// True if one member alone reaches node `n` and no support holds it: the free
+/// end of a cantilever or an overhang.
+bool is_free_end(const Model& model, NodeId n);
 
 /// Human words for enums, used by the report and in messages.
 const char* case_kind_name(CaseKind kind);

@@ -75,6 +75,7 @@ struct Builder {
     int nesting = 0;
     std::uint32_t block_line = 0;
     const char* block_kind = "case";  ///< what the open block belongs to, for messages
+    std::optional<syntax::Factor> pending_factor;  ///< a combination factor before its symbol
     /// The open block's missing '}' is reported: the statements after it are
     /// not reported again, one by one, as loads that are not loads.
     bool block_close_reported = false;
@@ -159,8 +160,9 @@ bool starts_line(const char* at, const char* begin) {
 
 /// True if the text at `at` begins with a keyword that starts a top-level statement.
 bool starts_statement(const char* at, const char* end) {
-    static constexpr std::array<std::string_view, 19> words{
-        "snow",    "roof",  "projection", "amend",   "model",    "use",     "let",
+    static constexpr std::array<std::string_view, 24> words{
+        "snow",    "roof",  "projection", "amend", "combinations", "combine", "pattern", "arrange",
+        "deflection",   "model",    "use",     "let",
         "report",  "grid",  "node",    "material", "section", "member",
         "columns", "beams", "rafters", "group",    "support", "case"};
     for (std::string_view w : words) {
@@ -1063,20 +1065,36 @@ struct action<g::kind_wind> : set_case_kind<syntax::CaseDecl::Kind::wind> {};
 template <>
 struct action<g::kind_other> : set_case_kind<syntax::CaseDecl::Kind::other> {};
 
+/// What an open block belongs to, for messages about it.
+const char* block_kind_of(const decltype(syntax::Statement::node)& node) {
+    if (std::holds_alternative<syntax::SnowDecl>(node))
+        return "snow";
+    if (const auto* roof = std::get_if<syntax::RoofDecl>(&node))
+        return roof->projection ? "projection" : "roof";
+    if (std::holds_alternative<syntax::CombinationsDecl>(node))
+        return "combinations";
+    if (std::holds_alternative<syntax::CombineDecl>(node))
+        return "combine";
+    if (std::holds_alternative<syntax::PatternDecl>(node))
+        return "pattern";
+    return "case";
+}
+
 template <>
 struct action<g::block_open> {
     template <typename Input>
     static void apply(const Input& in, Builder& b) {
         b.block_line = b.range(in).begin.line;
         b.block_open = in.begin();
-        b.block_kind = std::holds_alternative<syntax::SnowDecl>(b.statement->node)   ? "snow"
-                       : std::holds_alternative<syntax::RoofDecl>(b.statement->node)
-                           ? (std::get<syntax::RoofDecl>(b.statement->node).projection ? "projection"
-                                                                                        : "roof")
-                                                                                     : "case";
+        b.block_kind = block_kind_of(b.statement->node);
         b.block_close_reported = false;
     }
 };
+
+template <>
+struct action<g::combinations_open> : action<g::block_open> {};
+template <>
+struct action<g::pattern_open> : action<g::block_open> {};
 
 template <>
 struct action<g::block_close> {
@@ -1140,6 +1158,8 @@ struct action<g::setting> {
         b.pending_reason.reset();
         if (auto* snow = std::get_if<syntax::SnowDecl>(&b.statement->node)) {
             snow->settings.push_back(std::move(setting));
+        } else if (auto* combine = std::get_if<syntax::CombineDecl>(&b.statement->node)) {
+            combine->settings.push_back(std::move(setting));
         } else {
             b.current<syntax::RoofDecl>().settings.push_back(std::move(setting));
         }
@@ -1159,6 +1179,162 @@ struct action<g::amend_stmt> {
         amend.reason = std::move(b.pending_reason->first);
         amend.reason_where = b.pending_reason->second;
         b.pending_reason.reset();
+    }
+};
+
+// ---------------------------------------------------------------- combinations
+
+template <>
+struct action<g::combinations_begin> : begin_statement<syntax::CombinationsDecl> {};
+template <>
+struct action<g::combinations_name> : store_name<&syntax::CombinationsDecl::name> {};
+
+template <>
+struct action<g::combination_label> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        syntax::CombinationLine line;
+        line.label = b.name(in);
+        b.current<syntax::CombinationsDecl>().lines.push_back(std::move(line));
+    }
+};
+
+template <>
+struct action<g::combination_term_begin> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.current<syntax::CombinationsDecl>().lines.back().terms.emplace_back();
+        b.pending_factor.reset();
+    }
+};
+
+template <>
+struct action<g::combination_factor> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.pending_factor = syntax::Factor{number_value(in.string_view()), b.range(in)};
+    }
+};
+
+/// A factor before '(' multiplies every alternative inside.
+template <>
+struct action<g::alternatives_open> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        auto& term = b.current<syntax::CombinationsDecl>().lines.back().terms.back();
+        if (b.pending_factor)
+            term.factor = *b.pending_factor;
+        b.pending_factor.reset();
+    }
+};
+
+template <>
+struct action<g::combination_symbol> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        auto& term = b.current<syntax::CombinationsDecl>().lines.back().terms.back();
+        syntax::CombinationTerm::Alternative alternative;
+        if (b.pending_factor)
+            alternative.factor = *b.pending_factor;
+        alternative.symbol = b.name(in);
+        term.alternatives.push_back(std::move(alternative));
+        b.pending_factor.reset();
+    }
+};
+
+template <>
+struct action<g::half_live_label> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::CombinationsDecl>().half_live_in.push_back(b.name(in));
+    }
+};
+
+template <>
+struct action<g::combination_entry> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        auto& set = b.current<syntax::CombinationsDecl>();
+        SourceRange where = b.range(in.begin(), in.end());
+        set.line_where.push_back(where);
+        if (!set.lines.empty() && set.lines.back().where.begin.line == 0)
+            set.lines.back().where = where;
+    }
+};
+
+template <>
+struct action<g::combine_begin> : begin_statement<syntax::CombineDecl> {};
+template <>
+struct action<g::combine_set> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::CombineDecl>().sets.push_back(b.name(in));
+    }
+};
+
+// ---------------------------------------------------------------- arrangements
+
+template <>
+struct action<g::pattern_begin> : begin_statement<syntax::PatternDecl> {};
+template <>
+struct action<g::pattern_name> : store_name<&syntax::PatternDecl::name> {};
+template <>
+struct action<g::pattern_label> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        syntax::PatternDecl::Line line;
+        line.label = b.name(in);
+        b.current<syntax::PatternDecl>().lines.push_back(std::move(line));
+    }
+};
+template <>
+struct action<g::pattern_selector> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        syntax::PatternDecl::Part part;
+        part.selector = b.name(in);
+        b.current<syntax::PatternDecl>().lines.back().parts.push_back(std::move(part));
+    }
+};
+template <>
+struct action<g::pattern_factor> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::PatternDecl>().lines.back().parts.back().factor =
+            syntax::Factor{number_value(in.string_view()), b.range(in)};
+    }
+};
+template <>
+struct action<g::pattern_entry> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::PatternDecl>().lines.back().where = b.range(in.begin(), in.end());
+    }
+};
+
+template <>
+struct action<g::arrange_begin> : begin_statement<syntax::ArrangeDecl> {};
+template <>
+struct action<g::arrange_case> : store_name<&syntax::ArrangeDecl::load_case> {};
+template <>
+struct action<g::arrange_rule> : store_name<&syntax::ArrangeDecl::rule> {};
+template <>
+struct action<g::arrange_member> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::ArrangeDecl>().members.push_back(b.name(in));
+    }
+};
+
+template <>
+struct action<g::deflection_begin> : begin_statement<syntax::DeflectionDecl> {};
+template <>
+struct action<g::deflection_row> : store_name<&syntax::DeflectionDecl::row> {};
+template <>
+struct action<g::deflection_member> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::DeflectionDecl>().members.push_back(b.name(in));
     }
 };
 

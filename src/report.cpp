@@ -9,6 +9,8 @@
 #include <cmath>
 
 #include "number_format.hpp"
+#include "report_envelopes.hpp"
+#include "report_table.hpp"
 
 namespace firn {
 
@@ -18,66 +20,7 @@ const char* const kCaution =
 
 namespace {
 
-constexpr std::size_t kNumberWidth = 12;
-
-/// Writes one table: a header row whose cells fix each column's width (a
-/// number column is 12 wide, or as wide as its header), then rows that fill
-/// the columns in order. Trailing spaces are trimmed from every row.
-class Table {
-  public:
-    explicit Table(std::string& out) : out_(out) {}
-
-    Table& name_column(std::string_view header, std::size_t width) {
-        widths_.push_back(std::max(width, header.size()));
-        out_ += "  ";
-        append_left(out_, header, widths_.back());
-        return *this;
-    }
-    Table& number_column(std::string_view title, const DisplayUnit& unit) {
-        std::string header = fmt::format("{} [{}]", title, unit.name);
-        widths_.push_back(std::max(kNumberWidth, header.size()));
-        out_ += "  ";
-        append_right(out_, header, widths_.back());
-        return *this;
-    }
-    Table& name(std::string_view text) {
-        out_ += "  ";
-        append_left(out_, text, next_width());
-        return *this;
-    }
-    Table& number(double si_value, const DisplayUnit& unit) {
-        std::array<char, kNumberBuffer> buffer;
-        return text(format_fixed(buffer.data(), unit.from_si(si_value), unit.decimals));
-    }
-    Table& text(std::string_view right_aligned) {
-        out_ += "  ";
-        append_right(out_, right_aligned, next_width());
-        return *this;
-    }
-    void end_row() {
-        while (!out_.empty() && out_.back() == ' ')
-            out_.pop_back();
-        out_ += '\n';
-        column_ = 0;
-    }
-
-  private:
-    std::size_t next_width() {
-        return column_ < widths_.size() ? widths_[column_++] : kNumberWidth;
-    }
-
-    std::string& out_;
-    std::vector<std::size_t> widths_;
-    std::size_t column_ = 0;
-};
-
-template <typename T>
-std::size_t name_width(const std::vector<T>& items, std::string_view header) {
-    std::size_t w = header.size();
-    for (const T& item : items)
-        w = std::max(w, item.name.size());
-    return w;
-}
+using namespace report_detail;
 
 // ---------------------------------------------------------------- header
 
@@ -233,11 +176,8 @@ void write_sections(std::string& out, const Model& model) {
 }
 
 /// The snow trace: each derived value with its formula and clause.
-void write_snow(std::string& out, const Model& model) {
-    if (model.snow_trace.empty())
-        return;
-    out += "== Snow loads ==\n";
-    for (const TraceLine& t : model.snow_trace) {
+void write_trace(std::string& out, const std::vector<TraceLine>& trace) {
+    for (const TraceLine& t : trace) {
         if (t.heading) {
             out += fmt::format("\n{}\n", t.text);
             continue;
@@ -248,6 +188,20 @@ void write_snow(std::string& out, const Model& model) {
         out += '\n';
     }
     out += '\n';
+}
+
+void write_snow(std::string& out, const Model& model) {
+    if (model.snow_trace.empty())
+        return;
+    out += "== Snow loads ==\n";
+    write_trace(out, model.snow_trace);
+}
+
+void write_arrangements(std::string& out, const Model& model) {
+    if (model.arrangement_trace.empty())
+        return;
+    out += "== Load arrangements ==\n";
+    write_trace(out, model.arrangement_trace);
 }
 
 void write_case_list(std::string& out, const Model& model) {
@@ -475,11 +429,18 @@ void write_text_report(const Model& model, const Results& results, const ReportO
     write_sections(out, model);
     write_case_list(out, model);
     write_snow(out, model);
+    write_arrangements(out, model);
+    if (options.combinations != nullptr)
+        write_combinations(out, model, *options.combinations);
     for (std::size_t c = 0; c < model.cases.size(); ++c) {
         sink(out);
         out.clear();
         write_case(out, model, results, c, options);
     }
+    if (options.combinations != nullptr && options.envelopes != nullptr)
+        write_envelopes(out, model, *options.combinations, *options.envelopes);
+    if (options.deflections != nullptr)
+        write_deflections(out, model, *options.deflections);
     sink(out);
 }
 

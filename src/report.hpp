@@ -6,6 +6,8 @@
 #include <string>
 #include <string_view>
 
+#include "combinations.hpp"
+#include "deflection.hpp"
 #include "model.hpp"
 #include "results.hpp"
 #include "stations.hpp"
@@ -18,6 +20,9 @@ extern const char* const kCaution;
 struct ReportOptions {
     bool full = false;  ///< every node's displacements and every member's end forces
     const Stations* stations = nullptr;  ///< member stations to print, if any
+    const CombinationList* combinations = nullptr;  ///< with `envelopes`: their sections
+    const std::vector<Envelopes>* envelopes = nullptr;  ///< per set of combinations
+    const std::vector<DeflectionCheck>* deflections = nullptr;
 };
 
 /// Receives a report piece by piece (a piece per load case at most), so a

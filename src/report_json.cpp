@@ -3,6 +3,8 @@
 // report so that output is stable across machines yet loses nothing a reader needs.
 #include <nlohmann/json.hpp>
 
+#include <fmt/format.h>
+
 #include "number_format.hpp"
 #include "report.hpp"
 
@@ -148,6 +150,109 @@ Json snow_trace_json(const Model& model) {
     return lines;
 }
 
+Json governing_json(const Governing& g, const DisplayUnit& unit, const DisplayUnit& length,
+                   const CombinationList& list, std::size_t first) {
+    return Json{{"value", shown(g.value, unit)},
+                {"at", shown(g.position, length)},
+                {"combination", g.combination == no_combination
+                                    ? Json(nullptr)
+                                    : Json(list.combinations[first + g.combination].name)}};
+}
+
+Json combinations_json(const Model& model, const CombinationList& list) {
+    Json out = Json::array();
+    for (std::size_t c = 0; c < list.combinations.size(); ++c) {
+        Json terms = Json::array();
+        for (const CombinationTerm& t : list.combinations[c].terms)
+            terms.push_back({{"case", model.cases[at(t.case_id)].name}, {"factor", t.factor}});
+        out.push_back({{"name", list.combinations[c].name}, {"terms", std::move(terms)}});
+    }
+    return out;
+}
+
+Json component_json(const ComponentEnvelope& e, std::array<const DisplayUnit*, 3> units,
+                    const DisplayUnit& length, const CombinationList& list, std::size_t first) {
+    static constexpr std::array<const char*, 3> kNames{"x", "y", "rotation"};
+    Json out;
+    for (std::size_t d = 0; d < 3; ++d) {
+        out[kNames[d]] = {{"max", governing_json(e.max[d], *units[d], length, list, first)},
+                          {"min", governing_json(e.min[d], *units[d], length, list, first)}};
+    }
+    return out;
+}
+
+Json envelope_json(const Model& model, const CombinationList& list, std::size_t set,
+                   const Envelopes& env) {
+    const DisplayUnits& u = model.units;
+    std::size_t first = list.sets[set].first;
+    auto g = [&](const Governing& v, const DisplayUnit& unit) {
+        return governing_json(v, unit, u.length, list, first);
+    };
+    Json members = Json::array(), reactions = Json::array(), displacements = Json::array();
+    for (std::size_t m = 0; m < env.members.size(); ++m) {
+        const MemberEnvelope& e = env.members[m];
+        members.push_back({{"member", model.members[m].name},
+                           {"moment_max", g(e.moment_max, u.moment)},
+                           {"moment_min", g(e.moment_min, u.moment)},
+                           {"shear_max", g(e.shear_max, u.force)},
+                           {"shear_min", g(e.shear_min, u.force)},
+                           {"tension", g(e.tension, u.force)},
+                           {"compression", g(e.compression, u.force)},
+                           {"deflection_max", g(e.deflection_max, u.displacement)},
+                           {"deflection_min", g(e.deflection_min, u.displacement)}});
+    }
+    for (std::size_t s = 0; s < env.reactions.size(); ++s) {
+        Json r = component_json(env.reactions[s], {&u.force, &u.force, &u.moment}, u.length, list,
+                                first);
+        r["node"] = model.nodes[at(model.supports[s].node)].name;
+        reactions.push_back(std::move(r));
+    }
+    for (std::size_t n = 0; n < env.displacements.size(); ++n) {
+        Json d = component_json(env.displacements[n],
+                                {&u.displacement, &u.displacement, &u.rotation}, u.length, list,
+                                first);
+        d["node"] = model.nodes[n].name;
+        displacements.push_back(std::move(d));
+    }
+    return Json{{"set", list.sets[set].name},
+                {"members", std::move(members)},
+                {"reactions", std::move(reactions)},
+                {"displacements", std::move(displacements)}};
+}
+
+Json deflections_json(const Model& model, const std::vector<DeflectionCheck>& checks) {
+    const DisplayUnits& u = model.units;
+    Json out = Json::array();
+    for (const DeflectionCheck& c : checks) {
+        out.push_back({{"member", model.members[at(c.member)].name},
+                       {"row", model.deflection_limits[c.limits].row},
+                       {"load", c.column},
+                       {"case", c.governing},
+                       {"deflection", shown(c.deflection, u.displacement)},
+                       {"span", shown(c.span, u.length)},
+                       {"n", c.n},
+                       {"limit", shown(c.span / c.n, u.displacement)},
+                       {"ratio", round_to(c.ratio(), 5)},
+                       {"passes", c.passes()}});
+    }
+    return out;
+}
+
+/// The parts after the cases: combinations, envelopes, deflection checks.
+Json checks_json(const Model& model, const ReportOptions& options) {
+    Json out = Json::object();
+    if (options.combinations != nullptr && model.combine) {
+        out["combinations"] = combinations_json(model, *options.combinations);
+        Json envelopes = Json::array();
+        for (std::size_t s = 0; options.envelopes != nullptr && s < options.envelopes->size(); ++s)
+            envelopes.push_back(envelope_json(model, *options.combinations, s, (*options.envelopes)[s]));
+        out["envelopes"] = std::move(envelopes);
+    }
+    if (options.deflections != nullptr && !model.deflection_limits.empty())
+        out["deflection_checks"] = deflections_json(model, *options.deflections);
+    return out;
+}
+
 }  // namespace
 
 void write_json_report(const Model& model, const Results& results, const ReportOptions& options,
@@ -179,7 +284,18 @@ void write_json_report(const Model& model, const Results& results, const ReportO
         sink(text);
         text.clear();
     }
-    text += model.cases.empty() ? "]\n}\n" : "\n ]\n}\n";
+    text += model.cases.empty() ? "]" : "\n ]";
+    Json tail = checks_json(model, options);
+    for (auto it = tail.begin(); it != tail.end(); ++it) {
+        std::string one = it.value().dump(1, ' ', false, Json::error_handler_t::replace);
+        text += fmt::format(",\n \"{}\": ", it.key());
+        for (char ch : one) {
+            text += ch;
+            if (ch == '\n')
+                text += ' ';
+        }
+    }
+    text += "\n}\n";
     sink(text);
 }
 

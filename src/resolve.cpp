@@ -171,6 +171,11 @@ struct Collected {
     std::vector<const syntax::SnowDecl*> snow;
     std::vector<const syntax::RoofDecl*> roofs;
     std::vector<const syntax::RoofDecl*> projections;
+    std::vector<const syntax::CombinationsDecl*> combination_sets;
+    std::vector<const syntax::CombineDecl*> combine;
+    std::vector<const syntax::PatternDecl*> patterns;
+    std::vector<const syntax::ArrangeDecl*> arrangements;
+    std::vector<const syntax::DeflectionDecl*> deflections;
     std::vector<const syntax::AmendDecl*> amends;
     std::vector<const syntax::Statement*> snow_statements;
     std::vector<const syntax::SupportDecl*> supports;
@@ -214,6 +219,16 @@ Collected collect(std::span<const syntax::Tree> trees) {
                         (node.projection ? c.projections : c.roofs).push_back(&node);
                     if constexpr (std::is_same_v<T, syntax::AmendDecl>)
                         c.amends.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::CombinationsDecl>)
+                        c.combination_sets.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::CombineDecl>)
+                        c.combine.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::PatternDecl>)
+                        c.patterns.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::ArrangeDecl>)
+                        c.arrangements.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::DeflectionDecl>)
+                        c.deflections.push_back(&node);
                     if constexpr (std::is_same_v<T, syntax::SupportDecl>)
                         c.supports.push_back(&node);
                     if constexpr (std::is_same_v<T, syntax::CaseDecl>)
@@ -674,6 +689,8 @@ Model resolve(std::span<const syntax::Tree> trees, Diagnostics& diagnostics) {
     resolve_supports(r, c);
     resolve_cases(r, c.cases);
     resolve_snow(r, c.snow, c.roofs, c.projections, c.amends, c.snow_statements);
+    resolve_combinations(r, c.combination_sets, c.combine, c.patterns, c.arrangements);
+    resolve_deflection_limits(r, c.deflections);
     check_whole_model(r, c);
     return std::move(r.model);
 }

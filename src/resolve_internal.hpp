@@ -160,6 +160,29 @@ void resolve_member_statements(Resolver& r, const std::vector<const syntax::Stat
 void resolve_groups(Resolver& r, const std::vector<const syntax::GroupDecl*>& groups);
 
 /// Reads the `snow`, `roof` and `amend` statements into r.model.
+/// How messages about a run of members name its owner and its rule.
+struct RunWords {
+    const char* owner;      ///< "roof"
+    const char* one_run;    ///< "a roof is one run of members from eave to eave"
+    const char* connected;  ///< "a roof is one connected surface"
+};
+
+/// `members` in order along one connected, unbranched run from its leftmost
+/// free end; nullopt after an error located at `owner`, or quietly when a
+/// member has an error of its own.
+std::optional<std::vector<MemberId>> member_run(Resolver& r, const syntax::Name& owner,
+                                                const RunWords& words,
+                                                const std::vector<MemberId>& members);
+
+/// Combination sets, the sets chosen, pattern rules and arrange requests.
+void resolve_combinations(Resolver& r, const std::vector<const syntax::CombinationsDecl*>& sets,
+                          const std::vector<const syntax::CombineDecl*>& choices,
+                          const std::vector<const syntax::PatternDecl*>& patterns,
+                          const std::vector<const syntax::ArrangeDecl*>& arrangements);
+
+/// `deflection MEMBERS limit ROW`: the row's limits from the library.
+void resolve_deflection_limits(Resolver& r, const std::vector<const syntax::DeflectionDecl*>& decls);
+
 void resolve_snow(Resolver& r, const std::vector<const syntax::SnowDecl*>& snow,
                   const std::vector<const syntax::RoofDecl*>& roofs,
                   const std::vector<const syntax::RoofDecl*>& projections,

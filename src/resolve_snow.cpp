@@ -290,24 +290,29 @@ void resolve_site(Resolver& r, const syntax::SnowDecl& decl) {
 
 /// The roof's members ordered along the surface from its left end, or nullopt
 /// after reporting members that do not form one connected, unbranched surface.
-std::optional<std::vector<MemberId>> roof_chain(Resolver& r, const syntax::RoofDecl& decl,
+}  // namespace
+
+std::optional<std::vector<MemberId>> member_run(Resolver& r, const syntax::Name& owner,
+                                                const RunWords& words,
                                                 const std::vector<MemberId>& members) {
+    for (MemberId m : members) {
+        if (!r.member_valid[at(m)])
+            return std::nullopt;  // its own error is reported
+    }
     std::map<NodeId, std::vector<MemberId>> at_node;
     for (MemberId m : members) {
         at_node[r.model.members[at(m)].start].push_back(m);
         at_node[r.model.members[at(m)].end].push_back(m);
     }
     auto fail = [&](std::string message) {
-        r.diagnostics.error(decl.name.where, fmt::format("roof '{}': {}", decl.name.text, message));
+        r.diagnostics.error(owner.where, fmt::format("{} '{}': {}", words.owner, owner.text, message));
         return std::nullopt;
     };
     std::optional<NodeId> left;
     for (const auto& [node, touching] : at_node) {
         if (touching.size() > 2) {
-            return fail(
-                fmt::format("its members branch at node '{}'; a roof is one run of "
-                            "members from eave to eave",
-                            r.model.nodes[at(node)].name));
+            return fail(fmt::format("its members branch at node '{}'; {}",
+                                    r.model.nodes[at(node)].name, words.one_run));
         }
         if (touching.size() == 1 &&
             (!left || r.model.nodes[at(node)].x < r.model.nodes[at(*left)].x)) {
@@ -315,7 +320,7 @@ std::optional<std::vector<MemberId>> roof_chain(Resolver& r, const syntax::RoofD
         }
     }
     if (!left)
-        return fail("its members close a loop; a roof is one run of members from eave to eave");
+        return fail(fmt::format("its members close a loop; {}", words.one_run));
     std::vector<MemberId> chain;
     std::vector<char> taken(r.model.members.size(), 0);
     for (NodeId n = *left;;) {
@@ -332,13 +337,13 @@ std::optional<std::vector<MemberId>> roof_chain(Resolver& r, const syntax::RoofD
     if (chain.size() != members.size()) {
         auto loose =
             std::find_if(members.begin(), members.end(), [&](MemberId m) { return !taken[at(m)]; });
-        return fail(
-            fmt::format("member '{}' does not touch the others; a roof is one connected "
-                        "surface",
-                        r.model.members[at(*loose)].name));
+        return fail(fmt::format("member '{}' does not touch the others; {}",
+                                r.model.members[at(*loose)].name, words.connected));
     }
     return chain;
 }
+
+namespace {
 
 /// "; did you mean 'x'?", or "; the plan lines are 1, 2, 3" when nothing is near.
 std::string near_or_all(const std::string& word, const std::vector<std::string>& names) {
@@ -528,7 +533,7 @@ void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
          "step_left", "step_left_upper_length", "step_right", "step_right_upper_length",
          "parapet_left", "parapet_right", "sliding_from_left", "sliding_from_right",
          "adjacent_left", "adjacent_left_gap", "adjacent_left_length", "adjacent_right",
-         "adjacent_right_gap", "adjacent_right_length"},
+         "adjacent_right_gap", "adjacent_right_length", "partial"},
         fmt::format("roof '{}'", decl.name.text).c_str());
     Roof roof;
     roof.name = decl.name.text;
@@ -541,14 +546,21 @@ void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
     roof.ventilated = s.word("ventilated", {"yes", "no"}).value_or("no") == "yes";
     roof.simple_rafters =
         s.word("rafter_spans", {"simple", "continuous"}).value_or("continuous") == "simple";
+    if (const syntax::Setting* partial = s.find("partial")) {
+        if (partial->value.kind == syntax::Expr::Kind::constant) {
+            roof.partial = partial->value.literal;
+            roof.partial_where = partial->value.where;
+        } else
+            r.diagnostics.error(partial->value.where,
+                                "partial names a pattern rule, or none, as in: partial = "
+                                "asce7_16.partial");
+    }
     bool edges_ok = read_edge(r, s, "left", roof.left) & read_edge(r, s, "right", roof.right);
     if (!names.add(decl.name, r.diagnostics) || !found || !tributary_ok || !edges_ok)
         return;
-    for (MemberId m : members) {
-        if (!r.member_valid[at(m)])
-            return;  // its own error is reported
-    }
-    auto chain = roof_chain(r, decl, members);
+    static const RunWords roof_words{"roof", "a roof is one run of members from eave to eave",
+                                     "a roof is one connected surface"};
+    auto chain = member_run(r, decl.name, roof_words, members);
     if (!chain)
         return;
     roof.members = std::move(*chain);

@@ -4,6 +4,7 @@
 // Drifts and sliding snow are in snow_drift.cpp.
 #include "snow.hpp"
 
+#include "arrange.hpp"
 #include "snow_internal.hpp"
 
 namespace firn {
@@ -64,7 +65,7 @@ bool from_memory(std::string_view clause) {
     for (std::string_view c :
          {"Table 7.3-1", "Table 1.5-2", "Sec. 7.3.4", "Sec. 7.10", "Fig. 7.4-1a", "Fig. 7.4-1b",
           "Fig. 7.4-1c", "Sec. 7.4.1", "Sec. 7.6.1", "Fig. 7.6-2", "Fig. 7.6-1", "Sec. 7.7.1",
-          "Sec. 7.8", "Sec. 7.7.2", "Sec. 7.4.5", "Sec. 7.9"}) {
+          "Sec. 7.8", "Sec. 7.7.2", "Sec. 7.4.5", "Sec. 7.9", "Sec. 7.5.1"}) {
         if (clause.ends_with(c))
             return true;
     }
@@ -285,6 +286,57 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
     }
 }
 
+/// Partial loading (Sec. 7.5.1): the balanced load ps (without rain-on-snow) on
+/// some spans of the roof and a fraction of it on the others, by the library's
+/// rule (or the roof's own); the other roofs keep their balanced load.
+void SnowDeriver::partial_loads(const Roof& roof) {
+    const char* clause = "ASCE 7-16 Sec. 7.5.1";
+    std::string rule_name = roof.partial.empty() ? site_.standard + ".partial" : roof.partial;
+    heading(fmt::format("Partial loads on roof {}", roof.name));
+    if (rule_name == "none") {
+        line(fmt::format("partial loading not applied: the roof says partial = none"), clause);
+        return;
+    }
+    auto rule = std::find_if(m_.patterns.begin(), m_.patterns.end(),
+                             [&](const PatternRule& p) { return p.name == rule_name; });
+    if (rule == m_.patterns.end()) {
+        line(fmt::format("partial loading not applied: no pattern rule {} (is 'use {}' missing?)",
+                         rule_name, site_.standard),
+             clause);
+        return;
+    }
+    double steepest = 0.0;
+    for (MemberId id : roof.members)
+        steepest = std::max(steepest, geometry_of(m_, id).slope);
+    if (shape_of(m_, roof).ridge && std::tan(steepest) >= t_.unbalanced_min_rise - 1e-12) {
+        line(fmt::format("partial loading not required: the members span perpendicular to the "
+                         "ridge of a gable roof sloped {}, not below {}",
+                         degrees(steepest), degrees(std::atan(t_.unbalanced_min_rise))),
+             clause);
+        return;
+    }
+    std::vector<Span> spans = spans_of(m_, roof.members);
+    std::vector<std::string> names;
+    for (const Span& span : spans)
+        names.push_back(span.cantilever ? span.name + " (cantilever)" : span.name);
+    if (spans.size() < 2) {
+        line(fmt::format("partial loading not required: roof {} has one span, {}", roof.name,
+                         fmt::join(names, ", ")),
+             clause);
+        return;
+    }
+    line(fmt::format("spans {}, arranged by rule {}; the other roofs carry their balanced load",
+                     fmt::join(names, ", "), rule->name),
+         clause);
+    for (const Arrangement& a : arrangements_of(*rule, spans)) {
+        LoadCase lc = arranged_case(m_, plain_balanced_, roof.members, spans, a,
+                                    fmt::format("{}.partial.{}.{}", site_.name, roof.name, a.name));
+        lc.arrangement_of.clear();
+        line(fmt::format("case {}: ps x {}", lc.name, a.description), clause);
+        add_case(std::move(lc));
+    }
+}
+
 /// Unbalanced loads on a gable (Sec. 7.6.1): one case for wind from each side.
 void SnowDeriver::unbalanced(const Roof& roof, const std::vector<double>& ps, double steepest) {
     const char* clause = "ASCE 7-16 Sec. 7.6.1";
@@ -402,17 +454,9 @@ LoadCase& SnowDeriver::case_named(const char* what) {
 /// member and no support.
 std::vector<MemberId> SnowDeriver::overhangs(const Roof& roof) const {
     std::vector<MemberId> found;
-    auto free_end = [&](NodeId n) {
-        std::size_t count = 0;
-        for (const Member& m : m_.members)
-            count += static_cast<std::size_t>(m.start == n) + static_cast<std::size_t>(m.end == n);
-        bool supported = std::any_of(m_.supports.begin(), m_.supports.end(),
-                                     [&](const Support& s) { return s.node == n; });
-        return count == 1 && !supported;
-    };
     for (MemberId id : {roof.members.front(), roof.members.back()}) {
         const Member& m = m_.members[at(id)];
-        bool outer = free_end(m.start) || free_end(m.end);
+        bool outer = is_free_end(m_, m.start) || is_free_end(m_, m.end);
         if (outer && std::find(found.begin(), found.end(), id) == found.end())
             found.push_back(id);
     }
@@ -452,8 +496,10 @@ void SnowDeriver::ice_dam(const Roof& roof) {
                      t_.ice_dam_factor, t_.ice_dam_factor, pressure(pf_), pressure(p),
                      fmt::join(names, ", "), roof.insulation_R, needed, site_.name),
          clause);
-    if (ice_dam_.name.empty())
+    if (ice_dam_.name.empty()) {
         ice_dam_ = new_case("ice_dam");
+        ice_dam_.with_dead_only = true;
+    }
     load_members(roof, eaves, p, ice_dam_);
 }
 

@@ -54,6 +54,7 @@ class SnowDeriver {
         trace_site();
         LoadCase balanced = new_case("balanced");
         LoadCase minimum = new_case("minimum");
+        plain_balanced_ = new_case("balanced");
         for (const Roof& roof : m_.roofs)
             derive_roof(roof, balanced, minimum);
         add_case(std::move(balanced));
@@ -61,6 +62,8 @@ class SnowDeriver {
             add_case(std::move(minimum));
         for (LoadCase& lc : unbalanced_cases_)
             add_case(std::move(lc));
+        for (const Roof& roof : m_.roofs)
+            partial_loads(roof);
         if (!ice_dam_.distributed.empty())
             add_case(std::move(ice_dam_));
         for (LoadCase& lc : drift_cases_) {
@@ -111,6 +114,7 @@ class SnowDeriver {
     std::vector<LoadCase> drift_cases_;
     LoadCase plain_balanced_;  ///< ps on every roof, for the drift cases
     LoadCase ice_dam_;         ///< 2 pf on eave overhangs (combined with dead load only)
+    void partial_loads(const Roof& roof);
     void drift_at(const Roof& roof, double ps, bool left_end);
     void adjacent_drift(const Roof& roof, double ps, bool left_end);
     void projection_drifts(const Projection& p, const std::vector<double>& ps);

@@ -267,11 +267,77 @@ struct AmendDecl {
     SourceRange reason_where;
 };
 
+/// A factor as written (`1.6`): its value, and its text for the formatter.
+struct Factor {
+    double value = 1.0;
+    SourceRange where;  ///< empty (begin == end) where no factor is written
+};
+
+/// `1.6 (Lr or S or R)`: a factor on one load symbol, or on one of several.
+struct CombinationTerm {
+    Factor factor;
+    struct Alternative {
+        Factor factor;
+        Name symbol;
+    };
+    std::vector<Alternative> alternatives;  ///< one for a plain `1.6 L`
+};
+
+/// `3 = 1.2 D + 1.6 (Lr or S or R) + (L or 0.5 W)`
+struct CombinationLine {
+    Name label;
+    std::vector<CombinationTerm> terms;
+    SourceRange where;
+};
+
+/// `combinations asce7_16.strength { ... }`: a set of load combinations.
+struct CombinationsDecl {
+    Name name;
+    std::vector<CombinationLine> lines;
+    std::vector<Name> half_live_in;  ///< labels where L's 1.0 may be 0.5
+    std::vector<SourceRange> line_where;  ///< every line of the block, for the formatter
+};
+
+/// `combine asce7_16.strength { half_live = yes because "..." }`
+struct CombineDecl {
+    std::vector<Name> sets;
+    std::vector<Setting> settings;
+};
+
+/// `pattern alternate { odd: each = 1.0, others = 0 }`: arrangements of a load over spans.
+struct PatternDecl {
+    Name name;
+    struct Part {
+        Name selector;
+        Factor factor;
+    };
+    struct Line {
+        Name label;
+        std::vector<Part> parts;
+        SourceRange where;
+    };
+    std::vector<Line> lines;
+};
+
+/// `arrange L on floor.* by alternate`
+struct ArrangeDecl {
+    Name load_case;
+    std::vector<Name> members;
+    Name rule;
+};
+
+/// `deflection eave.* limit ibc2018.roof_no_ceiling`
+struct DeflectionDecl {
+    std::vector<Name> members;
+    Name row;
+};
+
 /// One statement of a model file and the source range it covers.
 struct Statement {
     std::variant<ModelTitle, ReportUnits, Grid, LetDecl, UseDecl, NodeDecl, MaterialDecl,
                  SectionDecl, MemberDecl, ColumnsDecl, BeamsDecl, RaftersDecl, GroupDecl,
-                 SupportDecl, CaseDecl, SnowDecl, RoofDecl, AmendDecl>
+                 SupportDecl, CaseDecl, SnowDecl, RoofDecl, AmendDecl, CombinationsDecl,
+                 CombineDecl, PatternDecl, ArrangeDecl, DeflectionDecl>
         node;
     SourceRange where;
 };
