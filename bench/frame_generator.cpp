@@ -111,4 +111,26 @@ std::string rectangular_frame(std::size_t bays, std::size_t storeys, std::size_t
     return out;
 }
 
+std::string snow_frame(std::size_t bays, std::size_t storeys) {
+    std::string out = fmt::format(
+        "# Generated: {} bays x {} storeys under dead, live and ASCE 7-16 snow loads\n"
+        "model \"Bench snow frame {}x{}\"\nuse asce7_16\nreport units kip, ft\n\n"
+        "grid x 1..{} spacing 24 ft\ngrid y L0..L{} spacing 12 ft\n"
+        "material steel E = 29000 ksi, density = 490 pcf\n"
+        "section col steel, A = 14.1 in2, I = 272 in4\n"
+        "section beam steel, A = 11.8 in2, I = 510 in4\n"
+        "columns on 1..{} from L0 to L{} section col\n"
+        "beams along L1..L{} from 1 to {} section beam\n"
+        "support fixed at L0\n\n"
+        "case D dead {{\n  self weight\n  uniform 0.5 kip/ft down on L*.*\n}}\n"
+        "case L live {{\n  uniform 1.25 kip/ft down on L*.*\n}}\n"
+        "snow S {{\n  standard = asce7_16\n  pg = 40 psf\n  terrain = C\n"
+        "  exposure = partially\n  thermal = heated\n  risk = II\n}}\n"
+        "roof main on {}.* {{\n  tributary = 25 ft\n}}\n"
+        "combine asce7_16.strength\n",
+        bays, storeys, bays, storeys, bays + 1, storeys, bays + 1, storeys, storeys, bays + 1,
+        level(storeys));
+    return out;
+}
+
 }  // namespace firn::bench

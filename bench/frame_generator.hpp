@@ -15,4 +15,10 @@ std::string rectangular_frame(std::size_t bays, std::size_t storeys, std::size_t
 /// patterns: a few lines for the structure, one per load.
 std::string generated_frame(std::size_t bays, std::size_t storeys, std::size_t cases);
 
+/// The generated frame under dead, live and derived snow loads: the top level's
+/// beams are one roof, so ASCE 7-16 Sec. 7.5.1 gives its partial arrangements
+/// (case 3 on every pair of adjacent bays), and the model is combined for
+/// ASCE 7-16 strength design.
+std::string snow_frame(std::size_t bays, std::size_t storeys);
+
 }  // namespace firn::bench
