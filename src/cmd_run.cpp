@@ -40,6 +40,7 @@ int run(const RunArgs& args) {
     options.combinations = &a.combinations;
     options.envelopes = &a.envelopes;
     options.deflections = &a.deflections;
+    options.mirror = &a.mirror;
     if (args.full) {
         stations = compute_stations(a.model, a.loads, a.solution, kStationsPerMember);
         options.stations = &stations;

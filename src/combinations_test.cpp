@@ -355,3 +355,20 @@ TEST_CASE("deflection: a member past its limit fails, and an unknown row is an e
                                                  "'ibc2018.roof_no_ceilng'") !=
           std::string::npos);
 }
+
+TEST_CASE("envelopes: in the shelter example a partial snow arrangement governs a beam") {
+    // ASCE 7-16 Sec. 7.5.1 (from memory): taking snow off the middle and far spans raises
+    // the sagging moment of an end span (three-moment equation, as in the test above), so
+    // the end beam's largest M+ under strength design comes from a partial arrangement.
+    Analysis a = analyse_file(FIRN_SOURCE_DIR "/examples/shelter.firn");
+    REQUIRE(a.ok);
+    REQUIRE(a.envelopes.size() == 2);  // strength, then allowable stress
+    const MemberEnvelope& end_beam = a.envelopes[0].members[member_index(a.model, "eave.A.B")];
+    const Combination& governing = a.combinations.combinations[end_beam.moment_max.combination];
+    bool partial = std::any_of(governing.terms.begin(), governing.terms.end(),
+                               [&](const CombinationTerm& t) {
+                                   return a.model.cases[at(t.case_id)].name ==
+                                          "S.partial.main.case1.A_B";
+                               });
+    CHECK(partial);
+}

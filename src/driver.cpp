@@ -5,6 +5,7 @@
 
 #include "arrange.hpp"
 #include "file_io.hpp"
+#include "mirror.hpp"
 #include "resolve.hpp"
 #include "snow.hpp"
 
@@ -51,6 +52,7 @@ Analysis analyse_text(std::string name, std::string text, PhaseTimes* times,
     if (a.diagnostics.has_errors())
         return a;
     a.loads = derive_loads(a.model, a.diagnostics);
+    a.mirror = find_mirror(a.model, a.loads);
     t.loads = clock.lap();
     if (a.diagnostics.has_errors())
         return a;

@@ -9,6 +9,7 @@
 #include "diag.hpp"
 #include "imports.hpp"
 #include "loads.hpp"
+#include "mirror.hpp"
 #include "model.hpp"
 #include "results.hpp"
 #include "solve.hpp"
@@ -30,6 +31,7 @@ struct Analysis {
     Diagnostics diagnostics;
     Model model;
     LoadSet loads;
+    Mirror mirror;
     Solution solution;
     Results results;
     CombinationList combinations;

@@ -166,7 +166,10 @@ class Printer {
     /// A block line of tokens as written (a combination or an arrangement rule).
     void print_source_line(const SourceRange& where) {
         signature_ += "\n line:";
-        signature_ += std::string(text_of(where.begin.offset, where.end.offset));
+        for (char c : text_of(where.begin.offset, where.end.offset)) {
+            if (!is_blank(c))
+                signature_ += c;
+        }
         source_words(where.begin.offset, where.end.offset);
     }
 

@@ -181,6 +181,7 @@ struct SnowTables {
     double drift_pg_offset = 0.0;      ///< Pa
     double drift_offset = 0.0;         ///< m
     double drift_min_lu = 0.0;         ///< m
+    double partial_gable_exempt_rise = 0.0;  ///< gable members this steep need no partial load
     double adjacent_max_gap = 0.0;     ///< m: a drift from an adjacent structure below this gap
     double projection_min_face = 0.0;  ///< m: no drift on a shorter side of a projection
     double unbalanced_min_rise = 0.0;  ///< rise per run from which unbalanced loads apply

@@ -1251,7 +1251,7 @@ struct action<g::half_live_label> {
 };
 
 template <>
-struct action<g::combination_entry> {
+struct action<g::combination_body> {
     template <typename Input>
     static void apply(const Input& in, Builder& b) {
         auto& set = b.current<syntax::CombinationsDecl>();
@@ -1305,7 +1305,7 @@ struct action<g::pattern_factor> {
     }
 };
 template <>
-struct action<g::pattern_entry> {
+struct action<g::pattern_line> {
     template <typename Input>
     static void apply(const Input& in, Builder& b) {
         b.current<syntax::PatternDecl>().lines.back().where = b.range(in.begin(), in.end());

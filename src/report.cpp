@@ -430,6 +430,8 @@ void write_text_report(const Model& model, const Results& results, const ReportO
     write_case_list(out, model);
     write_snow(out, model);
     write_arrangements(out, model);
+    if (options.mirror != nullptr)
+        write_mirror(out, model, *options.mirror);
     if (options.combinations != nullptr)
         write_combinations(out, model, *options.combinations);
     for (std::size_t c = 0; c < model.cases.size(); ++c) {

@@ -8,6 +8,7 @@
 
 #include "combinations.hpp"
 #include "deflection.hpp"
+#include "mirror.hpp"
 #include "model.hpp"
 #include "results.hpp"
 #include "stations.hpp"
@@ -23,6 +24,7 @@ struct ReportOptions {
     const CombinationList* combinations = nullptr;  ///< with `envelopes`: their sections
     const std::vector<Envelopes>* envelopes = nullptr;  ///< per set of combinations
     const std::vector<DeflectionCheck>* deflections = nullptr;
+    const Mirror* mirror = nullptr;  ///< which cases and members mirror which
 };
 
 /// Receives a report piece by piece (a piece per load case at most), so a

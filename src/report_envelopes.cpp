@@ -256,4 +256,50 @@ void write_deflections(std::string& out, const Model& model,
     }
 }
 
+void write_mirror(std::string& out, const Model& model, const Mirror& mirror) {
+    out += "== Mirror images ==\n\n";
+    if (!mirror.symmetric) {
+        out += "The frame is not symmetric about a vertical axis (geometry, sections, hinges "
+               "and supports).\n\n";
+        return;
+    }
+    const DisplayUnit& length = model.units.length;
+    std::array<char, kNumberBuffer> buffer;
+    out += fmt::format("The frame is symmetric about x = {} {}; every case is still analysed.\n",
+                       format_fixed(buffer.data(), length.from_si(mirror.axis), length.decimals),
+                       length.name);
+    std::vector<std::string> pairs, own, none;
+    for (std::size_t c = 0; c < model.cases.size(); ++c) {
+        const std::string& name = model.cases[c].name;
+        const auto& image = mirror.case_mirror[c];
+        if (!image)
+            none.push_back(name);
+        else if (at(*image) == c)
+            own.push_back(name);
+        else if (at(*image) > c)
+            pairs.push_back(fmt::format("{} <-> {}", name, model.cases[at(*image)].name));
+    }
+    auto list = [&out](const char* title, const std::vector<std::string>& items) {
+        if (items.empty())
+            return;
+        out += fmt::format("\n{}\n", title);
+        for (const std::string& item : items)
+            out += fmt::format("  {}\n", item);
+    };
+    list("Cases that mirror each other", pairs);
+    list("Cases symmetric in themselves", own);
+    list("Cases with no mirror image among the cases", none);
+    std::vector<std::string> members;
+    for (std::size_t m = 0; m < model.members.size(); ++m) {
+        const auto& image = mirror.member[m];
+        if (image && at(*image) >= m) {
+            members.push_back(at(*image) == m ? fmt::format("{} (on the axis)", model.members[m].name)
+                                              : fmt::format("{} <-> {}", model.members[m].name,
+                                                            model.members[at(*image)].name));
+        }
+    }
+    list("Members and their images", members);
+    out += '\n';
+}
+
 }  // namespace firn

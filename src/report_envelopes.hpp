@@ -5,6 +5,7 @@
 
 #include "combinations.hpp"
 #include "deflection.hpp"
+#include "mirror.hpp"
 #include "model.hpp"
 
 namespace firn {
@@ -23,5 +24,10 @@ void write_envelopes(std::string& out, const Model& model, const CombinationList
 /// case under each column of its row, its deflection, the limit and the ratio.
 void write_deflections(std::string& out, const Model& model,
                        const std::vector<DeflectionCheck>& checks);
+
+/// `== Mirror images ==`: with a frame symmetric about a vertical axis, the load
+/// cases that mirror each other, those symmetric in themselves, and each
+/// member's image. One line when the frame is not symmetric.
+void write_mirror(std::string& out, const Model& model, const Mirror& mirror);
 
 }  // namespace firn

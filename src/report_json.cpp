@@ -238,9 +238,33 @@ Json deflections_json(const Model& model, const std::vector<DeflectionCheck>& ch
     return out;
 }
 
-/// The parts after the cases: combinations, envelopes, deflection checks.
+Json mirror_json(const Model& model, const Mirror& mirror) {
+    Json out{{"symmetric", mirror.symmetric}};
+    if (!mirror.symmetric)
+        return out;
+    out["axis"] = shown(mirror.axis, model.units.length);
+    Json cases = Json::array(), members = Json::array();
+    for (std::size_t c = 0; c < model.cases.size(); ++c) {
+        const auto& image = mirror.case_mirror[c];
+        cases.push_back({{"case", model.cases[c].name},
+                         {"mirror", image ? Json(model.cases[at(*image)].name) : Json(nullptr)}});
+    }
+    for (std::size_t m = 0; m < model.members.size(); ++m) {
+        const auto& image = mirror.member[m];
+        members.push_back(
+            {{"member", model.members[m].name},
+             {"mirror", image ? Json(model.members[at(*image)].name) : Json(nullptr)}});
+    }
+    out["cases"] = std::move(cases);
+    out["members"] = std::move(members);
+    return out;
+}
+
+/// The parts after the cases: mirror images, combinations, envelopes, deflection checks.
 Json checks_json(const Model& model, const ReportOptions& options) {
     Json out = Json::object();
+    if (options.mirror != nullptr)
+        out["mirror"] = mirror_json(model, *options.mirror);
     if (options.combinations != nullptr && model.combine) {
         out["combinations"] = combinations_json(model, *options.combinations);
         Json envelopes = Json::array();

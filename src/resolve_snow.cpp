@@ -159,6 +159,7 @@ SnowTables read_tables(Library& lib) {
     t.drift_pg_offset = lib.need("drift.pg_offset", dim::pressure);
     t.drift_offset = lib.need("drift.offset", dim::length);
     t.drift_min_lu = lib.need("drift.min_lu", dim::length);
+    t.partial_gable_exempt_rise = lib.need("partial.gable_exempt_rise", dim::number);
     t.adjacent_max_gap = lib.need("adjacent.max_gap", dim::length);
     t.projection_min_face = lib.need("projection.min_face", dim::length);
     t.unbalanced_min_rise = lib.need("unbalanced.min_rise", dim::number);

@@ -308,10 +308,10 @@ void SnowDeriver::partial_loads(const Roof& roof) {
     double steepest = 0.0;
     for (MemberId id : roof.members)
         steepest = std::max(steepest, geometry_of(m_, id).slope);
-    if (shape_of(m_, roof).ridge && std::tan(steepest) >= t_.unbalanced_min_rise - 1e-12) {
+    if (shape_of(m_, roof).ridge && std::tan(steepest) >= t_.partial_gable_exempt_rise - 1e-12) {
         line(fmt::format("partial loading not required: the members span perpendicular to the "
                          "ridge of a gable roof sloped {}, not below {}",
-                         degrees(steepest), degrees(std::atan(t_.unbalanced_min_rise))),
+                         degrees(steepest), degrees(std::atan(t_.partial_gable_exempt_rise))),
              clause);
         return;
     }
