@@ -559,8 +559,8 @@ struct combination_line : if_must<combination_label, sp, equals, sp, combination
 struct half_live_label : name {};
 struct half_live_line : if_must<kw_half_live_in, sp, equals, sp, half_live_label,
                                 star<list_sep, half_live_label>> {};
-struct combination_entry : seq<sor<half_live_line, combination_line>, sp,
-                               must<end_of_statement>> {};
+struct combination_body : sor<half_live_line, combination_line> {};
+struct combination_entry : seq<combination_body, sp, must<end_of_statement>> {};
 struct combination_item : seq<not_at<sor<block_close, eof>>,
                               recover<combination_entry, skip_in_block>, sp_nl> {};
 struct combinations_name : name {};
