@@ -114,19 +114,18 @@ int run_snow(std::size_t bays, std::size_t storeys) {
         std::fputs(firn::render(a.diagnostics, a.sources).c_str(), stderr);
         return 2;
     }
-    std::printf("%s", fmt::format("frame {} bays x {} storeys under snow with ASCE 7-16 partial "
-                                  "loading on its roof: {} cases, {} strength combinations\n",
-                                  bays, storeys, a.model.cases.size(),
-                                  a.combinations.combinations.size())
-                          .c_str());
-    const std::pair<const char*, double> phases[] = {
-        {"parse + resolve", t.parse + t.resolve},
-        {"snow, loads", t.loads},
-        {"assemble + factor", t.assemble + t.factor},
-        {"solve", t.solve},
-        {"results", t.results},
-        {"combinations + envelopes", t.combinations},
-        {"model to envelopes", total}};
+    std::printf("%s",
+                fmt::format("frame {} bays x {} storeys under snow with ASCE 7-16 partial "
+                            "loading on its roof: {} cases, {} strength combinations\n",
+                            bays, storeys, a.model.cases.size(), a.combinations.combinations.size())
+                    .c_str());
+    const std::pair<const char*, double> phases[] = {{"parse + resolve", t.parse + t.resolve},
+                                                     {"snow, loads", t.loads},
+                                                     {"assemble + factor", t.assemble + t.factor},
+                                                     {"solve", t.solve},
+                                                     {"results", t.results},
+                                                     {"combinations + envelopes", t.combinations},
+                                                     {"model to envelopes", total}};
     for (const auto& [name, seconds] : phases)
         std::printf("  %-24s %8.3f s\n", name, seconds);
     return 0;

@@ -28,7 +28,8 @@ inline constexpr std::array<std::string_view, 56> keywords{
 /// Words that are keywords only where the grammar expects them, and otherwise
 /// free for names: `roof` starts `roof live`, but engineers name levels "roof";
 /// `plan` follows `grid` only; `projection`, `combinations`, `combine`, `pattern` and
-/// `arrange`, `deflection` start a statement only; `limit` follows its members; `or`, `half_live_in` and `by` have meaning inside them.
+/// `arrange`, `deflection` start a statement only; `limit` follows its members; `or`,
+/// `half_live_in` and `by` have meaning inside them.
 inline constexpr std::array<std::string_view, 12> contextual_keywords{
     "arrange", "by", "combinations", "combine", "deflection", "half_live_in",
     "limit",   "or", "pattern",      "plan",    "projection", "roof"};

@@ -82,26 +82,26 @@ std::vector<std::vector<std::size_t>> selections(PatternRule::Selector selector,
     using S = PatternRule::Selector;
     std::vector<std::vector<std::size_t>> out;
     switch (selector) {
-    case S::exterior:
-        out.push_back({0});
-        if (n > 1)
-            out.push_back({n - 1});
-        break;
-    case S::adjacent_pair:
-        for (std::size_t i = 0; i + 1 < n; ++i)
-            out.push_back({i, i + 1});
-        break;
-    case S::each:
-        for (std::size_t i = 0; i < n; ++i)
-            out.push_back({i});
-        break;
-    case S::all: {
-        std::vector<std::size_t> every(n);
-        for (std::size_t i = 0; i < n; ++i)
-            every[i] = i;
-        out.push_back(std::move(every));
-        break;
-    }
+        case S::exterior:
+            out.push_back({0});
+            if (n > 1)
+                out.push_back({n - 1});
+            break;
+        case S::adjacent_pair:
+            for (std::size_t i = 0; i + 1 < n; ++i)
+                out.push_back({i, i + 1});
+            break;
+        case S::each:
+            for (std::size_t i = 0; i < n; ++i)
+                out.push_back({i});
+            break;
+        case S::all: {
+            std::vector<std::size_t> every(n);
+            for (std::size_t i = 0; i < n; ++i)
+                every[i] = i;
+            out.push_back(std::move(every));
+            break;
+        }
     }
     return out;
 }
@@ -145,14 +145,15 @@ std::vector<Arrangement> arrangements_of(const PatternRule& rule, const std::vec
             std::vector<double> factors(n, line.others);
             for (std::size_t i : which)
                 factors[i] = line.factor;
-            bool as_written = std::all_of(factors.begin(), factors.end(),
-                                          [](double f) { return f == 1.0; });
+            bool as_written =
+                std::all_of(factors.begin(), factors.end(), [](double f) { return f == 1.0; });
             bool repeated = std::any_of(out.begin(), out.end(),
                                         [&](const Arrangement& a) { return a.factors == factors; });
             if (as_written || repeated)
                 continue;
-            out.push_back(Arrangement{fmt::format("{}.{}", line.label, selection_name(spans, which)),
-                                      factors, describe(spans, factors)});
+            out.push_back(
+                Arrangement{fmt::format("{}.{}", line.label, selection_name(spans, which)), factors,
+                            describe(spans, factors)});
         }
     }
     return out;
@@ -187,9 +188,9 @@ void arrange_cases(Model& model, Diagnostics& diagnostics) {
         std::vector<Span> spans = spans_of(model, request.members);
         LoadCase base = model.cases[at(request.load_case)];
         model.arrangement_trace.push_back(TraceLine{
-            fmt::format("{} arranged by {} over the spans {}", base.name, rule.name,
-                        span_list(spans, selections(PatternRule::Selector::all, spans.size())
-                                             .front())),
+            fmt::format(
+                "{} arranged by {} over the spans {}", base.name, rule.name,
+                span_list(spans, selections(PatternRule::Selector::all, spans.size()).front())),
             "", true});
         if (!base.self_weight.empty()) {
             diagnostics.warning(request.where,

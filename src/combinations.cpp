@@ -103,7 +103,8 @@ std::vector<std::vector<Option>> slots_of(const Model& model, const CombinationR
 /// Sums the chosen options into one combination, in the rule's order; an
 /// ice-dam case keeps only itself and the dead load. A case named twice has
 /// its factors added.
-std::vector<CombinationTerm> assemble(const Model& model, const std::vector<const Option*>& chosen) {
+std::vector<CombinationTerm> assemble(const Model& model,
+                                      const std::vector<const Option*>& chosen) {
     bool dead_only = false;
     for (const Option* o : chosen) {
         for (const CombinationTerm& t : o->cases)
@@ -138,7 +139,8 @@ std::string factor_text(double f) {
 std::string formula_of(const Model& model, const std::vector<CombinationTerm>& terms) {
     std::vector<std::string> parts;
     for (const CombinationTerm& t : terms)
-        parts.push_back(fmt::format("{} {}", factor_text(t.factor), model.cases[at(t.case_id)].name));
+        parts.push_back(
+            fmt::format("{} {}", factor_text(t.factor), model.cases[at(t.case_id)].name));
     return fmt::format("{}", fmt::join(parts, " + "));
 }
 
@@ -164,8 +166,8 @@ void expand_rule(const Model& model, const CombinationSet& set, const Combinatio
                  CombinationList& out) {
     std::vector<std::vector<Option>> slots = slots_of(model, rule, choice);
     if (slots.empty()) {
-        out.notes.push_back(fmt::format("{}.{} left out: no load case of its symbols", set.name,
-                                        rule.label));
+        out.notes.push_back(
+            fmt::format("{}.{} left out: no load case of its symbols", set.name, rule.label));
         return;
     }
     std::size_t variant = 0;
@@ -214,7 +216,8 @@ CombinationList expand_combinations(const Model& model) {
     }
     for (const LoadCase& lc : model.cases) {
         if (lc.kind == CaseKind::other)
-            out.notes.push_back(fmt::format("{}: a case of kind other, in no combination", lc.name));
+            out.notes.push_back(
+                fmt::format("{}: a case of kind other, in no combination", lc.name));
     }
     return out;
 }

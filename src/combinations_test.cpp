@@ -2,8 +2,8 @@
 // partial loading) and of load combinations (the stdlib sets of ASCE 7-16
 // Sec. 2.3.1 and 2.4.1, their expansion, and the envelopes of a model).
 #include <fmt/format.h>
-#include <catch2/catch.hpp>
 #include <algorithm>
+#include <catch2/catch.hpp>
 
 #include "arrange.hpp"
 #include "driver.hpp"
@@ -38,7 +38,8 @@ std::string snow_beam(int spans, const std::string& extra) {
         "snow S {{\n  standard = asce7_16\n  pg = 40 psf\n  terrain = C\n"
         "  exposure = partially\n  thermal = heated\n  risk = II\n}}\n"
         "roof main on base.* {{\n  tributary = 10 ft\n}}\n{}",
-        lines[spans], lines[spans], [&] {
+        lines[spans], lines[spans],
+        [&] {
             std::string rollers;
             for (int i = 1; i <= spans; ++i)
                 rollers += fmt::format("{}{}.base", i > 1 ? ", " : "", lines[i]);
@@ -124,7 +125,8 @@ TEST_CASE("envelopes: three equal spans under partial snow match the three-momen
     // comes from case 1 at the left end (1, 0.5, 0.5): M_B = -5/60 pL^2 and, by statics,
     // M(x) = p x (L - x)/2 + M_B x/L is largest at x = L (1/2 - 5/60) = 0.41667 L, where
     // it is 0.086806 pL^2 (against 0.08 pL^2 under the balanced load).
-    Analysis a = analysed(snow_beam(3, "combinations snow_only {\n  1 = S\n}\ncombine snow_only\n"));
+    Analysis a =
+        analysed(snow_beam(3, "combinations snow_only {\n  1 = S\n}\ncombine snow_only\n"));
     REQUIRE(a.envelopes.size() == 1);
     const Envelopes& env = a.envelopes[0];
     const CombinationList& list = a.combinations;
@@ -262,8 +264,8 @@ TEST_CASE("combinations: the 0.5 L permission applies where the set allows it, w
     CHECK(std::count(f.begin(), f.end(), "1.2 D + 1.6 S.balanced + 0.5 L") == 1);
     CHECK(std::count(f.begin(), f.end(), "1.2 D + 1.0 WL + 0.5 L + 0.5 S.balanced") == 1);
     CHECK(std::count(f.begin(), f.end(), "1.2 D + 1.6 L + 0.5 S.balanced") == 1);
-    Analysis refused = analyse_text(
-        "input", all_kinds("combine asce7_16.strength {\n  half_live = yes\n}\n"));
+    Analysis refused =
+        analyse_text("input", all_kinds("combine asce7_16.strength {\n  half_live = yes\n}\n"));
     CHECK_FALSE(refused.ok);
 }
 
@@ -286,9 +288,10 @@ TEST_CASE("combinations: an ice-dam case is combined with dead load only") {
 }
 
 TEST_CASE("combinations: bad sets and choices get located errors") {
-    CHECK(firn::testing::first_message(all_kinds("combinations mine {\n  1 = 1.2 D + 1.6 Q\n}\n")) ==
-          "input:36:19: error: unknown load symbol 'Q'; the symbols are D (dead), L (live), "
-          "Lr (roof live), S (snow), R (rain) and W (wind)");
+    CHECK(
+        firn::testing::first_message(all_kinds("combinations mine {\n  1 = 1.2 D + 1.6 Q\n}\n")) ==
+        "input:36:19: error: unknown load symbol 'Q'; the symbols are D (dead), L (live), "
+        "Lr (roof live), S (snow), R (rain) and W (wind)");
     CHECK(firn::testing::first_message(all_kinds("combine asce7_16.strenght\n")) ==
           "input:35:9: error: unknown set of combinations 'asce7_16.strenght'; did you mean "
           "'asce7_16.strength'?");
@@ -299,7 +302,8 @@ namespace {
 /// A simply supported 24 ft beam (steel, I = 510 in^4, E = 29,000 ksi) and a
 /// cantilever 8 ft long fixed at its root, each under the cases in `cases`.
 std::string deflection_model(const std::string& cases) {
-    return "model \"deflection\"\nuse materials\nuse ibc2018\nreport units kip, ft, displacement in\n"
+    return "model \"deflection\"\nuse materials\nuse ibc2018\nreport units kip, ft, displacement "
+           "in\n"
            "grid x A = 0 ft, B = 24 ft\ngrid y base = 0 ft\n"
            "section girder structural_steel, A = 11.8 in2, I = 510 in4\n"
            "beams along base from A to B section girder\n"
@@ -319,10 +323,11 @@ TEST_CASE("deflection: a simple span and a cantilever against IBC Table 1604.3 l
     // (3 x 29,000 x 510) = 0.039880 in; footnote i (from memory): l = 2 x 96 in, limit
     // 1.0667 in, ratio 0.037387. D + L (0.2 + 0.3 kip/ft) gives the same 0.25237 in
     // against l/120 = 2.4 in.
-    Analysis a = analysed(deflection_model(
-        "case D dead {\n  uniform 0.2 kip/ft down on base.A.B\n}\n"
-        "case L live {\n  uniform 0.3 kip/ft down on base.A.B\n}\n"
-        "case S1 snow {\n  uniform 0.5 kip/ft down on base.A.B\n  point 2 kip down on arm at 8 ft\n}\n"));
+    Analysis a =
+        analysed(deflection_model("case D dead {\n  uniform 0.2 kip/ft down on base.A.B\n}\n"
+                                  "case L live {\n  uniform 0.3 kip/ft down on base.A.B\n}\n"
+                                  "case S1 snow {\n  uniform 0.5 kip/ft down on base.A.B\n  point "
+                                  "2 kip down on arm at 8 ft\n}\n"));
     const double in = 0.0254;
     REQUIRE(a.deflections.size() == 6);  // two members x (L or Lr, S or W, D + L)
     const DeflectionCheck& beam_snow = a.deflections[2];
@@ -344,16 +349,15 @@ TEST_CASE("deflection: a simple span and a cantilever against IBC Table 1604.3 l
 
 TEST_CASE("deflection: a member past its limit fails, and an unknown row is an error") {
     // 5 w L^4 / (384 E I) with w = 4 kip/ft: 8 x 0.25237 = 2.0189 in > l/180 = 1.6 in.
-    Analysis a = analysed(
-        deflection_model("case S1 snow {\n  uniform 4 kip/ft down on base.A.B\n}\n"));
+    Analysis a =
+        analysed(deflection_model("case S1 snow {\n  uniform 4 kip/ft down on base.A.B\n}\n"));
     REQUIRE(!a.deflections.empty());
     CHECK_FALSE(a.deflections[0].passes());
     CHECK(a.deflections[0].ratio() == Approx(8 * 0.157728).epsilon(1e-5));
     std::string bad = deflection_model("");
     bad.replace(bad.find("roof_no_ceiling"), 15, "roof_no_ceilng");
     CHECK(firn::testing::first_message(bad).find("no row of deflection limits "
-                                                 "'ibc2018.roof_no_ceilng'") !=
-          std::string::npos);
+                                                 "'ibc2018.roof_no_ceilng'") != std::string::npos);
 }
 
 TEST_CASE("envelopes: in the shelter example a partial snow arrangement governs a beam") {
@@ -365,10 +369,9 @@ TEST_CASE("envelopes: in the shelter example a partial snow arrangement governs 
     REQUIRE(a.envelopes.size() == 2);  // strength, then allowable stress
     const MemberEnvelope& end_beam = a.envelopes[0].members[member_index(a.model, "eave.A.B")];
     const Combination& governing = a.combinations.combinations[end_beam.moment_max.combination];
-    bool partial = std::any_of(governing.terms.begin(), governing.terms.end(),
-                               [&](const CombinationTerm& t) {
-                                   return a.model.cases[at(t.case_id)].name ==
-                                          "S.partial.main.case1.A_B";
-                               });
+    bool partial =
+        std::any_of(governing.terms.begin(), governing.terms.end(), [&](const CombinationTerm& t) {
+            return a.model.cases[at(t.case_id)].name == "S.partial.main.case1.A_B";
+        });
     CHECK(partial);
 }

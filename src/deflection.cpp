@@ -109,9 +109,8 @@ std::vector<DeflectionCheck> check_deflections(const Model& model, const LoadSet
         const DeflectionLimits& limits = model.deflection_limits[i];
         check_column(model, i, "L or Lr", limits.live, live, out);
         check_column(model, i, "S or W", limits.snow_wind, snow_wind, out);
-        check_column(model, i, "D + L", limits.total, sum.terms.empty() ? std::vector<Loading>{}
-                                                                         : totals,
-                     out);
+        check_column(model, i, "D + L", limits.total,
+                     sum.terms.empty() ? std::vector<Loading>{} : totals, out);
     }
     return out;
 }

@@ -17,11 +17,12 @@ namespace firn {
 struct DeflectionCheck {
     std::size_t limits = 0;  ///< into Model::deflection_limits
     MemberId member{};
-    const char* column = "";    ///< "L or Lr", "S or W", "D + L"
-    std::string governing;      ///< the case (or `D + L` sum) with the largest deflection
-    double deflection = 0.0;    ///< m, signed, relative to the chord (a cantilever: to its root's tangent)
-    double span = 0.0;          ///< m: the member's length, twice it for a cantilever
-    double n = 0.0;             ///< the limit is span / n
+    const char* column = "";  ///< "L or Lr", "S or W", "D + L"
+    std::string governing;    ///< the case (or `D + L` sum) with the largest deflection
+    double deflection =
+        0.0;            ///< m, signed, relative to the chord (a cantilever: to its root's tangent)
+    double span = 0.0;  ///< m: the member's length, twice it for a cantilever
+    double n = 0.0;     ///< the limit is span / n
     bool cantilever = false;
     double ratio() const { return std::abs(deflection) / (span / n); }
     bool passes() const { return ratio() <= 1.0 + 1e-12; }

@@ -183,7 +183,8 @@ class FilePrinter {
         return std::nullopt;
     }
 
-    BlockLines source_lines_block(const syntax::Name& before_brace, std::vector<SourceRange> where) {
+    BlockLines source_lines_block(const syntax::Name& before_brace,
+                                  std::vector<SourceRange> where) {
         BlockLines block{&before_brace, std::move(where), {}};
         block.atoms = [this, list = block.where](std::size_t i) {
             return source_line_atoms(list[i], source_, signature_);

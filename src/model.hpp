@@ -178,9 +178,9 @@ struct SnowTables {
     double density_max = 0.0;
     double drift_coefficient =
         0.0;  ///< hd = c lu^(1/3) (pg + pg_offset)^(1/4) - offset, in ft and psf
-    double drift_pg_offset = 0.0;      ///< Pa
-    double drift_offset = 0.0;         ///< m
-    double drift_min_lu = 0.0;         ///< m
+    double drift_pg_offset = 0.0;            ///< Pa
+    double drift_offset = 0.0;               ///< m
+    double drift_min_lu = 0.0;               ///< m
     double partial_gable_exempt_rise = 0.0;  ///< gable members this steep need no partial load
     double adjacent_max_gap = 0.0;     ///< m: a drift from an adjacent structure below this gap
     double projection_min_face = 0.0;  ///< m: no drift on a shorter side of a projection
@@ -225,7 +225,7 @@ struct Roof {
     double insulation_R = 0.0;  ///< thermal resistance, ft^2*h*F/Btu (0: not given)
     bool ventilated = false;
     bool simple_rafters = false;  ///< rafters are simply supported prismatic, ridge to eave
-    std::string partial;  ///< the partial-loading rule (empty: the standard's; "none")
+    std::string partial;          ///< the partial-loading rule (empty: the standard's; "none")
     SourceRange partial_where;
     /// What stands at one end of the roof: a higher roof (a step) or a parapet.
     struct Edge {

@@ -74,7 +74,7 @@ struct Builder {
     bool pending_spring_fixed = false;
     int nesting = 0;
     std::uint32_t block_line = 0;
-    const char* block_kind = "case";  ///< what the open block belongs to, for messages
+    const char* block_kind = "case";               ///< what the open block belongs to, for messages
     std::optional<syntax::Factor> pending_factor;  ///< a combination factor before its symbol
     /// The open block's missing '}' is reported: the statements after it are
     /// not reported again, one by one, as loads that are not loads.
@@ -161,10 +161,10 @@ bool starts_line(const char* at, const char* begin) {
 /// True if the text at `at` begins with a keyword that starts a top-level statement.
 bool starts_statement(const char* at, const char* end) {
     static constexpr std::array<std::string_view, 24> words{
-        "snow",    "roof",  "projection", "amend", "combinations", "combine", "pattern", "arrange",
-        "deflection",   "model",    "use",     "let",
-        "report",  "grid",  "node",    "material", "section", "member",
-        "columns", "beams", "rafters", "group",    "support", "case"};
+        "snow",    "roof",    "projection", "amend",    "combinations", "combine",
+        "pattern", "arrange", "deflection", "model",    "use",          "let",
+        "report",  "grid",    "node",       "material", "section",      "member",
+        "columns", "beams",   "rafters",    "group",    "support",      "case"};
     for (std::string_view w : words) {
         if (static_cast<std::size_t>(end - at) < w.size())
             continue;

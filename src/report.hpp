@@ -20,8 +20,8 @@ extern const char* const kCaution;
 
 struct ReportOptions {
     bool full = false;  ///< every node's displacements and every member's end forces
-    const Stations* stations = nullptr;  ///< member stations to print, if any
-    const CombinationList* combinations = nullptr;  ///< with `envelopes`: their sections
+    const Stations* stations = nullptr;                 ///< member stations to print, if any
+    const CombinationList* combinations = nullptr;      ///< with `envelopes`: their sections
     const std::vector<Envelopes>* envelopes = nullptr;  ///< per set of combinations
     const std::vector<DeflectionCheck>* deflections = nullptr;
     const Mirror* mirror = nullptr;  ///< which cases and members mirror which

@@ -137,8 +137,8 @@ void write_displacement_envelope(std::string& out, const Model& model, const Set
             std::size_t best = 0;
             for (std::size_t n = 1; n < env.displacements.size(); ++n) {
                 double v = (largest ? env.displacements[n].max : env.displacements[n].min)[d].value;
-                double b = (largest ? env.displacements[best].max
-                                    : env.displacements[best].min)[d].value;
+                double b =
+                    (largest ? env.displacements[best].max : env.displacements[best].min)[d].value;
                 if (largest ? v > b : v < b)
                     best = n;
             }
@@ -194,8 +194,9 @@ void write_envelopes(std::string& out, const Model& model, const CombinationList
             continue;
         SetView set{list, range};
         out += fmt::format("== Envelopes of {} ==\n\n", range.name);
-        out += "Each value is the extreme over the member's whole length (exact, not sampled), "
-               "at its position from the start node, with the combination that gives it.\n\n";
+        out +=
+            "Each value is the extreme over the member's whole length (exact, not sampled), "
+            "at its position from the start node, with the combination that gives it.\n\n";
         for (const MemberGroup& group : envelope_groups(model))
             write_member_group(out, model, set, envelopes[s], group);
         if (!model.supports.empty())
@@ -231,9 +232,10 @@ void write_deflections(std::string& out, const Model& model,
         return;
     const DisplayUnits& u = model.units;
     out += "== Deflection checks ==\n\n";
-    out += "Deflection from the chord through the member's displaced ends, at service level "
-           "(each case alone; D + L as one sum); a cantilever's from the tangent at its root, "
-           "with l twice its length. A span of several members is checked member by member.\n\n";
+    out +=
+        "Deflection from the chord through the member's displaced ends, at service level "
+        "(each case alone; D + L as one sum); a cantilever's from the tangent at its root, "
+        "with l twice its length. A span of several members is checked member by member.\n\n";
     for (std::size_t i = 0; i < model.deflection_limits.size(); ++i) {
         const DeflectionLimits& limits = model.deflection_limits[i];
         out += fmt::format("Row {}   [{}]\n", limits.row, limit_source(limits.row));
@@ -259,8 +261,9 @@ void write_deflections(std::string& out, const Model& model,
 void write_mirror(std::string& out, const Model& model, const Mirror& mirror) {
     out += "== Mirror images ==\n\n";
     if (!mirror.symmetric) {
-        out += "The frame is not symmetric about a vertical axis (geometry, sections, hinges "
-               "and supports).\n\n";
+        out +=
+            "The frame is not symmetric about a vertical axis (geometry, sections, hinges "
+            "and supports).\n\n";
         return;
     }
     const DisplayUnit& length = model.units.length;
@@ -293,9 +296,10 @@ void write_mirror(std::string& out, const Model& model, const Mirror& mirror) {
     for (std::size_t m = 0; m < model.members.size(); ++m) {
         const auto& image = mirror.member[m];
         if (image && at(*image) >= m) {
-            members.push_back(at(*image) == m ? fmt::format("{} (on the axis)", model.members[m].name)
-                                              : fmt::format("{} <-> {}", model.members[m].name,
-                                                            model.members[at(*image)].name));
+            members.push_back(at(*image) == m
+                                  ? fmt::format("{} (on the axis)", model.members[m].name)
+                                  : fmt::format("{} <-> {}", model.members[m].name,
+                                                model.members[at(*image)].name));
         }
     }
     list("Members and their images", members);

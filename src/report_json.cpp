@@ -151,7 +151,7 @@ Json snow_trace_json(const Model& model) {
 }
 
 Json governing_json(const Governing& g, const DisplayUnit& unit, const DisplayUnit& length,
-                   const CombinationList& list, std::size_t first) {
+                    const CombinationList& list, std::size_t first) {
     return Json{{"value", shown(g.value, unit)},
                 {"at", shown(g.position, length)},
                 {"combination", g.combination == no_combination
@@ -208,9 +208,9 @@ Json envelope_json(const Model& model, const CombinationList& list, std::size_t 
         reactions.push_back(std::move(r));
     }
     for (std::size_t n = 0; n < env.displacements.size(); ++n) {
-        Json d = component_json(env.displacements[n],
-                                {&u.displacement, &u.displacement, &u.rotation}, u.length, list,
-                                first);
+        Json d =
+            component_json(env.displacements[n], {&u.displacement, &u.displacement, &u.rotation},
+                           u.length, list, first);
         d["node"] = model.nodes[n].name;
         displacements.push_back(std::move(d));
     }
@@ -269,7 +269,8 @@ Json checks_json(const Model& model, const ReportOptions& options) {
         out["combinations"] = combinations_json(model, *options.combinations);
         Json envelopes = Json::array();
         for (std::size_t s = 0; options.envelopes != nullptr && s < options.envelopes->size(); ++s)
-            envelopes.push_back(envelope_json(model, *options.combinations, s, (*options.envelopes)[s]));
+            envelopes.push_back(
+                envelope_json(model, *options.combinations, s, (*options.envelopes)[s]));
         out["envelopes"] = std::move(envelopes);
     }
     if (options.deflections != nullptr && !model.deflection_limits.empty())

@@ -62,9 +62,9 @@ std::optional<CombinationRule> combination_rule(Resolver& r, const syntax::Combi
                               positive_factor(r, term.factor);
         ok = ok && term_factor_ok;
         for (const auto& alternative : term.alternatives) {
-            bool factor_ok = alternative.factor.where.begin.offset ==
-                                 alternative.factor.where.end.offset ||
-                             positive_factor(r, alternative.factor);
+            bool factor_ok =
+                alternative.factor.where.begin.offset == alternative.factor.where.end.offset ||
+                positive_factor(r, alternative.factor);
             ok = known_symbol(r, alternative.symbol) && factor_ok && ok;
             resolved.alternatives.push_back(
                 {term.factor.value * alternative.factor.value, alternative.symbol.text});
@@ -104,9 +104,9 @@ void resolve_set(Resolver& r, const syntax::CombinationsDecl& decl, NameTable& n
 bool read_half_live(Resolver& r, const syntax::CombineDecl& decl, CombineChoice& choice) {
     for (const syntax::Setting& s : decl.settings) {
         if (s.key.text != "half_live") {
-            r.diagnostics.error(s.key.where,
-                                fmt::format("unknown setting '{}' of combine; expected half_live",
-                                            s.key.text));
+            r.diagnostics.error(
+                s.key.where,
+                fmt::format("unknown setting '{}' of combine; expected half_live", s.key.text));
             return false;
         }
         bool word = s.value.kind == syntax::Expr::Kind::constant;
@@ -156,7 +156,9 @@ void resolve_choice(Resolver& r, const std::vector<const syntax::CombineDecl*>& 
 std::optional<PatternRule::Selector> selector_of(Resolver& r, const syntax::Name& word) {
     using S = PatternRule::Selector;
     static const std::array<std::pair<std::string_view, S>, 4> known{
-        {{"exterior", S::exterior}, {"adjacent_pair", S::adjacent_pair}, {"each", S::each},
+        {{"exterior", S::exterior},
+         {"adjacent_pair", S::adjacent_pair},
+         {"each", S::each},
          {"all", S::all}}};
     for (const auto& [text, selector] : known) {
         if (word.text == text)
@@ -241,16 +243,17 @@ void resolve_arrange(Resolver& r, const syntax::ArrangeDecl& decl, const NameTab
 
 }  // namespace
 
-void resolve_deflection_limits(Resolver& r, const std::vector<const syntax::DeflectionDecl*>& decls) {
+void resolve_deflection_limits(Resolver& r,
+                               const std::vector<const syntax::DeflectionDecl*>& decls) {
     for (const syntax::DeflectionDecl* decl : decls) {
         auto members = listed_members(r, decl->members);
         DeflectionLimits limits;
         limits.row = decl->row.text;
         limits.where = decl->row.where;
         bool any = false;
-        for (auto [column, out] : {std::pair{"live", &limits.live},
-                                   std::pair{"snow_wind", &limits.snow_wind},
-                                   std::pair{"total", &limits.total}}) {
+        for (auto [column, out] :
+             {std::pair{"live", &limits.live}, std::pair{"snow_wind", &limits.snow_wind},
+              std::pair{"total", &limits.total}}) {
             std::string name = fmt::format("{}.{}", decl->row.text, column);
             if (!r.constants.has(name))
                 continue;
@@ -265,11 +268,11 @@ void resolve_deflection_limits(Resolver& r, const std::vector<const syntax::Defl
                                                 name));
         }
         if (!any) {
-            r.diagnostics.error(decl->row.where,
-                                fmt::format("no row of deflection limits '{}' (its values {}.live, "
-                                            "{}.snow_wind or {}.total); is 'use ibc2018' missing?",
-                                            decl->row.text, decl->row.text, decl->row.text,
-                                            decl->row.text));
+            r.diagnostics.error(
+                decl->row.where,
+                fmt::format("no row of deflection limits '{}' (its values {}.live, "
+                            "{}.snow_wind or {}.total); is 'use ibc2018' missing?",
+                            decl->row.text, decl->row.text, decl->row.text, decl->row.text));
             continue;
         }
         if (!members)

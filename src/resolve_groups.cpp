@@ -192,8 +192,7 @@ void resolve_groups(Resolver& r, const std::vector<const syntax::GroupDecl*>& gr
         if (r.group_entries[g].decl != nullptr)
             group_members(r, g, r.group_entries[g].decl->name);
         if (r.group_entries[g].state == Resolver::Group::State::done)
-            r.model.groups.push_back(
-                MemberGroup{r.groups.names()[g], r.group_entries[g].members});
+            r.model.groups.push_back(MemberGroup{r.groups.names()[g], r.group_entries[g].members});
     }
 }
 

@@ -181,7 +181,8 @@ void resolve_combinations(Resolver& r, const std::vector<const syntax::Combinati
                           const std::vector<const syntax::ArrangeDecl*>& arrangements);
 
 /// `deflection MEMBERS limit ROW`: the row's limits from the library.
-void resolve_deflection_limits(Resolver& r, const std::vector<const syntax::DeflectionDecl*>& decls);
+void resolve_deflection_limits(Resolver& r,
+                               const std::vector<const syntax::DeflectionDecl*>& decls);
 
 void resolve_snow(Resolver& r, const std::vector<const syntax::SnowDecl*>& snow,
                   const std::vector<const syntax::RoofDecl*>& roofs,

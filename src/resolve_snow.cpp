@@ -306,7 +306,8 @@ std::optional<std::vector<MemberId>> member_run(Resolver& r, const syntax::Name&
         at_node[r.model.members[at(m)].end].push_back(m);
     }
     auto fail = [&](std::string message) {
-        r.diagnostics.error(owner.where, fmt::format("{} '{}': {}", words.owner, owner.text, message));
+        r.diagnostics.error(owner.where,
+                            fmt::format("{} '{}': {}", words.owner, owner.text, message));
         return std::nullopt;
     };
     std::optional<NodeId> left;
@@ -443,8 +444,7 @@ bool positive_length(Resolver& r, Settings& s, const std::string& key, double& o
 }
 
 /// Settings that describe one thing together: all given or none. False after an error.
-bool all_or_none(Resolver& r, Settings& s, const std::vector<std::string>& keys,
-                 const char* what) {
+bool all_or_none(Resolver& r, Settings& s, const std::vector<std::string>& keys, const char* what) {
     std::size_t given = 0;
     for (const std::string& key : keys)
         given += s.find(key) != nullptr ? 1U : 0U;
@@ -528,14 +528,30 @@ void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
             }
         }
     }
-    Settings s(
-        r, decl.settings,
-        {"tributary", "frame", "overhang", "surface", "insulation", "ventilated", "rafter_spans",
-         "step_left", "step_left_upper_length", "step_right", "step_right_upper_length",
-         "parapet_left", "parapet_right", "sliding_from_left", "sliding_from_right",
-         "adjacent_left", "adjacent_left_gap", "adjacent_left_length", "adjacent_right",
-         "adjacent_right_gap", "adjacent_right_length", "partial"},
-        fmt::format("roof '{}'", decl.name.text).c_str());
+    Settings s(r, decl.settings,
+               {"tributary",
+                "frame",
+                "overhang",
+                "surface",
+                "insulation",
+                "ventilated",
+                "rafter_spans",
+                "step_left",
+                "step_left_upper_length",
+                "step_right",
+                "step_right_upper_length",
+                "parapet_left",
+                "parapet_right",
+                "sliding_from_left",
+                "sliding_from_right",
+                "adjacent_left",
+                "adjacent_left_gap",
+                "adjacent_left_length",
+                "adjacent_right",
+                "adjacent_right_gap",
+                "adjacent_right_length",
+                "partial"},
+               fmt::format("roof '{}'", decl.name.text).c_str());
     Roof roof;
     roof.name = decl.name.text;
     roof.where = decl.name.where;
@@ -612,16 +628,17 @@ void resolve_projection(Resolver& r, const syntax::RoofDecl& decl, const NameTab
     if (roof == r.model.roofs.end()) {
         if (!roof_names.find_quietly(roof_name.text))
             roof_names.find(roof_name, r.diagnostics);  // reports the unknown roof
-        return;  // a roof that failed has its own error
+        return;                                         // a roof that failed has its own error
     }
     auto [lo, hi] = roof_extent(r.model, *roof);
     if (ok && (p.left_face < 0.0 || p.left_face + p.width > hi - lo + 1e-9)) {
-        r.diagnostics.error(s.find("left_face")->value.where,
-                            fmt::format("projection '{}' does not stand on roof '{}': it must "
-                                        "lie within the roof's horizontal length, {}",
-                                        p.name, roof->name,
-                                        fmt::format("{:g} {}", r.model.units.length.from_si(hi - lo),
-                                                    r.model.units.length.name)));
+        r.diagnostics.error(
+            s.find("left_face")->value.where,
+            fmt::format("projection '{}' does not stand on roof '{}': it must "
+                        "lie within the roof's horizontal length, {}",
+                        p.name, roof->name,
+                        fmt::format("{:g} {}", r.model.units.length.from_si(hi - lo),
+                                    r.model.units.length.name)));
         ok = false;
     }
     if (!ok)

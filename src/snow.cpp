@@ -14,7 +14,6 @@ std::size_t curve_of(double Ct) {
     return Ct <= 1.0 + 1e-9 ? 0 : (Ct < 1.2 - 1e-9 ? 1 : 2);
 }
 
-
 Geometry geometry_of(const Model& m, MemberId id) {
     const Member& member = m.members[at(id)];
     const Node& a = m.nodes[at(member.start)];
@@ -73,7 +72,6 @@ bool from_memory(std::string_view clause) {
 }
 
 }  // namespace
-
 
 void SnowDeriver::trace_site() {
     heading(fmt::format("Snow data {}: {}, Chapter 7", site_.name, "ASCE 7-16"));
@@ -449,7 +447,6 @@ LoadCase& SnowDeriver::case_named(const char* what) {
     return unbalanced_cases_.back();
 }
 
-
 /// Members at a roof's ends that overhang: their outer node carries no other
 /// member and no support.
 std::vector<MemberId> SnowDeriver::overhangs(const Roof& roof) const {
@@ -502,7 +499,6 @@ void SnowDeriver::ice_dam(const Roof& roof) {
     }
     load_members(roof, eaves, p, ice_dam_);
 }
-
 
 LoadCase SnowDeriver::new_case(const char* what) const {
     LoadCase lc;

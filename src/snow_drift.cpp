@@ -154,7 +154,8 @@ void SnowDeriver::adjacent_drift(const Roof& roof, double ps, bool left_end) {
     double length_of_roof = shape.right - shape.left;
     double hd_upper = drift_height(t_, site_.pg, edge.adjacent_length);
     trace_drift(edge.adjacent_length, hd_upper, "the higher roof's length");
-    Triangle leeward{std::min(hd_upper, (6.0 * h - s) / 6.0), std::min(6.0 * hd_upper, 6.0 * h - s)};
+    Triangle leeward{std::min(hd_upper, (6.0 * h - s) / 6.0),
+                     std::min(6.0 * hd_upper, 6.0 * h - s)};
     line(fmt::format("leeward: height min(hd, (6h - s)/6) = min({}, {}) = {}; width min(6 hd, 6h - "
                      "s) = min({}, {}) = {}",
                      length(hd_upper), length((6.0 * h - s) / 6.0), length(leeward.hd),
@@ -162,7 +163,8 @@ void SnowDeriver::adjacent_drift(const Roof& roof, double ps, bool left_end) {
          clause);
     double windward_hd = 0.75 * drift_height(t_, site_.pg, length_of_roof);
     trace_drift(length_of_roof, windward_hd / 0.75, "this roof's length");
-    line(fmt::format("windward: 0.75 hd = {}, as at a roof step (the truncation the clause permits is not taken)",
+    line(fmt::format("windward: 0.75 hd = {}, as at a roof step (the truncation the clause permits "
+                     "is not taken)",
                      length(windward_hd)),
          "ASCE 7-16 Sec. 7.7.1");
     Triangle windward = capped_triangle(windward_hd, hc, "ASCE 7-16 Sec. 7.7.1");
@@ -185,10 +187,11 @@ void SnowDeriver::projection_drifts(const Projection& p, const std::vector<doubl
     const char* clause = "ASCE 7-16 Sec. 7.8";
     RoofShape shape = shape_of(m_, roof);
     double left_face = shape.left + p.left_face, right_face = left_face + p.width;
-    heading(fmt::format("Projection {} on roof {}: faces at {} and {} from the roof's left end, "
-                        "{} high, {} long across the frame",
-                        p.name, roof.name, length(p.left_face), length(p.left_face + p.width),
-                        length(p.height), length(p.face_length)));
+    heading(
+        fmt::format("Projection {} on roof {}: faces at {} and {} from the roof's left end, "
+                    "{} high, {} long across the frame",
+                    p.name, roof.name, length(p.left_face), length(p.left_face + p.width),
+                    length(p.height), length(p.face_length)));
     if (p.face_length < t_.projection_min_face - 1e-9) {
         line(fmt::format("drift not required at projection {}: its faces are {} long, shorter "
                          "than {}",
@@ -206,7 +209,8 @@ void SnowDeriver::projection_drifts(const Projection& p, const std::vector<doubl
          clause);
     for (bool left : {true, false}) {
         double x = left ? left_face : right_face;
-        std::string where = fmt::format("{} face of projection {}", left ? "left" : "right", p.name);
+        std::string where =
+            fmt::format("{} face of projection {}", left ? "left" : "right", p.name);
         double hc = 0.0;
         if (!clear_height(where, ps_at(roof, ps, x, left), p.height, hc, clause))
             continue;

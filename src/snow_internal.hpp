@@ -22,7 +22,6 @@ constexpr double kPoundPerSquareFoot = 4.4482216152605 / (kFoot * kFoot);  // Pa
 /// Slopes closer than this are one slope (rad): members of one roof plane.
 constexpr double kSameSlope = 1e-6;
 
-
 /// Which curve of Fig. 7.4-1 a thermal factor selects: warm, cold ventilated, cold.
 std::size_t curve_of(double Ct);
 

@@ -490,8 +490,9 @@ TEST_CASE("snow: a drift from an adjacent structure limited by the gap, and none
     CHECK(drift[0].start / kFt == Approx(24 - 14).epsilon(1e-9));
     CHECK(drift[0].w_end / (20 * kFt) == Approx(2.33333 * 19.2 * kPsf).epsilon(1e-5));
     // s = 25 ft is not below 20 ft: no drift case.
-    Analysis far = analysed(stepped(
-        "  adjacent_right = 30 ft\n  adjacent_right_gap = 25 ft\n  adjacent_right_length = 60 ft\n"));
+    Analysis far =
+        analysed(stepped("  adjacent_right = 30 ft\n  adjacent_right_gap = 25 ft\n  "
+                         "adjacent_right_length = 60 ft\n"));
     CHECK(find_case(far.model, "S.drift.main.adjacent_right") == nullptr);
     CHECK(trace_has(far.model, "is not below both"));
 }

@@ -294,7 +294,7 @@ struct CombinationLine {
 struct CombinationsDecl {
     Name name;
     std::vector<CombinationLine> lines;
-    std::vector<Name> half_live_in;  ///< labels where L's 1.0 may be 0.5
+    std::vector<Name> half_live_in;       ///< labels where L's 1.0 may be 0.5
     std::vector<SourceRange> line_where;  ///< every line of the block, for the formatter
 };
 
