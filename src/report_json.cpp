@@ -170,13 +170,13 @@ Json combinations_json(const Model& model, const CombinationList& list) {
     return out;
 }
 
-Json component_json(const ComponentEnvelope& e, std::array<const DisplayUnit*, 3> units,
-                    const DisplayUnit& length, const CombinationList& list, std::size_t first) {
-    static constexpr std::array<const char*, 3> kNames{"x", "y", "rotation"};
+Json component_json(const ComponentEnvelope& e, std::array<const char*, 3> names,
+                    std::array<const DisplayUnit*, 3> units, const DisplayUnit& length,
+                    const CombinationList& list, std::size_t first) {
     Json out;
     for (std::size_t d = 0; d < 3; ++d) {
-        out[kNames[d]] = {{"max", governing_json(e.max[d], *units[d], length, list, first)},
-                          {"min", governing_json(e.min[d], *units[d], length, list, first)}};
+        out[names[d]] = {{"max", governing_json(e.max[d], *units[d], length, list, first)},
+                         {"min", governing_json(e.min[d], *units[d], length, list, first)}};
     }
     return out;
 }
@@ -202,15 +202,15 @@ Json envelope_json(const Model& model, const CombinationList& list, std::size_t 
                            {"deflection_min", g(e.deflection_min, u.displacement)}});
     }
     for (std::size_t s = 0; s < env.reactions.size(); ++s) {
-        Json r = component_json(env.reactions[s], {&u.force, &u.force, &u.moment}, u.length, list,
-                                first);
+        Json r = component_json(env.reactions[s], {"Rx", "Ry", "M"},
+                                {&u.force, &u.force, &u.moment}, u.length, list, first);
         r["node"] = model.nodes[at(model.supports[s].node)].name;
         reactions.push_back(std::move(r));
     }
     for (std::size_t n = 0; n < env.displacements.size(); ++n) {
         Json d =
-            component_json(env.displacements[n], {&u.displacement, &u.displacement, &u.rotation},
-                           u.length, list, first);
+            component_json(env.displacements[n], {"dx", "dy", "rotation"},
+                           {&u.displacement, &u.displacement, &u.rotation}, u.length, list, first);
         d["node"] = model.nodes[n].name;
         displacements.push_back(std::move(d));
     }
