@@ -72,12 +72,9 @@ std::string level(std::size_t j) {
     return fmt::format("L{}", j);
 }
 
-}  // namespace
-
-std::string generated_frame(std::size_t bays, std::size_t storeys, std::size_t cases) {
-    std::string out = fmt::format(
-        "# Generated with generators: {} bays x {} storeys, {} load cases\n"
-        "model \"Bench frame {}x{}\"\nreport units kip, ft\n\n"
+/// The frame's grid, sections, generated columns and beams and fixed bases.
+std::string generated_structure(std::size_t bays, std::size_t storeys) {
+    return fmt::format(
         "grid x 1..{} spacing 24 ft\ngrid y L0..L{} spacing 12 ft\n"
         "material steel E = 29000 ksi, density = 490 pcf\n"
         "section col steel, A = 14.1 in2, I = 272 in4\n"
@@ -85,8 +82,17 @@ std::string generated_frame(std::size_t bays, std::size_t storeys, std::size_t c
         "columns on 1..{} from L0 to L{} section col\n"
         "beams along L1..L{} from 1 to {} section beam\n"
         "support fixed at L0\n\n",
-        bays, storeys, cases, bays, storeys, bays + 1, storeys, bays + 1, storeys, storeys,
-        bays + 1);
+        bays + 1, storeys, bays + 1, storeys, storeys, bays + 1);
+}
+
+}  // namespace
+
+std::string generated_frame(std::size_t bays, std::size_t storeys, std::size_t cases) {
+    std::string out = fmt::format(
+        "# Generated with generators: {} bays x {} storeys, {} load cases\n"
+        "model \"Bench frame {}x{}\"\nreport units kip, ft\n\n",
+        bays, storeys, cases, bays, storeys);
+    out += generated_structure(bays, storeys);
     for (std::size_t k = 0; k < cases; ++k) {
         out += fmt::format("case K{} other {{\n", k);
         if (k == 0)
@@ -114,21 +120,16 @@ std::string rectangular_frame(std::size_t bays, std::size_t storeys, std::size_t
 std::string snow_frame(std::size_t bays, std::size_t storeys) {
     std::string out = fmt::format(
         "# Generated: {} bays x {} storeys under dead, live and ASCE 7-16 snow loads\n"
-        "model \"Bench snow frame {}x{}\"\nuse asce7_16\nreport units kip, ft\n\n"
-        "grid x 1..{} spacing 24 ft\ngrid y L0..L{} spacing 12 ft\n"
-        "material steel E = 29000 ksi, density = 490 pcf\n"
-        "section col steel, A = 14.1 in2, I = 272 in4\n"
-        "section beam steel, A = 11.8 in2, I = 510 in4\n"
-        "columns on 1..{} from L0 to L{} section col\n"
-        "beams along L1..L{} from 1 to {} section beam\n"
-        "support fixed at L0\n\n"
+        "model \"Bench snow frame {}x{}\"\nuse asce7_16\nreport units kip, ft\n\n",
+        bays, storeys, bays, storeys);
+    out += generated_structure(bays, storeys);
+    out += fmt::format(
         "case D dead {{\n  self weight\n  uniform 0.5 kip/ft down on L*.*\n}}\n"
         "case L live {{\n  uniform 1.25 kip/ft down on L*.*\n}}\n"
         "snow S {{\n  standard = asce7_16\n  pg = 40 psf\n  terrain = C\n"
         "  exposure = partially\n  thermal = heated\n  risk = II\n}}\n"
         "roof main on {}.* {{\n  tributary = 25 ft\n}}\n"
         "combine asce7_16.strength\n",
-        bays, storeys, bays, storeys, bays + 1, storeys, bays + 1, storeys, storeys, bays + 1,
         level(storeys));
     return out;
 }

@@ -8,6 +8,7 @@
 // twice its length (IBC Table 1604.3 footnote i, from memory).
 #include "deflection.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 #include "combine.hpp"
@@ -102,8 +103,13 @@ std::vector<DeflectionCheck> check_deflections(const Model& model, const LoadSet
         return out;
     std::vector<Loading> live = cases_of(model, results, {CaseKind::live, CaseKind::roof_live});
     std::vector<Loading> snow_wind = cases_of(model, results, {CaseKind::snow, CaseKind::wind});
+    // D + L is one more combination to build: only when some row limits it.
+    bool any_total = std::any_of(model.deflection_limits.begin(), model.deflection_limits.end(),
+                                 [](const DeflectionLimits& l) { return l.total > 0.0; });
     Combination sum = dead_plus_live(model);
-    CaseResults total = combination_results(model, loads, solution, results, sum);
+    CaseResults total;
+    if (any_total && !sum.terms.empty())
+        total = combination_results(model, loads, solution, results, sum);
     std::vector<Loading> totals{Loading{sum.name, &total}};
     for (std::size_t i = 0; i < model.deflection_limits.size(); ++i) {
         const DeflectionLimits& limits = model.deflection_limits[i];
