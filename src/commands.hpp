@@ -21,4 +21,15 @@ void add_run_command(CLI::App& app, int& status);
 /// `firn fmt [--check] [--stdout] FILE...`: rewrite model files in the canonical layout.
 void add_fmt_command(CLI::App& app, int& status);
 
+/// `firn check MODEL...`: evaluate every model's expectations (cmd_check.cpp).
+void add_check_command(CLI::App& app, int& status);
+
+/// `firn baseline MODEL...`: compare results with committed baselines, or update them
+/// when asked (cmd_baseline.cpp).
+void add_baseline_command(CLI::App& app, int& status);
+
+/// `firn draw MODEL`: SVG drawings of the frame, its loads and diagrams, and the HTML
+/// report (cmd_draw.cpp).
+void add_draw_command(CLI::App& app, int& status);
+
 }  // namespace firn

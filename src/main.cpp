@@ -39,6 +39,9 @@ int main(int argc, char** argv) {
     app.require_subcommand(1);
     firn::add_run_command(app, status);
     firn::add_fmt_command(app, status);
+    firn::add_check_command(app, status);
+    firn::add_baseline_command(app, status);
+    firn::add_draw_command(app, status);
     if (is_unknown_command(app, argc, argv))
         return firn::exit_model_error;
     try {
