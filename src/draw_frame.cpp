@@ -85,7 +85,7 @@ void name_nodes_and_members(SheetBuilder& sheet, const Analysis& analysis) {
     const Model& model = analysis.model;
     for (const Node& n : model.nodes) {
         Point p = sheet.view().at(n.x, n.y);
-        Point centre = sheet.place_label(p, {0.7071, -0.7071}, n.name, 10.0);
+        Point centre = sheet.place_label(p, {0.7071, -0.7071}, n.name, 10.0, true);
         sheet.body().text(centre, n.name, "class=\"name\" text-anchor=\"middle\"");
     }
     for (std::size_t m = 0; m < model.members.size(); ++m) {
@@ -175,8 +175,15 @@ void draw_frame(SheetBuilder& sheet, bool faint, bool names) {
     draw_hinges(sheet, analysis);
     for (const Support& s : model.supports) {
         const Node& n = model.nodes[at(s.node)];
-        draw_support_symbol(sheet.body(), sheet.view().at(n.x, n.y),
-                            support_turn(analysis, sheet.view(), s), s.kind, kSupportSize);
+        Point p = sheet.view().at(n.x, n.y);
+        int turn = support_turn(analysis, sheet.view(), s);
+        draw_support_symbol(sheet.body(), p, turn, s.kind, kSupportSize);
+        // The symbol's box, so that values and names are not written over it.
+        static constexpr Point kGround[4] = {{0.0, 1.0}, {-1.0, 0.0}, {0.0, -1.0}, {1.0, 0.0}};
+        Point g = kGround[turn / 90];
+        Point c{p.x + g.x * 0.55 * kSupportSize, p.y + g.y * 0.55 * kSupportSize};
+        double half = 0.6 * kSupportSize;
+        sheet.reserve({c.x - half, c.y - half, c.x + half, c.y + half});
     }
     sheet.body().close_group();
     if (names)

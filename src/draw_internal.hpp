@@ -74,7 +74,12 @@ class SheetBuilder {
     void note(std::string text) { notes_.push_back(std::move(text)); }
     /// Pushes a label clear of the labels already placed: tries further out along
     /// `direction`, then sideways. Returns where its centre goes.
-    Point place_label(Point anchor, Point direction, std::string_view text, double font_size);
+    /// With `clear_both`, the box clears both the horizontal and the vertical line
+    /// through the anchor (a node's name beside the members that meet there).
+    Point place_label(Point anchor, Point direction, std::string_view text, double font_size,
+                      bool clear_both = false);
+    /// Keeps labels off a part of the drawing (a support symbol).
+    void reserve(const Box& box) { labels_.push_back(box); }
 
     Sheet finish();
 

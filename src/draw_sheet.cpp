@@ -199,11 +199,13 @@ SheetBuilder::SheetBuilder(const Analysis& analysis, std::string path, std::stri
 }
 
 Point SheetBuilder::place_label(Point anchor, Point direction, std::string_view text,
-                                double font_size) {
+                                double font_size, bool clear_both) {
     double half_w = 0.31 * font_size * static_cast<double>(text.size()) + 1.5;
     double half_h = 0.5 * font_size + 1.0;
     // The centre sits far enough along `direction` that the box clears the anchor.
     double reach = std::abs(direction.x) * half_w + std::abs(direction.y) * half_h + 3.0;
+    if (clear_both && std::abs(direction.x) > 0.1 && std::abs(direction.y) > 0.1)
+        reach = std::max(half_w / std::abs(direction.x), half_h / std::abs(direction.y)) + 2.0;
     Point side{-direction.y, direction.x};
     Point centre{};
     for (int attempt = 0; attempt < 9; ++attempt) {
