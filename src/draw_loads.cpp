@@ -260,11 +260,18 @@ Sheet loads_sheet(const Analysis& a, CaseId c, const LoadScales& scales) {
     const DisplayUnits& u = model.units;
     sheet.legend(Key::frame_faint, "member");
     sheet.legend(Key::load, "load, arrows in the direction it acts");
-    std::string scale = "One scale on every loads sheet: distributed loads 10 px = " +
-                        with_unit(scales.per_length * 10.0 / kBand, u.force_per_length);
+    std::vector<std::string> scales_text;
+    if (scales.per_length > 0.0)
+        scales_text.push_back("distributed loads 10 px = " +
+                              with_unit(scales.per_length * 10.0 / kBand, u.force_per_length));
     if (scales.force > 0.0)
-        scale += "; forces 10 px = " + with_unit(scales.force * 10.0 / kArrow, u.force) +
-                 " (no arrow shorter than " + svg::number(kShortest) + " px)";
+        scales_text.push_back("forces 10 px = " + with_unit(scales.force * 10.0 / kArrow, u.force) +
+                              " (no arrow shorter than " + svg::number(kShortest) + " px)");
+    std::string scale = "One scale on every loads sheet";
+    for (std::size_t i = 0; i < scales_text.size(); ++i) {
+        scale += i == 0 ? ": " : "; ";
+        scale += scales_text[i];
+    }
     sheet.note(scale + ". Moments are drawn as arcs, counterclockwise when positive.");
     sheet.note(
         "Loads marked proj. act per unit of horizontal projection (roof snow and roof "
