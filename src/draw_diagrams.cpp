@@ -446,6 +446,49 @@ double round_down_125(double x) {
     return decade;
 }
 
+/// The member with the largest deflection from its chord, labelled where it
+/// occurs, with the value the report gives for that member.
+void label_largest_deflection(SheetBuilder& sheet, const SubjectData& d,
+                              const std::vector<Curve>& curves,
+                              const std::vector<std::vector<std::pair<double, double>>>& moved,
+                              double magnification) {
+    const Model& model = sheet.analysis().model;
+    const DisplayUnit& unit = model.units.displacement;
+    if (curves.empty())
+        return;
+    std::size_t best = 0;
+    for (std::size_t m = 1; m < curves.size(); ++m) {
+        if (std::abs(d.results->members[m].deflection_max.value) >
+            std::abs(d.results->members[best].deflection_max.value))
+            best = m;
+    }
+    const firn::Extreme& e = d.results->members[best].deflection_max;
+    if (shown(std::abs(e.value), unit) == shown(0.0, unit))
+        return;
+    // The displaced place nearest the extreme's position.
+    const Curve& c = curves[best];
+    std::size_t nearest = 0;
+    for (std::size_t i = 1; i < c.places.size(); ++i) {
+        if (std::abs(c.places[i].s - e.position) < std::abs(c.places[nearest].s - e.position))
+            nearest = i;
+    }
+    const Member& member = model.members[best];
+    const Node& n0 = model.nodes[at(member.start)];
+    MemberGeometry g = member_geometry(model, make_id<MemberId>(best));
+    double s = c.places[nearest].s;
+    Point p = sheet.view().at(n0.x + g.c * s + magnification * moved[best][nearest].first,
+                              n0.y + g.s * s + magnification * moved[best][nearest].second);
+    SheetAxes axes = sheet_axes(sheet.analysis(), sheet.view(), make_id<MemberId>(best));
+    double side = e.value >= 0.0 ? 1.0 : -1.0;
+    std::string text =
+        "deflection " + shown(e.value, unit) + " " + unit.name + " (" + member.name + ")";
+    Point centre = sheet.place_label(p, {axes.local_y.x * side, axes.local_y.y * side}, text, 10.5);
+    sheet.body().text(centre, text,
+                      "class=\"value\" text-anchor=\"middle\" " +
+                          attribute("data-member", member.name) + " " +
+                          attribute("data-quantity", "deflection"));
+}
+
 Sheet deflected_sheet(const Analysis& a, const SubjectData& d, const std::vector<Curve>& curves) {
     const Model& model = a.model;
     SheetBuilder sheet(a, subject_path(d, Diagram::deflection),
@@ -503,13 +546,13 @@ Sheet deflected_sheet(const Analysis& a, const SubjectData& d, const std::vector
                                   n.y + magnification * disp[best][1]);
         std::string text = (dof == 0 ? "dx " : "dy ") + shown(disp[best][dof], unit) + " " +
                            unit.name + " at " + n.name;
-        Point centre =
-            sheet.place_label(p, dof == 0 ? Point{0.0, -1.0} : Point{1.0, 0.0}, text, 10.5);
+        Point centre = sheet.place_label(p, {0.0, -1.0}, text, 10.5);
         sheet.body().text(centre, text,
                           "class=\"value\" text-anchor=\"middle\" " +
                               attribute("data-node", n.name) +
                               attribute(" data-quantity", dof == 0 ? "dx" : "dy"));
     }
+    label_largest_deflection(sheet, d, curves, moved, magnification);
     sheet.body().close_group();
     sheet.legend(Key::frame_faint, "the frame as built");
     sheet.legend(Key::deflected, "the frame displaced (magnified)");
@@ -518,7 +561,9 @@ Sheet deflected_sheet(const Analysis& a, const SubjectData& d, const std::vector
     sheet.note("Displacements are drawn " + factor +
                " times their size; the frame's own dimensions are to the sheet's scale. "
                "Labelled: the largest horizontal (dx) and vertical (dy) node displacement, in " +
-               unit.name + ", global axes (x right, y up).");
+               unit.name +
+               ", global axes (x right, y up), and the largest deflection of a member from the "
+               "chord through its displaced ends, along its local y, as the report gives it.");
     return sheet.finish();
 }
 

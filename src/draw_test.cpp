@@ -215,6 +215,12 @@ TEST_CASE("a simply supported beam's moment, wL^2/8, is labelled at midspan on t
     const std::string& shear = sheet_named(sheets, "diagrams/case-D-shear.svg").svg;
     std::string v = label(shear, "B1", "V");
     CHECK((v == "60.000" || v == "-60.000"));
+    // delta_mid = 5 w L^4 / (384 E I) = 5 x 12 kN/m x (10 m)^4 / (384 x 200000 MPa x 1e-4 m^4)
+    // = 78.125 mm, downward (simply supported, UDL: [D], AISC Table 3-23 case 1, from memory).
+    const std::string& shape = sheet_named(sheets, "diagrams/case-D-deflected.svg").svg;
+    std::smatch d;
+    REQUIRE(std::regex_search(shape, d, std::regex(">deflection (-?[0-9.]+) mm \\(B1\\)<")));
+    CHECK(std::stod(d[1]) == Approx(-78.125).margin(0.01));
 }
 
 TEST_CASE("a cantilever's deflected shape labels the tip deflection PL^3/3EI", "[draw]") {
