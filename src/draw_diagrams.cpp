@@ -4,6 +4,7 @@
 // are the very values the text report prints (MemberSummary, MemberEnvelope).
 #include <algorithm>
 #include <cmath>
+#include <optional>
 #include <string>
 
 #include "combine.hpp"
@@ -338,8 +339,21 @@ std::string attribute(std::string_view name, std::string_view value) {
     return std::string(name) + "=\"" + svg::escape(value) + "\"";
 }
 
+/// The largest ordinate: kOrdinate, or less on a dense frame so that the
+/// diagrams of neighbouring members stay apart (0.4 of the median member).
+double ordinate_px(const Analysis& a, const View& view) {
+    std::vector<double> lengths;
+    for (std::size_t m = 0; m < a.model.members.size(); ++m)
+        lengths.push_back(sheet_axes(a, view, make_id<MemberId>(m)).length_px);
+    if (lengths.empty())
+        return kOrdinate;
+    auto middle = lengths.begin() + static_cast<std::ptrdiff_t>(lengths.size() / 2);
+    std::nth_element(lengths.begin(), middle, lengths.end());
+    return std::clamp(0.4 * *middle, 12.0, kOrdinate);
+}
+
 void force_notes(SheetBuilder& sheet, Diagram diagram, const DisplayUnit& unit, double largest,
-                 const SubjectData& d) {
+                 double ordinate, const SubjectData& d) {
     const char* symbol = diagram == Diagram::moment ? "M" : diagram == Diagram::shear ? "V" : "N";
     sheet.legend(Key::frame_faint, "member");
     sheet.legend(Key::positive, std::string(symbol) + " > 0: hatched /, solid outline");
@@ -374,7 +388,7 @@ void force_notes(SheetBuilder& sheet, Diagram diagram, const DisplayUnit& unit, 
                    "), at their positions.");
     }
     if (largest > 0.0) {
-        sheet.note("Ordinate scale: 10 px = " + shown(largest * 10.0 / kOrdinate, unit) + " " +
+        sheet.note("Ordinate scale: 10 px = " + shown(largest * 10.0 / ordinate, unit) + " " +
                    unit.name + "; values in " + unit.name + ".");
     } else {
         sheet.note("Every value of this diagram is zero.");
@@ -398,7 +412,8 @@ Sheet force_sheet(const Analysis& a, const SubjectData& d, Diagram diagram,
     const DisplayUnit& unit = unit_of(model, diagram);
     // Values that print as zero are not drawn: they would be noise on the member.
     double threshold = 0.5 * std::pow(10.0, -unit.decimals) * unit.to_si;
-    double px_per_unit = largest > threshold ? drawn_side(diagram) * kOrdinate / largest : 0.0;
+    double ordinate = ordinate_px(a, sheet.view());
+    double px_per_unit = largest > threshold ? drawn_side(diagram) * ordinate / largest : 0.0;
     if (px_per_unit == 0.0)
         largest = 0.0;
     sheet.body().open_group("id=\"" + sheet.id("diagram") + "\"");
@@ -413,6 +428,7 @@ Sheet force_sheet(const Analysis& a, const SubjectData& d, Diagram diagram,
     }
     sheet.body().close_group();
     sheet.body().open_group("id=\"" + sheet.id("values") + "\"");
+    std::size_t crowded = 0;  // values left unlabelled for want of room
     for (std::size_t m = 0; m < curves.size() && px_per_unit != 0.0; ++m) {
         SheetAxes axes = sheet_axes(a, sheet.view(), make_id<MemberId>(m));
         double length = member_geometry(model, make_id<MemberId>(m)).length;
@@ -420,19 +436,27 @@ Sheet force_sheet(const Analysis& a, const SubjectData& d, Diagram diagram,
             std::string text = shown(e.value, unit);
             if (std::abs(e.value) < threshold)
                 continue;
-            double ordinate = e.value * px_per_unit;
-            Point tip = offset(axes, length > 0.0 ? e.position / length : 0.0, ordinate);
-            double side = ordinate >= 0.0 ? 1.0 : -1.0;
-            Point centre =
-                sheet.place_label(tip, {axes.local_y.x * side, axes.local_y.y * side}, text, 10.5);
-            sheet.body().text(centre, text,
+            double drawn = e.value * px_per_unit;
+            Point tip = offset(axes, length > 0.0 ? e.position / length : 0.0, drawn);
+            double side = drawn >= 0.0 ? 1.0 : -1.0;
+            std::optional<Point> centre = sheet.try_place_label(
+                tip, {axes.local_y.x * side, axes.local_y.y * side}, text, 10.5);
+            if (!centre) {
+                ++crowded;
+                continue;
+            }
+            sheet.body().text(*centre, text,
                               "class=\"value\" text-anchor=\"middle\" " +
                                   attribute("data-member", model.members[m].name) + " " +
                                   attribute("data-quantity", e.tag));
         }
     }
     sheet.body().close_group();
-    force_notes(sheet, diagram, unit, largest, d);
+    force_notes(sheet, diagram, unit, largest, ordinate, d);
+    if (crowded > 0)
+        sheet.note(std::to_string(crowded) +
+                   " extreme values are not labelled for want of room on the sheet; the "
+                   "report's tables give every one.");
     return sheet.finish();
 }
 

@@ -3,6 +3,7 @@
 // the frame drawn under every sheet.
 #pragma once
 
+#include <optional>
 #include <span>
 #include <string>
 #include <string_view>
@@ -74,6 +75,10 @@ class SheetBuilder {
     void note(std::string text) { notes_.push_back(std::move(text)); }
     /// Pushes a label clear of the labels already placed: tries further out along
     /// `direction`, then sideways. Returns where its centre goes.
+    /// The same, but nothing when every place tried is taken (a value that can be
+    /// left to the report on a crowded sheet).
+    std::optional<Point> try_place_label(Point anchor, Point direction, std::string_view text,
+                                         double font_size, bool clear_both = false);
     /// With `clear_both`, the box clears both the horizontal and the vertical line
     /// through the anchor (a node's name beside the members that meet there).
     Point place_label(Point anchor, Point direction, std::string_view text, double font_size,

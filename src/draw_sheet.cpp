@@ -1,6 +1,7 @@
 // draw_sheet: the page every drawing is laid out on, its look and its legend.
 #include <algorithm>
 #include <cmath>
+#include <optional>
 
 #include "draw_internal.hpp"
 #include "number_format.hpp"
@@ -198,8 +199,9 @@ SheetBuilder::SheetBuilder(const Analysis& analysis, std::string path, std::stri
     view_.oy = kTop + pad + world.y1 * scale;
 }
 
-Point SheetBuilder::place_label(Point anchor, Point direction, std::string_view text,
-                                double font_size, bool clear_both) {
+std::optional<Point> SheetBuilder::try_place_label(Point anchor, Point direction,
+                                                   std::string_view text, double font_size,
+                                                   bool clear_both) {
     double half_w = 0.31 * font_size * static_cast<double>(text.size()) + 1.5;
     double half_h = 0.5 * font_size + 1.0;
     // The centre sits far enough along `direction` that the box clears the anchor.
@@ -207,21 +209,34 @@ Point SheetBuilder::place_label(Point anchor, Point direction, std::string_view 
     if (clear_both && std::abs(direction.x) > 0.1 && std::abs(direction.y) > 0.1)
         reach = std::max(half_w / std::abs(direction.x), half_h / std::abs(direction.y)) + 2.0;
     Point side{-direction.y, direction.x};
-    Point centre{};
+    // Outward in three steps, each straight out and to either side.
     for (int attempt = 0; attempt < 9; ++attempt) {
         double out = reach + 1.2 * font_size * (attempt / 3);
         double shift = (attempt % 3 == 0 ? 0.0 : attempt % 3 == 1 ? 1.0 : -1.0) * 2.2 * half_h;
-        centre = {anchor.x + direction.x * out + side.x * shift,
-                  anchor.y + direction.y * out + side.y * shift};
+        Point centre{anchor.x + direction.x * out + side.x * shift,
+                     anchor.y + direction.y * out + side.y * shift};
         Box box{centre.x - half_w, centre.y - half_h, centre.x + half_w, centre.y + half_h};
         bool free = std::none_of(labels_.begin(), labels_.end(),
                                  [&box](const Box& other) { return box.overlaps(other); });
-        if (free || attempt == 8) {
+        if (free) {
             labels_.push_back(box);
-            break;
+            // Text is placed by its baseline; move it down a third of its size to centre it.
+            return Point{centre.x, centre.y + 0.35 * font_size};
         }
     }
-    // Text is placed by its baseline; move it down a third of its size to centre it.
+    return std::nullopt;
+}
+
+Point SheetBuilder::place_label(Point anchor, Point direction, std::string_view text,
+                                double font_size, bool clear_both) {
+    if (auto centre = try_place_label(anchor, direction, text, font_size, clear_both))
+        return *centre;
+    // No room: straight out, over whatever is there (a name must be shown).
+    double half_w = 0.31 * font_size * static_cast<double>(text.size()) + 1.5;
+    double half_h = 0.5 * font_size + 1.0;
+    double reach = std::abs(direction.x) * half_w + std::abs(direction.y) * half_h + 3.0;
+    Point centre{anchor.x + direction.x * reach, anchor.y + direction.y * reach};
+    labels_.push_back({centre.x - half_w, centre.y - half_h, centre.x + half_w, centre.y + half_h});
     return {centre.x, centre.y + 0.35 * font_size};
 }
 
