@@ -34,11 +34,9 @@ std::string_view svg_element(std::string_view document) {
     return start == std::string_view::npos ? document : document.substr(start);
 }
 
+/// The sheet's own path: unique, and an HTML id may hold any character but space.
 std::string anchor(const Sheet& sheet) {
-    std::string out = "sheet-";
-    for (char ch : sheet.path)
-        out += std::isalnum(static_cast<unsigned char>(ch)) ? ch : '-';
-    return out;
+    return "sheet:" + svg::escape(sheet.path);
 }
 
 }  // namespace
