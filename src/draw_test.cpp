@@ -299,7 +299,8 @@ TEST_CASE("a loads sheet shows every kind of load with its value", "[draw]") {
 TEST_CASE("the frame sheet names nodes, members and grid lines and draws each support kind",
           "[draw]") {
     Analysis a = analyse_example("gable_hall.firn");
-    const std::string& svg = sheet_named(sheets_of(a), "frame.svg").svg;
+    std::vector<Sheet> sheets = sheets_of(a);
+    const std::string& svg = sheet_named(sheets, "frame.svg").svg;
     for (const char* name : {">W0<", ">RW<", ">CEU<", ">west<", ">eave<", ">18.000 ft<"})
         CHECK(svg.find(name) != std::string::npos);
     CHECK(svg.find("pinned support") != std::string::npos);
