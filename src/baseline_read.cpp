@@ -86,7 +86,7 @@ bool read_value_line(std::string_view line, BaselineValue& v, std::string& why) 
     }
     std::vector<std::string_view> value = words(rest);
     if (value.empty() || value.size() > 2 || !read_number(value[0], v.value)) {
-        why = "expected a number and its unit after `=`";
+        why = fmt::format("expected a number and its unit after `=`, found '{}'", rest);
         return false;
     }
     v.text = std::string(value[0]);

@@ -147,7 +147,7 @@ TEST_CASE("bad baselines are errors naming the file and line", "[baseline]") {
     CHECK(error_for(head + "case D member A moment_max 1 kip*ft\n") ==
           "m.baseline:4: error: expected `KEY = VALUE UNIT`");
     CHECK(error_for(head + "case D member A moment_max = x kip*ft\n") ==
-          "m.baseline:4: error: expected a number and its unit after `=`");
+          "m.baseline:4: error: expected a number and its unit after `=`, found 'x kip*ft'");
     CHECK(error_for(head + "case D member A moment_max = 1 furlong\n") ==
           "m.baseline:4: error: unknown unit 'furlong'");
     CHECK(error_for(head + "case D node A dx = 1 in\n\ncase D node A dx = 2 in\n") ==

@@ -289,6 +289,7 @@ void add_tolerance_options(CLI::App* cmd, ToleranceArgs& args) {
                     "--abs 0.001 ratio); repeat for other kinds. Defaults: 1 N, 1 N*m, "
                     "0.001 mm, 0.000001 rad or ratio")
         ->expected(2)
+        ->multi_option_policy(CLI::MultiOptionPolicy::TakeAll)
         ->type_name("VALUE UNIT");
 }
 
@@ -344,11 +345,28 @@ void add_diff(CLI::App* parent, int& status) {
 void add_baseline_command(CLI::App& app, int& status) {
     CLI::App* cmd = app.add_subcommand(
         "baseline", "Keep each model's results in a baseline file beside it and compare with it");
-    cmd->require_subcommand(1);
     add_check(cmd, status);
     add_update(cmd, status);
     add_show(cmd, status);
     add_diff(cmd, status);
+    // Without a known command, say which there are (CLI11 would only say one is required).
+    cmd->require_subcommand(0, 1);
+    cmd->allow_extras();
+    cmd->callback([cmd, &status] {
+        if (!cmd->get_subcommands().empty())
+            return;
+        std::vector<std::string> extras = cmd->remaining();
+        std::vector<std::string> names{"check", "update", "show", "diff"};
+        if (extras.empty()) {
+            std::fputs(
+                "firn: error: `firn baseline` needs a command: check, update, show or diff\n",
+                stderr);
+        } else {
+            std::fprintf(stderr, "firn: error: unknown baseline command '%s'%s\n",
+                         extras.front().c_str(), did_you_mean(extras.front(), names).c_str());
+        }
+        status = exit_model_error;
+    });
 }
 
 }  // namespace firn
