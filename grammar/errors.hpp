@@ -19,7 +19,7 @@ struct errors {
 #define FIRN_ERROR(rule, text) \
     template <> inline constexpr const char* errors::message<rule> = text;
 
-FIRN_ERROR(unknown_statement, "expected a statement (model, use, let, report, grid, node, material, section, member, columns, beams, rafters, group, support, case, snow, roof, projection, amend, combinations, combine, pattern, arrange or deflection)")
+FIRN_ERROR(unknown_statement, "expected a statement (model, use, let, report, grid, node, material, section, member, columns, beams, rafters, group, support, case, snow, roof, projection, amend, combinations, combine, pattern, arrange, deflection or expect)")
 FIRN_ERROR(end_of_statement, "expected the end of the statement (a new line or ';')")
 FIRN_ERROR(title, "expected the model title in double quotes, as in: model \"Frame on line 3\"")
 FIRN_ERROR(one<'"'>, "expected '\"' to close the text on this line")
@@ -133,6 +133,20 @@ FIRN_ERROR(arrange_rule, "expected the name of a pattern rule")
 FIRN_ERROR(deflection_member, "expected a member, a group or a pattern such as eave.*")
 FIRN_ERROR(deflection_limit, "expected 'limit' and a row of limits, as in: deflection eave.* limit ibc2018.roof_no_ceiling")
 FIRN_ERROR(deflection_row, "expected a row of deflection limits such as ibc2018.roof_no_ceiling")
+FIRN_ERROR(expect_subject, "expected what to check: moment, shear, axial or deflection of members, reaction or displacement at nodes, rotation at nodes, or a snow value, as in: expect moment of eave.BC <= 45 kip*ft")
+FIRN_ERROR(expect_of, "expected 'of' and the members, as in: moment of eave.BC")
+FIRN_ERROR(expect_member, "expected a member, a group or a pattern such as eave.*")
+FIRN_ERROR(expect_at, "expected 'at' and the nodes, as in: reaction y at base.A")
+FIRN_ERROR(expect_node, "expected a node's name")
+FIRN_ERROR(expect_reaction_component, "expected the reaction's component: x, y or moment")
+FIRN_ERROR(expect_displacement_component, "expected the displacement's direction: x or y (or write rotation at NODE)")
+FIRN_ERROR(expect_snow_value, "expected a derived snow value such as pf, main.ps or drift.main.step_left.hd")
+FIRN_ERROR(expect_source, "expected a load case or a set of combinations after 'under'")
+FIRN_ERROR(expect_bound, "expected the bound: <= value, >= value, = value, or between low and high")
+FIRN_ERROR(expect_value, "expected a value such as 45 kip*ft")
+FIRN_ERROR(expect_and, "expected 'and' and the upper bound, as in: between -60 kip*ft and 45 kip*ft")
+FIRN_ERROR(expect_high, "expected the upper bound, a value such as 45 kip*ft")
+FIRN_ERROR(expect_tolerance, "expected the tolerance, a value such as 0.5 kip*ft or a percentage such as 2 %")
 
 #undef FIRN_ERROR
 // clang-format on

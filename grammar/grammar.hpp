@@ -85,6 +85,14 @@ struct kw_arrange : TAO_PEGTL_KEYWORD("arrange") {};
 struct kw_by : TAO_PEGTL_KEYWORD("by") {};
 struct kw_deflection : TAO_PEGTL_KEYWORD("deflection") {};
 struct kw_limit : TAO_PEGTL_KEYWORD("limit") {};
+struct kw_expect : TAO_PEGTL_KEYWORD("expect") {};
+struct kw_of : TAO_PEGTL_KEYWORD("of") {};
+struct kw_shear : TAO_PEGTL_KEYWORD("shear") {};
+struct kw_reaction : TAO_PEGTL_KEYWORD("reaction") {};
+struct kw_under : TAO_PEGTL_KEYWORD("under") {};
+struct kw_between : TAO_PEGTL_KEYWORD("between") {};
+struct kw_and : TAO_PEGTL_KEYWORD("and") {};
+struct kw_within : TAO_PEGTL_KEYWORD("within") {};
 struct kw_rotation : TAO_PEGTL_KEYWORD("rotation") {};
 struct kw_section : TAO_PEGTL_KEYWORD("section") {};
 struct kw_self : TAO_PEGTL_KEYWORD("self") {};
@@ -622,6 +630,58 @@ struct deflection_stmt : if_must<deflection_begin, sp, deflection_member,
                                  star<list_sep, deflection_member>, sp, deflection_limit, sp,
                                  deflection_row> {};
 
+// ---------------------------------------------------------------- expectations
+
+// expect_stmt <- 'expect' sp subject (sp 'under' sp name)? sp bound
+//                (sp 'within' sp tolerance)? (sp because)?
+//                a bound on a result, checked by `firn check`
+// subject     <- ('moment' / 'shear' / 'axial' / 'deflection') sp 'of' sp member_ref (list_sep member_ref)*
+//              / 'reaction' sp ('x' / 'y' / 'moment') sp 'at' sp name (list_sep name)*
+//              / 'displacement' sp ('x' / 'y') sp 'at' sp name (list_sep name)*
+//              / 'rotation' sp 'at' sp name (list_sep name)*
+//              / 'snow' sp name                      a derived snow value: pf, main.ps, ...
+// bound       <- ('<=' / '>=' / '=') sp expr / 'between' sp expr sp 'and' sp expr
+// tolerance   <- number sp '%' / expr
+struct expect_member_quantity : sor<kw_moment, kw_shear, kw_axial, kw_deflection> {};
+struct expect_member : member_ref {};
+struct expect_of : kw_of {};
+struct expect_members : if_must<expect_member_quantity, sp, expect_of, sp, expect_member,
+                                star<list_sep, expect_member>> {};
+struct expect_node : name {};
+struct expect_at : kw_at {};
+struct expect_nodes : if_must<expect_at, sp, expect_node, star<list_sep, expect_node>> {};
+struct expect_reaction_component : sor<kw_x, kw_y, kw_moment> {};
+struct expect_reaction_word : kw_reaction {};
+struct expect_reaction : if_must<expect_reaction_word, sp, expect_reaction_component, sp, expect_nodes> {};
+struct expect_displacement_component : sor<kw_x, kw_y> {};
+struct expect_displacement_word : kw_displacement {};
+struct expect_displacement : if_must<expect_displacement_word, sp, expect_displacement_component, sp,
+                                     expect_nodes> {};
+struct expect_rotation_word : kw_rotation {};
+struct expect_rotation : if_must<expect_rotation_word, sp, expect_nodes> {};
+struct expect_snow_value : name {};
+struct expect_snow_word : kw_snow {};
+struct expect_snow : if_must<expect_snow_word, sp, expect_snow_value> {};
+struct expect_subject : sor<expect_members, expect_reaction, expect_displacement,
+                            expect_rotation, expect_snow> {};
+struct expect_source : name {};
+struct expect_under : if_must<kw_under, sp, expect_source> {};
+struct expect_relation : sor<string<'<', '='>, string<'>', '='>, one<'='>> {};
+struct expect_value : expr {};
+struct expect_and : kw_and {};
+struct expect_high : expr {};
+struct expect_compare : if_must<expect_relation, sp, expect_value> {};
+struct expect_between_word : kw_between {};
+struct expect_between : if_must<expect_between_word, sp, expect_value, sp, expect_and, sp, expect_high> {};
+struct expect_bound : sor<expect_compare, expect_between> {};
+struct expect_percent : seq<at<number, sp, one<'%'>>, number, sp, one<'%'>> {};
+struct expect_tolerance_value : expr {};
+struct expect_tolerance : sor<expect_percent, expect_tolerance_value> {};
+struct expect_within : if_must<kw_within, sp, expect_tolerance> {};
+struct expect_begin : kw_expect {};
+struct expect_stmt : if_must<expect_begin, sp, expect_subject, sp, opt<expect_under, sp>,
+                             expect_bound, opt<sp, expect_within>, opt<sp, because>> {};
+
 // amend_stmt  <- 'amend' sp name sp '=' sp expr sp 'because' sp quoted
 //                replaces a value of the library, with the reason
 struct amend_name : name {};
@@ -633,7 +693,7 @@ struct statement : sor<model_stmt, use_stmt, let_stmt, report_stmt, grid_stmt, n
                        material_stmt, section_stmt, member_stmt, columns_stmt, beams_stmt,
                        rafters_stmt, group_stmt, support_stmt, case_stmt, snow_stmt, roof_stmt,
                        projection_stmt, amend_stmt, combinations_stmt, combine_stmt,
-                       pattern_stmt, arrange_stmt, deflection_stmt,
+                       pattern_stmt, arrange_stmt, deflection_stmt, expect_stmt,
                        raise<unknown_statement>> {};
 struct statement_line : seq<statement, sp, must<end_of_statement>> {};
 struct top_item : seq<not_at<eof>, recover<statement_line, skip_statement>, sp_nl> {};

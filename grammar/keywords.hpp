@@ -28,10 +28,12 @@ inline constexpr std::array<std::string_view, 56> keywords{
 /// Words that are keywords only where the grammar expects them, and otherwise
 /// free for names: `roof` starts `roof live`, but engineers name levels "roof";
 /// `plan` follows `grid` only; `projection`, `combinations`, `combine`, `pattern` and
-/// `arrange`, `deflection` start a statement only; `limit` follows its members; `or`,
-/// `half_live_in` and `by` have meaning inside them.
-inline constexpr std::array<std::string_view, 12> contextual_keywords{
-    "arrange", "by", "combinations", "combine", "deflection", "half_live_in",
-    "limit",   "or", "pattern",      "plan",    "projection", "roof"};
+/// `arrange`, `deflection` and `expect` start a statement only; `limit` follows its members;
+/// `or`, `half_live_in` and `by` have meaning inside them, as `of`, `shear`, `reaction`,
+/// `under`, `between`, `and` and `within` have inside `expect`.
+inline constexpr std::array<std::string_view, 20> contextual_keywords{
+    "and",    "arrange", "between", "by",      "combinations", "combine", "deflection",
+    "expect", "half_live_in", "limit",   "of",      "or",           "pattern", "plan",
+    "projection", "reaction", "roof",    "shear",   "under",        "within"};
 
 }  // namespace firn::grammar

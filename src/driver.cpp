@@ -76,7 +76,9 @@ Analysis analyse_text(std::string name, std::string text, PhaseTimes* times,
     }
     a.deflections = check_deflections(a.model, a.loads, a.solution, a.results);
     t.combinations = clock.lap();
-    a.ok = true;
+    a.expectations = check_expectations(
+        {a.model, a.loads, a.solution, a.results, a.combinations, a.envelopes}, a.diagnostics);
+    a.ok = !a.diagnostics.has_errors();
     return a;
 }
 

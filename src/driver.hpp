@@ -7,6 +7,7 @@
 #include "combinations.hpp"
 #include "deflection.hpp"
 #include "diag.hpp"
+#include "expect.hpp"
 #include "imports.hpp"
 #include "loads.hpp"
 #include "mirror.hpp"
@@ -37,6 +38,7 @@ struct Analysis {
     CombinationList combinations;
     std::vector<Envelopes> envelopes;  ///< per chosen set of combinations
     std::vector<DeflectionCheck> deflections;
+    std::vector<ExpectationOutcome> expectations;  ///< per `expect`, in statement order
     bool ok = false;
 };
 

@@ -267,6 +267,8 @@ class Printer {
     void print(const syntax::PatternDecl& p);
     void print(const syntax::ArrangeDecl& a);
     void print(const syntax::DeflectionDecl& d);
+    void print(const syntax::ExpectDecl& e);
+    void expect_bound(const syntax::ExpectDecl& e);
     void because(const SourceRange& reason);
     void properties(const std::vector<syntax::Property>& props, bool started);
     void options(const syntax::MemberOptions& o);
@@ -669,6 +671,45 @@ void Printer::print(const syntax::DeflectionDecl& d) {
     names(d.members);
     word("limit");
     name(d.row);
+}
+
+void Printer::print(const syntax::ExpectDecl& e) {
+    word("expect");
+    name(e.quantity);
+    if (!e.component.text.empty())
+        name(e.component);
+    if (e.quantity.text == "snow") {
+        names(e.places);
+    } else {
+        word(e.component.text.empty() && e.quantity.text != "rotation" ? "of" : "at");
+        names(e.places);
+    }
+    if (e.source) {
+        word("under");
+        name(*e.source);
+    }
+    expect_bound(e);
+    if (e.reason)
+        because(e.reason_where);
+}
+
+void Printer::expect_bound(const syntax::ExpectDecl& e) {
+    signature_ += " " + e.relation;
+    if (e.relation == "between") {
+        word("between");
+        value(e.value);
+        word("and");
+        value(*e.high);
+    } else {
+        word(e.relation);
+        value(e.value);
+    }
+    if (e.tolerance) {
+        word("within");
+        value(*e.tolerance);
+        if (e.tolerance_percent)
+            word("%");
+    }
 }
 
 void Printer::print(const syntax::AmendDecl& a) {

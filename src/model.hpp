@@ -344,6 +344,36 @@ struct Amendment {
     SourceRange where;
 };
 
+/// A derived snow value by name (`pf`, `main.ps`, `drift.main.step_left.hd`), SI, for
+/// the expectations a model states about them.
+struct SnowValue {
+    std::string name;
+    double value = 0.0;
+    Dimension dimension;
+};
+
+/// A bound on a result (`expect`), checked by `firn check`.
+struct Expectation {
+    enum class Quantity { moment, shear, axial, deflection, reaction, displacement, rotation, snow };
+    enum class Relation { at_most, at_least, equal, between };
+    Quantity quantity = Quantity::moment;
+    std::size_t component = 0;      ///< reaction, displacement: 0 x, 1 y, 2 moment (rotation)
+    std::vector<MemberId> members;  ///< moment, shear, axial, deflection
+    std::vector<NodeId> nodes;      ///< reaction, displacement, rotation
+    std::string snow_value;         ///< snow: the value's name
+    std::string source;             ///< `under`: a load case or a set; empty: the default
+    SourceRange source_where;
+    Relation relation = Relation::at_most;
+    double low = 0.0, high = 0.0;  ///< SI; equal: both the value
+    Dimension dimension;           ///< of the bounds
+    double tolerance = 0.0;        ///< SI, or a fraction of the bound when relative
+    bool tolerance_relative = false;
+    bool tolerance_written = false;  ///< false: 0, or for `=` half the last digit written
+    std::string subject;  ///< as the canonical text writes it: "moment of eave.BC"
+    std::string reason;
+    SourceRange where;  ///< the statement
+};
+
 /// One line of the snow trace: a derived value with its formula, the values put
 /// in, the result and the clause; or a sentence saying why a provision does not apply.
 struct TraceLine {
@@ -372,6 +402,8 @@ struct Model {
     std::vector<Projection> projections;
     std::vector<Amendment> amendments;
     std::vector<TraceLine> snow_trace;  ///< filled by derive_snow
+    std::vector<SnowValue> snow_values;  ///< filled by derive_snow
+    std::vector<Expectation> expectations;
     std::vector<CombinationSet> combination_sets;
     std::optional<CombineChoice> combine;
     std::vector<PatternRule> patterns;

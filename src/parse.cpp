@@ -1338,6 +1338,101 @@ struct action<g::deflection_member> {
     }
 };
 
+template <>
+struct action<g::expect_begin> : begin_statement<syntax::ExpectDecl> {};
+template <>
+struct action<g::expect_member_quantity> : store_name<&syntax::ExpectDecl::quantity> {};
+template <>
+struct action<g::expect_reaction_word> : store_name<&syntax::ExpectDecl::quantity> {};
+template <>
+struct action<g::expect_displacement_word> : store_name<&syntax::ExpectDecl::quantity> {};
+template <>
+struct action<g::expect_rotation_word> : store_name<&syntax::ExpectDecl::quantity> {};
+template <>
+struct action<g::expect_snow_word> : store_name<&syntax::ExpectDecl::quantity> {};
+template <>
+struct action<g::expect_reaction_component> : store_name<&syntax::ExpectDecl::component> {};
+template <>
+struct action<g::expect_displacement_component> : store_name<&syntax::ExpectDecl::component> {};
+template <>
+struct action<g::expect_member> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::ExpectDecl>().places.push_back(b.name(in));
+    }
+};
+template <>
+struct action<g::expect_node> : action<g::expect_member> {};
+template <>
+struct action<g::expect_snow_value> : action<g::expect_member> {};
+template <>
+struct action<g::expect_source> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::ExpectDecl>().source = b.name(in);
+    }
+};
+template <>
+struct action<g::expect_relation> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        auto& expect = b.current<syntax::ExpectDecl>();
+        expect.relation = in.string();
+        expect.relation_where = b.range(in);
+    }
+};
+template <>
+struct action<g::expect_between_word> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        auto& expect = b.current<syntax::ExpectDecl>();
+        expect.relation = "between";
+        expect.relation_where = b.range(in);
+    }
+};
+template <>
+struct action<g::expect_value> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.current<syntax::ExpectDecl>().value = b.pop_expr();
+    }
+};
+template <>
+struct action<g::expect_high> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.current<syntax::ExpectDecl>().high = b.pop_expr();
+    }
+};
+template <>
+struct action<g::expect_percent> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        auto& expect = b.current<syntax::ExpectDecl>();
+        expect.tolerance = b.pop_expr();
+        expect.tolerance_percent = true;
+    }
+};
+template <>
+struct action<g::expect_tolerance_value> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.current<syntax::ExpectDecl>().tolerance = b.pop_expr();
+    }
+};
+template <>
+struct action<g::expect_stmt> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        auto& expect = b.current<syntax::ExpectDecl>();
+        if (b.pending_reason) {
+            expect.reason = std::move(b.pending_reason->first);
+            expect.reason_where = b.pending_reason->second;
+        }
+        b.pending_reason.reset();
+    }
+};
+
 template <syntax::LoadDecl::Form Form>
 struct begin_load {
     template <typename Input>

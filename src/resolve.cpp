@@ -176,6 +176,8 @@ struct Collected {
     std::vector<const syntax::PatternDecl*> patterns;
     std::vector<const syntax::ArrangeDecl*> arrangements;
     std::vector<const syntax::DeflectionDecl*> deflections;
+    std::vector<const syntax::ExpectDecl*> expectations;
+    std::vector<SourceRange> expectation_where;
     std::vector<const syntax::AmendDecl*> amends;
     std::vector<const syntax::Statement*> snow_statements;
     std::vector<const syntax::SupportDecl*> supports;
@@ -229,6 +231,10 @@ Collected collect(std::span<const syntax::Tree> trees) {
                         c.arrangements.push_back(&node);
                     if constexpr (std::is_same_v<T, syntax::DeflectionDecl>)
                         c.deflections.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::ExpectDecl>) {
+                        c.expectations.push_back(&node);
+                        c.expectation_where.push_back(s.where);
+                    }
                     if constexpr (std::is_same_v<T, syntax::SupportDecl>)
                         c.supports.push_back(&node);
                     if constexpr (std::is_same_v<T, syntax::CaseDecl>)
@@ -691,6 +697,7 @@ Model resolve(std::span<const syntax::Tree> trees, Diagnostics& diagnostics) {
     resolve_snow(r, c.snow, c.roofs, c.projections, c.amends, c.snow_statements);
     resolve_combinations(r, c.combination_sets, c.combine, c.patterns, c.arrangements);
     resolve_deflection_limits(r, c.deflections);
+    resolve_expectations(r, c.expectations, c.expectation_where);
     check_whole_model(r, c);
     return std::move(r.model);
 }

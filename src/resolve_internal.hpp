@@ -184,6 +184,10 @@ void resolve_combinations(Resolver& r, const std::vector<const syntax::Combinati
 void resolve_deflection_limits(Resolver& r,
                                const std::vector<const syntax::DeflectionDecl*>& decls);
 
+/// `expect` statements (`where`: each one's statement).
+void resolve_expectations(Resolver& r, const std::vector<const syntax::ExpectDecl*>& decls,
+                          const std::vector<SourceRange>& where);
+
 void resolve_snow(Resolver& r, const std::vector<const syntax::SnowDecl*>& snow,
                   const std::vector<const syntax::RoofDecl*>& roofs,
                   const std::vector<const syntax::RoofDecl*>& projections,

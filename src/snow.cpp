@@ -92,6 +92,11 @@ void SnowDeriver::trace_site() {
                      t_.pf_factor, factor(site_.Ce.value), factor(site_.Ct.value),
                      factor(site_.Is.value), pressure(site_.pg), pressure(pf_)),
          "ASCE 7-16 Eq. 7.3-1");
+    record("pg", site_.pg, dim::pressure);
+    record("Ce", site_.Ce.value, dim::number);
+    record("Ct", site_.Ct.value, dim::number);
+    record("Is", site_.Is.value, dim::number);
+    record("pf", pf_, dim::pressure);
 }
 
 void SnowDeriver::trace_factor(const char* symbol, const SnowFactor& f, const std::string& basis) {
@@ -261,6 +266,7 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
         load_members(roof, plane, p, balanced);
         load_members(roof, plane, ps, plain_balanced_);
     }
+    record(roof.name + ".ps", *std::max_element(ps_of.begin(), ps_of.end()), dim::pressure);
     unbalanced(roof, ps_of, steepest);
     drift_at(roof, ps_of.front(), true);
     drift_at(roof, ps_of.back(), false);
@@ -271,6 +277,7 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
     ice_dam(roof);
     double pm = minimum_load(steepest);
     if (pm > 0.0) {
+        record(roof.name + ".pm", pm, dim::pressure);
         line(fmt::format(
             "on the members (case {}.minimum): {} x {} = {} down, on the horizontal "
             "projection",

@@ -86,6 +86,9 @@ void SnowDeriver::place_drift(const Roof& roof, const std::string& case_name, do
                          length(drift.w), length(room)),
              clause);
     }
+    record(case_name + ".hd", drift.hd, dim::length);
+    record(case_name + ".w", drift.w, dim::length);
+    record(case_name + ".pd", pd, dim::pressure);
     drift_cases_.push_back(new_case(case_name.c_str()));
     // load_between spreads over the roof's tributary width; a shorter drift is scaled to it.
     drift_load(roof, wall_x, toward, drift.w, pd * breadth / roof.tributary, drift_cases_.back());

@@ -99,6 +99,10 @@ class SnowDeriver {
     void line(std::string text, std::string clause = "") {
         m_.snow_trace.push_back(TraceLine{std::move(text), std::move(clause), false});
     }
+    /// Names a derived value for expectations (`expect snow NAME ...`).
+    void record(std::string name, double value, Dimension dimension) {
+        m_.snow_values.push_back(SnowValue{std::move(name), value, dimension});
+    }
     void heading(std::string text) {
         m_.snow_trace.push_back(TraceLine{std::move(text), "", true});
     }

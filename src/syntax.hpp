@@ -332,12 +332,30 @@ struct DeflectionDecl {
     Name row;
 };
 
+/// `expect moment of eave.BC under asce7_16.strength between -60 kip*ft and 45 kip*ft`:
+/// a bound on a result, checked by `firn check`.
+struct ExpectDecl {
+    Name quantity;               ///< moment, shear, axial, deflection, reaction, displacement,
+                                 ///< rotation or snow
+    Name component;              ///< x, y or moment for a reaction; x or y for a displacement
+    std::vector<Name> places;    ///< the members or nodes; for snow, the value's name
+    std::optional<Name> source;  ///< `under CASE-OR-SET`
+    std::string relation;        ///< "<=", ">=", "=" or "between"
+    SourceRange relation_where;
+    Expr value;                ///< the bound (the lower one of `between`)
+    std::optional<Expr> high;  ///< the upper bound of `between`
+    std::optional<Expr> tolerance;
+    bool tolerance_percent = false;  ///< `within 2 %`: `tolerance` is the number of percent
+    std::optional<std::string> reason;
+    SourceRange reason_where;
+};
+
 /// One statement of a model file and the source range it covers.
 struct Statement {
     std::variant<ModelTitle, ReportUnits, Grid, LetDecl, UseDecl, NodeDecl, MaterialDecl,
                  SectionDecl, MemberDecl, ColumnsDecl, BeamsDecl, RaftersDecl, GroupDecl,
                  SupportDecl, CaseDecl, SnowDecl, RoofDecl, AmendDecl, CombinationsDecl,
-                 CombineDecl, PatternDecl, ArrangeDecl, DeflectionDecl>
+                 CombineDecl, PatternDecl, ArrangeDecl, DeflectionDecl, ExpectDecl>
         node;
     SourceRange where;
 };
