@@ -67,13 +67,19 @@ struct KeyParts {
 };
 
 KeyParts split_key(std::string_view key) {
-    // Keys are `SCOPE NAME KIND NAME QUANTITY...` (see baseline_write.cpp).
-    std::size_t scope_end = key.find(' ', key.find(' ') + 1);
-    std::size_t entity_end = key.find(' ', key.find(' ', scope_end + 1) + 1);
-    if (scope_end == std::string_view::npos || entity_end == std::string_view::npos)
+    // Keys are `SCOPE NAME KIND NAME QUANTITY...`, or `snow SITE NAME` (see baseline_write.cpp).
+    std::vector<std::size_t> spaces;
+    for (std::size_t i = 0; i < key.size() && spaces.size() < 4; ++i) {
+        if (key[i] == ' ')
+            spaces.push_back(i);
+    }
+    if (spaces.size() < 2)
         return {std::string(key), "", ""};
-    return {std::string(key.substr(scope_end + 1, entity_end - scope_end - 1)),
-            std::string(key.substr(entity_end + 1)), std::string(key.substr(0, scope_end))};
+    std::string scope(key.substr(0, spaces[1]));
+    if (spaces.size() < 4)
+        return {std::string(key.substr(spaces[1] + 1)), "", scope};
+    return {std::string(key.substr(spaces[1] + 1, spaces[3] - spaces[1] - 1)),
+            std::string(key.substr(spaces[3] + 1)), scope};
 }
 
 std::string shown_number(double v) {

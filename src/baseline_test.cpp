@@ -106,6 +106,46 @@ TEST_CASE("lengthening one span moves both members' support moments by the three
     CHECK_FALSE(find(c, "case D member roof.A.B tension_max"));
 }
 
+TEST_CASE("a baseline holds the derived snow values by name", "[baseline]") {
+    std::string text = two_span("40 ft") +
+                       "use asce7_16\n"
+                       "snow S {\n"
+                       "  standard = asce7_16\n"
+                       "  pg = 40 psf\n"
+                       "  terrain = C\n"
+                       "  exposure = partially\n"
+                       "  thermal = cold_ventilated\n"
+                       "  risk = II\n"
+                       "}\n"
+                       "roof main on roof.* {\n"
+                       "  tributary = 20 ft\n"
+                       "}\n";
+    Baseline b = baseline_of(text);
+    // pf = 0.7 Ce Ct Is pg = 0.7 x 1.0 x 1.1 x 1.0 x 40 psf = 30.8 psf [ASCE 7-16 Eq. 7.3-1;
+    // Ce = 1.0 for terrain C, partially exposed, Table 7.3-1; Ct = 1.1 for a cold, ventilated
+    // roof, Table 7.3-2; Is = 1.0 for risk category II, Table 1.5-2 (tables from memory)].
+    const BaselineValue* pf = find(b, "snow S pf");
+    REQUIRE(pf);
+    CHECK(pf->value == Approx(30.8));
+    CHECK(pf->unit == "psf");
+    REQUIRE(find(b, "snow S Ct"));
+    CHECK(find(b, "snow S Ct")->value == Approx(1.1));
+    CHECK(find(b, "snow S Ct")->unit.empty());
+    CHECK(find(b, "snow S pg")->value == Approx(40.0));
+    // They come first, as the snow loads do in the report, and read back like any value.
+    CHECK(b.values.front().key.starts_with("snow S "));
+    std::string error;
+    REQUIRE(read_baseline(baseline_text(b), "m.baseline", error));
+    // pf is proportional to pg (Eq. 7.3-1): 40 -> 45 psf moves it by +12.5 %, to 34.65 psf.
+    std::size_t at_pg = text.find("pg = 40 psf");
+    Baseline more = baseline_of(text.replace(at_pg, 11, "pg = 45 psf"));
+    Comparison c = compare_baselines(b, more, default_tolerances());
+    const ValueChange* moved = find(c, "snow S pf");
+    REQUIRE(moved);
+    CHECK(moved->percent == Approx(12.5));
+    CHECK(describe_changes(c).find("  pf  ") != std::string::npos);
+}
+
 TEST_CASE("a baseline reads back as it was written", "[baseline]") {
     Baseline b = baseline_of(two_span("44 ft"));
     b.title = "A \"quoted\" title with a back\\slash";

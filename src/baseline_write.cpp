@@ -19,7 +19,7 @@ namespace {
 /// coarse enough that round-off of the last bits never shows.
 constexpr int kSignificantDigits = 6;
 
-/// A ratio (deflection over its limit) has no unit.
+/// A ratio (deflection over its limit, a snow factor) has no unit.
 const DisplayUnit kRatio{"", 1.0, 3};
 
 /// `si_value` in `unit` with six significant digits, but never more than three
@@ -189,6 +189,20 @@ void add_deflections(Writer& w, const Analysis& a) {
     }
 }
 
+/// The derived snow values a model names (`pf`, `main.ps`, a drift's `hd`), as
+/// `snow SITE NAME`. A value of a kind with no display unit is left out.
+void add_snow_values(Writer& w, const Model& model) {
+    std::string site = model.snow ? model.snow->name : "snow";
+    for (const SnowValue& v : model.snow_values) {
+        const DisplayUnit* unit = v.dimension == dim::pressure ? &model.units.pressure
+                                  : v.dimension == dim::length ? &model.units.length
+                                  : v.dimension == dim::number ? &kRatio
+                                                               : nullptr;
+        if (unit != nullptr)
+            w.add(fmt::format("snow {} {}", site, v.name), v.value, *unit);
+    }
+}
+
 /// A title as a quoted string, with `"` and `\` escaped.
 std::string quoted(const std::string& text) {
     std::string out = "\"";
@@ -212,6 +226,7 @@ Baseline make_baseline(const Analysis& a) {
         fmt::format("force {}, length {}, moment {}, displacement {}, rotation {}", u.force.name,
                     u.length.name, u.moment.name, u.displacement.name, u.rotation.name);
     Writer w{b};
+    add_snow_values(w, model);
     for (std::size_t c = 0; c < model.cases.size() && c < a.results.cases.size(); ++c)
         add_case(w, a, c);
     for (std::size_t s = 0; s < a.combinations.sets.size() && s < a.envelopes.size(); ++s) {

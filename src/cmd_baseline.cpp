@@ -105,10 +105,8 @@ std::optional<Baseline> stored_baseline(const std::string& model, const Baseline
                                         std::string& error) {
     std::string path = baseline_path(model), text;
     if (!std::filesystem::exists(path)) {
-        error = fmt::format(
-            "{}: error: no baseline for {}; create it with `firn baseline update "
-            "{}`\n",
-            path, model, model);
+        error = fmt::format("{}: error: no baseline for {}; create it with `{} {}`\n", path, model,
+                            "firn baseline update", model);
         return std::nullopt;
     }
     if (!read_file(path, text, error)) {
@@ -123,10 +121,9 @@ std::optional<Baseline> stored_baseline(const std::string& model, const Baseline
                             stored->source, fresh.source);
         stored.reset();
     } else if (stored->title != fresh.title) {
-        error = fmt::format(
-            "{}: error: baseline is for model \"{}\", not \"{}\" (after renaming "
-            "the model, run `firn baseline update {}`)\n",
-            path, stored->title, fresh.title, model);
+        error = fmt::format("{}: error: baseline is for model \"{}\", not \"{}\"", path,
+                            stored->title, fresh.title);
+        error += fmt::format(" (after renaming the model, run `firn baseline update {}`)\n", model);
         stored.reset();
     }
     return stored;
@@ -149,6 +146,20 @@ Outcome check_model(const std::string& model, const ImportOptions& imports,
     return o;
 }
 
+/// Why the file at `path` (holding `old`) must not be overwritten by a baseline, if it must not.
+std::optional<std::string> refusal(const std::string& path, const std::string& old) {
+    std::optional<int> format = baseline_format_of(old);
+    if (!format)
+        return fmt::format("{}: error: not a firn baseline; not overwritten (move it away first)",
+                           path);
+    if (*format > kBaselineFormat)
+        return fmt::format(
+            "{}: error: written by a newer firn (format {}; this firn reads up to "
+            "{}); not overwritten",
+            path, *format, kBaselineFormat);
+    return std::nullopt;
+}
+
 Outcome update_model(const std::string& model, const ImportOptions& imports) {
     Outcome o;
     std::optional<Analysis> a = analysed(model, imports, o);
@@ -159,17 +170,9 @@ Outcome update_model(const std::string& model, const ImportOptions& imports) {
         if (!read_file(path, old, error))
             return fail("", fmt::format("firn: error: {}\n", error));
         if (old == text)
-            return o;
-        std::optional<int> format = baseline_format_of(old);
-        if (!format)
-            return fail("", fmt::format("{}: error: not a firn baseline; not overwritten (move it "
-                                        "away first)\n",
-                                        path));
-        if (*format > kBaselineFormat) {
-            return fail("", fmt::format("{}: error: written by a newer firn (format {}; this firn "
-                                        "reads up to {}); not overwritten\n",
-                                        path, *format, kBaselineFormat));
-        }
+            return o;  // unchanged: not rewritten, so its time stamp stays
+        if (std::optional<std::string> why = refusal(path, old))
+            return fail("", *why + "\n");
     }
     if (!write_file_atomically(path, text, error))
         return fail("", fmt::format("firn: error: {}\n", error));
