@@ -33,36 +33,14 @@ std::string place_of(const SourceMap& sources, const SourceRange& where) {
                        where.begin.column);
 }
 
-/// "eave.BC reaches 47.100 kip*ft at 12.000 ft under asce7_16.strength.3/2".
-std::string finding_text(const Model& model, const Expectation& x, const Finding& f) {
-    std::string text = f.place.empty() ? std::string("the value is") : f.place + " has";
-    text += " " + show_expected_value(model, x, f.value);
-    if (f.on_member)
-        text += fmt::format(" at {:.{}f} {}", model.units.length.from_si(f.position),
-                            model.units.length.decimals, model.units.length.name);
-    if (!f.governing.empty())
-        text += " under " + f.governing;
-    return text;
-}
-
-/// "2.100 kip*ft beyond the bound (4.7 %)" or "margin 1.200 kip*ft (2.6 %)".
-std::string margin_text(const Model& model, const Expectation& x, const Finding& f) {
-    std::string amount = show_expected_value(model, x, std::abs(f.margin));
-    std::string percent =
-        f.bound != 0.0 ? fmt::format(" ({:.1f} %)", 100.0 * std::abs(f.margin) / std::abs(f.bound))
-                       : std::string();
-    return f.margin < 0.0 ? fmt::format("{} beyond the bound{}", amount, percent)
-                          : fmt::format("margin {}{}", amount, percent);
-}
-
 std::string outcome_line(const Analysis& a, const Expectation& x, const Finding& f,
                          const char* verdict) {
     std::string subject = x.subject;
     if (!x.source.empty())
         subject += " under " + x.source;
     std::string line = fmt::format("{}: {}: {} {}: {}; {}", place_of(a.sources, x.where), verdict,
-                                   subject, show_bound(a.model, x), finding_text(a.model, x, f),
-                                   margin_text(a.model, x, f));
+                                   subject, show_bound(a.model, x), describe_finding(a.model, x, f),
+                                   describe_margin(a.model, x, f));
     if (!x.reason.empty())
         line += fmt::format(" (because \"{}\")", x.reason);
     return line + "\n";

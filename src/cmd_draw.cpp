@@ -52,6 +52,7 @@ std::string text_report_of(const Analysis& a) {
     options.envelopes = &a.envelopes;
     options.deflections = &a.deflections;
     options.mirror = &a.mirror;
+    options.expectations = &a.expectations;
     return text_report(a.model, a.results, options);
 }
 

@@ -41,6 +41,7 @@ int run(const RunArgs& args) {
     options.envelopes = &a.envelopes;
     options.deflections = &a.deflections;
     options.mirror = &a.mirror;
+    options.expectations = &a.expectations;
     if (args.full) {
         stations = compute_stations(a.model, a.loads, a.solution, kStationsPerMember);
         options.stations = &stations;

@@ -263,8 +263,9 @@ class Checker {
     }
 };
 
-/// The unit an expectation's values are reported in.
-const DisplayUnit* unit_of(const Model& model, const Expectation& x) {
+}  // namespace
+
+const DisplayUnit* expectation_unit(const Model& model, const Expectation& x) {
     const DisplayUnits& u = model.units;
     switch (x.quantity) {
         case Q::moment:
@@ -289,11 +290,9 @@ const DisplayUnit* unit_of(const Model& model, const Expectation& x) {
     return nullptr;
 }
 
-}  // namespace
-
 std::string show_expected_value(const Model& model, const Expectation& x, double value) {
     std::string out;
-    const DisplayUnit* unit = unit_of(model, x);
+    const DisplayUnit* unit = expectation_unit(model, x);
     if (unit == nullptr) {
         append_fixed(out, value, 3);
         return out;
@@ -326,6 +325,26 @@ std::vector<ExpectationOutcome> check_expectations(const CheckInputs& in,
     for (std::size_t i = 0; i < in.model.expectations.size(); ++i)
         outcomes.push_back(checker.check(i));
     return outcomes;
+}
+
+std::string describe_finding(const Model& model, const Expectation& x, const Finding& f) {
+    std::string text = fmt::format("{} {}", f.place.empty() ? "the value is" : f.place + " has",
+                                   show_expected_value(model, x, f.value));
+    if (f.on_member)
+        text += fmt::format(" at {:.{}f} {}", model.units.length.from_si(f.position),
+                            model.units.length.decimals, model.units.length.name);
+    if (!f.governing.empty())
+        text += fmt::format(" under {}", f.governing);
+    return text;
+}
+
+std::string describe_margin(const Model& model, const Expectation& x, const Finding& f) {
+    std::string amount = show_expected_value(model, x, std::abs(f.margin));
+    std::string percent =
+        f.bound != 0.0 ? fmt::format(" ({:.1f} %)", 100.0 * std::abs(f.margin) / std::abs(f.bound))
+                       : std::string();
+    return f.margin < 0.0 ? fmt::format("{} beyond the bound{}", amount, percent)
+                          : fmt::format("margin {}{}", amount, percent);
 }
 
 }  // namespace firn

@@ -50,11 +50,22 @@ struct CheckInputs {
 /// value that does not exist is reported to `diagnostics` and its outcome is unchecked.
 std::vector<ExpectationOutcome> check_expectations(const CheckInputs& in, Diagnostics& diagnostics);
 
+/// The unit the model reports an expectation's values in; nothing for a plain number.
+const DisplayUnit* expectation_unit(const Model& model, const Expectation& x);
+
 /// `value` in the unit the model reports the expectation's quantity in: "45.23 kip*ft".
 std::string show_expected_value(const Model& model, const Expectation& x, double value);
 
 /// The bound as the canonical text writes it, in report units: "<= 45.00 kip*ft",
 /// "between -60.00 kip*ft and 45.00 kip*ft", with "within ..." when there is a tolerance.
 std::string show_bound(const Model& model, const Expectation& x);
+
+/// Where a finding is and what gives it: "eave.BC has 47.100 kip*ft at 12.000 ft under
+/// asce7_16.strength.3/2" ("the value is 30.8 psf" for a snow value).
+std::string describe_finding(const Model& model, const Expectation& x, const Finding& f);
+
+/// "2.100 kip*ft beyond the bound (4.7 %)" or "margin 1.200 kip*ft (2.6 %)", the percentage
+/// of the bound.
+std::string describe_margin(const Model& model, const Expectation& x, const Finding& f);
 
 }  // namespace firn

@@ -443,6 +443,8 @@ void write_text_report(const Model& model, const Results& results, const ReportO
         write_envelopes(out, model, *options.combinations, *options.envelopes);
     if (options.deflections != nullptr)
         write_deflections(out, model, *options.deflections);
+    if (options.expectations != nullptr)
+        write_expectations(out, model, *options.expectations);
     sink(out);
 }
 

@@ -8,6 +8,7 @@
 
 #include "combinations.hpp"
 #include "deflection.hpp"
+#include "expect.hpp"
 #include "mirror.hpp"
 #include "model.hpp"
 #include "results.hpp"
@@ -25,6 +26,7 @@ struct ReportOptions {
     const std::vector<Envelopes>* envelopes = nullptr;  ///< per set of combinations
     const std::vector<DeflectionCheck>* deflections = nullptr;
     const Mirror* mirror = nullptr;  ///< which cases and members mirror which
+    const std::vector<ExpectationOutcome>* expectations = nullptr;  ///< per `expect`
 };
 
 /// Receives a report piece by piece (a piece per load case at most), so a

@@ -258,6 +258,35 @@ void write_deflections(std::string& out, const Model& model,
     }
 }
 
+void write_expectations(std::string& out, const Model& model,
+                        const std::vector<ExpectationOutcome>& outcomes) {
+    if (outcomes.empty())
+        return;
+    std::size_t failed = 0;
+    for (const ExpectationOutcome& o : outcomes)
+        failed += o.passed() ? 0U : 1U;
+    out += "== Expectations ==\n\n";
+    out += fmt::format(
+        "Bounds the model states on its results (expect); `firn check` fails when one does not "
+        "hold. {} of {} hold.\n\n",
+        outcomes.size() - failed, outcomes.size());
+    for (const ExpectationOutcome& o : outcomes) {
+        const Expectation& x = model.expectations[o.expectation];
+        std::string subject = x.subject + (x.source.empty() ? "" : " under " + x.source);
+        out += fmt::format("line {}: {} {}\n", x.where.begin.line, subject, show_bound(model, x));
+        if (o.passed()) {
+            out += fmt::format("  holds: {}; {}\n", describe_finding(model, x, o.closest),
+                               describe_margin(model, x, o.closest));
+        }
+        for (const Finding& f : o.failures)
+            out += fmt::format("  FAILS: {}; {}\n", describe_finding(model, x, f),
+                               describe_margin(model, x, f));
+        if (!x.reason.empty())
+            out += fmt::format("  because \"{}\"\n", x.reason);
+    }
+    out += '\n';
+}
+
 void write_mirror(std::string& out, const Model& model, const Mirror& mirror) {
     out += "== Mirror images ==\n\n";
     if (!mirror.symmetric) {

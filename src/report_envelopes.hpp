@@ -5,6 +5,7 @@
 
 #include "combinations.hpp"
 #include "deflection.hpp"
+#include "expect.hpp"
 #include "mirror.hpp"
 #include "model.hpp"
 
@@ -24,6 +25,11 @@ void write_envelopes(std::string& out, const Model& model, const CombinationList
 /// case under each column of its row, its deflection, the limit and the ratio.
 void write_deflections(std::string& out, const Model& model,
                        const std::vector<DeflectionCheck>& checks);
+
+/// `== Expectations ==`: each `expect` statement, whether it holds, its closest place
+/// (or every failing one) and the margin. Nothing when the model states none.
+void write_expectations(std::string& out, const Model& model,
+                        const std::vector<ExpectationOutcome>& outcomes);
 
 /// `== Mirror images ==`: with a frame symmetric about a vertical axis, the load
 /// cases that mirror each other, those symmetric in themselves, and each

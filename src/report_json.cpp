@@ -238,6 +238,40 @@ Json deflections_json(const Model& model, const std::vector<DeflectionCheck>& ch
     return out;
 }
 
+Json finding_json(const Model& model, const Expectation& x, const Finding& f) {
+    const DisplayUnit* unit = expectation_unit(model, x);
+    auto value = [&](double v) { return unit != nullptr ? shown(v, *unit) : round_to(v, 6); };
+    Json out{{"value", value(f.value)}, {"bound", value(f.bound)}, {"margin", value(f.margin)}};
+    if (!f.place.empty())
+        out["place"] = f.place;
+    if (f.on_member)
+        out["at"] = shown(f.position, model.units.length);
+    if (!f.governing.empty())
+        out["under"] = f.governing;
+    return out;
+}
+
+Json expectations_json(const Model& model, const std::vector<ExpectationOutcome>& outcomes) {
+    Json out = Json::array();
+    for (const ExpectationOutcome& o : outcomes) {
+        const Expectation& x = model.expectations[o.expectation];
+        const DisplayUnit* unit = expectation_unit(model, x);
+        Json failures = Json::array();
+        for (const Finding& f : o.failures)
+            failures.push_back(finding_json(model, x, f));
+        out.push_back({{"line", x.where.begin.line},
+                       {"subject", x.subject},
+                       {"under", x.source},
+                       {"bound", show_bound(model, x)},
+                       {"unit", unit != nullptr ? unit->name : ""},
+                       {"holds", o.passed()},
+                       {"closest", finding_json(model, x, o.closest)},
+                       {"failures", failures},
+                       {"because", x.reason}});
+    }
+    return out;
+}
+
 Json mirror_json(const Model& model, const Mirror& mirror) {
     Json out{{"symmetric", mirror.symmetric}};
     if (!mirror.symmetric)
@@ -275,6 +309,8 @@ Json checks_json(const Model& model, const ReportOptions& options) {
     }
     if (options.deflections != nullptr && !model.deflection_limits.empty())
         out["deflection_checks"] = deflections_json(model, *options.deflections);
+    if (options.expectations != nullptr && !options.expectations->empty())
+        out["expectations"] = expectations_json(model, *options.expectations);
     return out;
 }
 
