@@ -21,7 +21,7 @@ const std::array<Tolerances::Floor, 6> kDefaultFloors{{
     {dim::force, 1.0, "1 N"},
     {dim::moment, 1.0, "1 N*m"},
     {dim::length, 1e-6, "0.001 mm"},
-    {dim::number, 1e-6, "0.000001 rad"},  // rotations; ratios have the same dimension
+    {dim::number, 1e-5, "0.00001 rad"},  // rotations; ratios have the same dimension
     {dim::pressure, 1.0, "1 Pa"},
     {dim::force_per_length, 1.0, "1 N/m"},
 }};

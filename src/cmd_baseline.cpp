@@ -290,7 +290,7 @@ void add_tolerance_options(CLI::App* cmd, ToleranceArgs& args) {
     cmd->add_option("--abs", args.absolute,
                     "Absolute floor for one kind of value, with its unit (--abs 0.01 kip*ft; "
                     "--abs 0.001 ratio); repeat for other kinds. Defaults: 1 N, 1 N*m, "
-                    "0.001 mm, 0.000001 rad or ratio")
+                    "0.001 mm, 0.00001 rad or ratio")
         ->expected(2)
         ->multi_option_policy(CLI::MultiOptionPolicy::TakeAll)
         ->type_name("VALUE UNIT");
