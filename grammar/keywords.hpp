@@ -32,8 +32,8 @@ inline constexpr std::array<std::string_view, 56> keywords{
 /// `or`, `half_live_in` and `by` have meaning inside them, as `of`, `shear`, `reaction`,
 /// `under`, `between`, `and` and `within` have inside `expect`.
 inline constexpr std::array<std::string_view, 20> contextual_keywords{
-    "and",    "arrange", "between", "by",      "combinations", "combine", "deflection",
-    "expect", "half_live_in", "limit",   "of",      "or",           "pattern", "plan",
-    "projection", "reaction", "roof",    "shear",   "under",        "within"};
+    "and",        "arrange",      "between", "by",    "combinations", "combine", "deflection",
+    "expect",     "half_live_in", "limit",   "of",    "or",           "pattern", "plan",
+    "projection", "reaction",     "roof",    "shear", "under",        "within"};
 
 }  // namespace firn::grammar

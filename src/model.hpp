@@ -354,7 +354,16 @@ struct SnowValue {
 
 /// A bound on a result (`expect`), checked by `firn check`.
 struct Expectation {
-    enum class Quantity { moment, shear, axial, deflection, reaction, displacement, rotation, snow };
+    enum class Quantity {
+        moment,
+        shear,
+        axial,
+        deflection,
+        reaction,
+        displacement,
+        rotation,
+        snow
+    };
     enum class Relation { at_most, at_least, equal, between };
     Quantity quantity = Quantity::moment;
     std::size_t component = 0;      ///< reaction, displacement: 0 x, 1 y, 2 moment (rotation)
@@ -369,7 +378,7 @@ struct Expectation {
     double tolerance = 0.0;        ///< SI, or a fraction of the bound when relative
     bool tolerance_relative = false;
     bool tolerance_written = false;  ///< false: 0, or for `=` half the last digit written
-    std::string subject;  ///< as the canonical text writes it: "moment of eave.BC"
+    std::string subject;             ///< as the canonical text writes it: "moment of eave.BC"
     std::string reason;
     SourceRange where;  ///< the statement
 };
@@ -401,7 +410,7 @@ struct Model {
     std::vector<Roof> roofs;
     std::vector<Projection> projections;
     std::vector<Amendment> amendments;
-    std::vector<TraceLine> snow_trace;  ///< filled by derive_snow
+    std::vector<TraceLine> snow_trace;   ///< filled by derive_snow
     std::vector<SnowValue> snow_values;  ///< filled by derive_snow
     std::vector<Expectation> expectations;
     std::vector<CombinationSet> combination_sets;
