@@ -10,9 +10,7 @@
 #include "resolve_internal.hpp"
 
 namespace firn::resolve_detail {
-namespace {
 
-/// The members a statement lists, each once, in order; nullopt if one is unknown.
 std::optional<std::vector<MemberId>> listed_members(Resolver& r,
                                                     const std::vector<syntax::Name>& refs) {
     std::vector<MemberId> members;
@@ -29,6 +27,8 @@ std::optional<std::vector<MemberId>> listed_members(Resolver& r,
         return std::nullopt;
     return members;
 }
+
+namespace {
 
 /// The load symbols of a combination and the case kinds they stand for.
 constexpr std::array<std::string_view, 6> kSymbols{"D", "L", "Lr", "S", "R", "W"};

@@ -98,18 +98,9 @@ bool read_places(Resolver& r, const syntax::ExpectDecl& d, Expectation& x) {
         return true;
     }
     if (x.quantity <= Q::deflection) {
-        std::vector<MemberId> members;
-        bool found = true;
-        for (const syntax::Name& ref : d.places) {
-            auto ids = r.find_members(ref);
-            found = found && ids.has_value();
-            for (MemberId id : ids.value_or(std::vector<MemberId>{})) {
-                if (std::find(members.begin(), members.end(), id) == members.end())
-                    members.push_back(id);
-            }
-        }
-        x.members = std::move(members);
-        return found;
+        auto members = listed_members(r, d.places);
+        x.members = members.value_or(std::vector<MemberId>{});
+        return members.has_value();
     }
     bool found = true;
     for (const syntax::Name& name : d.places) {

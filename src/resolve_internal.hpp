@@ -184,6 +184,10 @@ void resolve_combinations(Resolver& r, const std::vector<const syntax::Combinati
 void resolve_deflection_limits(Resolver& r,
                                const std::vector<const syntax::DeflectionDecl*>& decls);
 
+/// The members a statement lists, each once, in order; nullopt if one is unknown (reported).
+std::optional<std::vector<MemberId>> listed_members(Resolver& r,
+                                                    const std::vector<syntax::Name>& refs);
+
 /// `expect` statements (`where`: each one's statement).
 void resolve_expectations(Resolver& r, const std::vector<const syntax::ExpectDecl*>& decls,
                           const std::vector<SourceRange>& where);
