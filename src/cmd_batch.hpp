@@ -9,7 +9,7 @@
 #include <vector>
 
 #include "batch.hpp"
-#include "imports.hpp"
+#include "cmd_common.hpp"
 
 namespace firn {
 
@@ -50,10 +50,7 @@ inline std::optional<std::vector<std::string>> selected_models(const BatchArgs& 
 }
 
 inline ImportOptions import_options(const BatchArgs& args) {
-    ImportOptions imports;
-    if (!args.stdlib.empty())
-        imports.stdlib_dir = args.stdlib;
-    return imports;
+    return imports_from(args.stdlib);
 }
 
 }  // namespace firn

@@ -4,6 +4,7 @@
 #include <cstdio>
 #include <memory>
 
+#include "cmd_common.hpp"
 #include "commands.hpp"
 #include "draw.hpp"
 #include "draw_output.hpp"
@@ -47,20 +48,11 @@ DrawOptions draw_options(const DrawArgs& args) {
 }
 
 std::string text_report_of(const Analysis& a) {
-    ReportOptions options;
-    options.combinations = &a.combinations;
-    options.envelopes = &a.envelopes;
-    options.deflections = &a.deflections;
-    options.mirror = &a.mirror;
-    options.expectations = &a.expectations;
-    return text_report(a.model, a.results, options);
+    return text_report(a.model, a.results, report_options(a));
 }
 
 int run(const DrawArgs& args) {
-    ImportOptions imports;
-    if (!args.stdlib.empty())
-        imports.stdlib_dir = args.stdlib;
-    Analysis a = analyse_file(args.model, nullptr, imports);
+    Analysis a = analyse_file(args.model, nullptr, imports_from(args.stdlib));
     std::string messages = render(a.diagnostics, a.sources);
     if (!a.ok) {
         std::fputs(messages.c_str(), stderr);

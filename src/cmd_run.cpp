@@ -3,6 +3,7 @@
 #include <cstdio>
 #include <memory>
 
+#include "cmd_common.hpp"
 #include "commands.hpp"
 #include "driver.hpp"
 #include "file_io.hpp"
@@ -24,10 +25,7 @@ struct RunArgs {
 constexpr std::size_t kStationsPerMember = 11;
 
 int run(const RunArgs& args) {
-    ImportOptions imports;
-    if (!args.stdlib.empty())
-        imports.stdlib_dir = args.stdlib;
-    Analysis a = analyse_file(args.model, nullptr, imports);
+    Analysis a = analyse_file(args.model, nullptr, imports_from(args.stdlib));
     std::string messages = render(a.diagnostics, a.sources);
     if (!a.ok) {
         std::fputs(messages.c_str(), stderr);
@@ -35,13 +33,8 @@ int run(const RunArgs& args) {
     }
 
     Stations stations;
-    ReportOptions options;
+    ReportOptions options = report_options(a);
     options.full = args.full;
-    options.combinations = &a.combinations;
-    options.envelopes = &a.envelopes;
-    options.deflections = &a.deflections;
-    options.mirror = &a.mirror;
-    options.expectations = &a.expectations;
     if (args.full) {
         stations = compute_stations(a.model, a.loads, a.solution, kStationsPerMember);
         options.stations = &stations;

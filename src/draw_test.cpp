@@ -7,6 +7,7 @@
 #include <regex>
 #include <string>
 
+#include "cmd_common.hpp"
 #include "draw_internal.hpp"
 #include "driver.hpp"
 #include "file_io.hpp"
@@ -53,12 +54,7 @@ const Sheet& sheet_named(const std::vector<Sheet>& sheets, const std::string& pa
 }
 
 std::string report_text(const Analysis& a) {
-    ReportOptions options;
-    options.combinations = &a.combinations;
-    options.envelopes = &a.envelopes;
-    options.deflections = &a.deflections;
-    options.mirror = &a.mirror;
-    return text_report(a.model, a.results, options);
+    return text_report(a.model, a.results, report_options(a));
 }
 
 /// The text of the label for `quantity` of `member`, or "" if there is none.

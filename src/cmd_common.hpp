@@ -1,0 +1,31 @@
+// cmd_common: what the commands share once a model is analysed: where `use`
+// finds the library, and the report sections an analysis fills.
+#pragma once
+
+#include <string>
+
+#include "driver.hpp"
+#include "report.hpp"
+
+namespace firn {
+
+/// Import options for `--stdlib DIR`; empty: the built-in library.
+inline ImportOptions imports_from(const std::string& stdlib) {
+    ImportOptions imports;
+    if (!stdlib.empty())
+        imports.stdlib_dir = stdlib;
+    return imports;
+}
+
+/// Report options with every section the analysis holds (no stations).
+inline ReportOptions report_options(const Analysis& a) {
+    ReportOptions options;
+    options.combinations = &a.combinations;
+    options.envelopes = &a.envelopes;
+    options.deflections = &a.deflections;
+    options.mirror = &a.mirror;
+    options.expectations = &a.expectations;
+    return options;
+}
+
+}  // namespace firn
