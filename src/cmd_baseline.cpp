@@ -229,9 +229,7 @@ int update(const BaselineArgs& args) {
 }
 
 int show(const DiffArgs& args) {
-    ImportOptions imports;
-    if (!args.stdlib.empty())
-        imports.stdlib_dir = args.stdlib;
+    ImportOptions imports = imports_from(args.stdlib);
     Outcome o;
     if (std::optional<Analysis> a = analysed(args.new_file, imports, o))
         o.out = baseline_text(make_baseline(*a));
@@ -261,9 +259,7 @@ int diff(const DiffArgs& args) {
     std::optional<Tolerances> tolerances = tolerances_from(args.tolerance);
     if (!tolerances)
         return exit_model_error;
-    ImportOptions imports;
-    if (!args.stdlib.empty())
-        imports.stdlib_dir = args.stdlib;
+    ImportOptions imports = imports_from(args.stdlib);
     std::string as = args.as.empty() ? args.new_file : args.as;
     std::string label = fmt::format("results of {}", as);
     Outcome o;
