@@ -292,13 +292,6 @@ void add_tolerance_options(CLI::App* cmd, ToleranceArgs& args) {
         ->type_name("VALUE UNIT");
 }
 
-void add_stdlib_option(CLI::App* cmd, std::string& stdlib) {
-    cmd->add_option("--stdlib", stdlib,
-                    "Read library modules (use NAME) from this folder instead of the built-in "
-                    "library; for library development")
-        ->envname("FIRN_STDLIB");
-}
-
 void add_check(CLI::App* parent, int& status) {
     auto args = std::make_shared<BaselineArgs>();
     CLI::App* cmd = parent->add_subcommand(

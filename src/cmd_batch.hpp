@@ -27,10 +27,7 @@ inline void add_batch_options(CLI::App* cmd, BatchArgs& args) {
     cmd->add_option("-j,--jobs", args.jobs,
                     "Models analysed at once (default: one per core); the output does not "
                     "depend on it");
-    cmd->add_option("--stdlib", args.stdlib,
-                    "Read library modules (use NAME) from this folder instead of the built-in "
-                    "library; for library development")
-        ->envname("FIRN_STDLIB");
+    add_stdlib_option(cmd, args.stdlib);
 }
 
 /// The models of the chosen shard, or nothing after printing why the shard is wrong.

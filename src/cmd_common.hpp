@@ -2,6 +2,7 @@
 // finds the library, and the report sections an analysis fills.
 #pragma once
 
+#include <CLI/CLI.hpp>
 #include <string>
 
 #include "driver.hpp"
@@ -15,6 +16,14 @@ inline ImportOptions imports_from(const std::string& stdlib) {
     if (!stdlib.empty())
         imports.stdlib_dir = stdlib;
     return imports;
+}
+
+/// `--stdlib DIR` (or FIRN_STDLIB): where `use NAME` finds the library.
+inline void add_stdlib_option(CLI::App* cmd, std::string& stdlib) {
+    cmd->add_option("--stdlib", stdlib,
+                    "Read library modules (use NAME) from this folder instead of the built-in "
+                    "library; for library development")
+        ->envname("FIRN_STDLIB");
 }
 
 /// Report options with every section the analysis holds (no stations).

@@ -109,10 +109,7 @@ void add_draw_command(CLI::App& app, int& status) {
     cmd->add_flag("--force", args->force,
                   "Write into a folder that holds files firn did not write (only the files "
                   "firn names are replaced)");
-    cmd->add_option("--stdlib", args->stdlib,
-                    "Read library modules (use NAME) from this folder instead of the built-in "
-                    "library; for library development")
-        ->envname("FIRN_STDLIB");
+    add_stdlib_option(cmd, args->stdlib);
     cmd->callback([args, &status] { status = run(*args); });
 }
 

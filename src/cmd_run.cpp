@@ -83,10 +83,7 @@ void add_run_command(CLI::App& app, int& status) {
                   "(values at tenths of each member)");
     cmd->add_option("-o,--output", args->output,
                     "Write the report to this file (atomically) instead of standard output");
-    cmd->add_option("--stdlib", args->stdlib,
-                    "Read library modules (use NAME) from this folder instead of the built-in "
-                    "library; for library development")
-        ->envname("FIRN_STDLIB");
+    add_stdlib_option(cmd, args->stdlib);
     cmd->callback([args, &status] { status = run(*args); });
 }
 
