@@ -11,18 +11,13 @@
 
 using namespace firn;
 
+using firn::testing::analysed;
+
 namespace {
 
 constexpr double kPsf = 4.4482216152605 / (0.3048 * 0.3048);  // exact: lbf / ft^2 in Pa
 constexpr double kFt = 0.3048;
 constexpr double kKipFt = 4448.2216152605 * 0.3048;
-
-Analysis analysed(const std::string& text) {
-    Analysis a = analyse_text("input", text);
-    INFO(render(a.diagnostics, a.sources));
-    REQUIRE(a.ok);
-    return a;
-}
 
 /// A beam on pin and rollers over `spans` equal spans of 20 ft under snow: pg = 40
 /// psf, heated, Ce = 1.0, Is = 1.0, so ps = pf = 0.7 x 40 = 28 psf (ASCE 7-16

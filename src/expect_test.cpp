@@ -10,6 +10,8 @@
 
 using namespace firn;
 
+using firn::testing::analysed;
+
 namespace {
 
 constexpr double kKip = 4448.2216152605;  // N, exact
@@ -35,13 +37,6 @@ std::string beam(const std::string& expectations) {
            "case D dead {\n  uniform 1 kip/ft down on B1\n}\n"
            "case L live {\n  uniform 0.5 kip/ft down on B1\n}\n" +
            expectations;
-}
-
-Analysis analysed(const std::string& text) {
-    Analysis a = analyse_text("input", text);
-    INFO(render(a.diagnostics, a.sources));
-    REQUIRE(a.ok);
-    return a;
 }
 
 /// The one expectation's outcome.

@@ -12,8 +12,11 @@
 
 #include "driver.hpp"
 #include "test_model_builder.hpp"
+#include "test_text.hpp"
 
 namespace firn {
+using firn::testing::analysed;
+
 namespace {
 
 using testing::exactly;
@@ -51,13 +54,6 @@ std::string three_bay(const std::string& cases) {
            "beams along eave from A to D section beam\n"
            "support fixed at base\n" +
            cases;
-}
-
-Analysis analysed(const std::string& text) {
-    Analysis a = analyse_text("input", text);
-    INFO(render(a.diagnostics, a.sources));
-    REQUIRE(a.ok);
-    return a;
 }
 
 template <typename Id, typename Entities>

@@ -1,6 +1,7 @@
 // test_text: runs model text through the pipeline for the language tests.
 #pragma once
 
+#include <catch2/catch.hpp>
 #include <string>
 
 #include "diag.hpp"
@@ -11,7 +12,7 @@ namespace firn::testing {
 
 /// Every diagnostic the whole pipeline reports for `text` (named "input"), rendered.
 inline std::string messages_for(const std::string& text) {
-    Analysis a = analyse_text("input", text);
+    firn::Analysis a = analyse_text("input", text);
     return render(a.diagnostics, a.sources);
 }
 
@@ -19,6 +20,14 @@ inline std::string messages_for(const std::string& text) {
 inline std::string first_message(const std::string& text) {
     std::string all = messages_for(text);
     return all.substr(0, all.find('\n'));
+}
+
+/// The analysis of `text`, which must have no errors (they are shown if it has).
+inline firn::Analysis analysed(const std::string& text) {
+    firn::Analysis a = analyse_text("input", text);
+    INFO(render(a.diagnostics, a.sources));
+    REQUIRE(a.ok);
+    return a;
 }
 
 /// A small, valid frame that tests extend with one more line.
