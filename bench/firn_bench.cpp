@@ -14,11 +14,11 @@
 #include <utility>
 #include <vector>
 
-#include "combine.hpp"
-#include "driver.hpp"
-#include "file_io.hpp"
+#include "analyse/analyse.hpp"
+#include "base/file_io.hpp"
+#include "driver/driver.hpp"
 #include "frame_generator.hpp"
-#include "report.hpp"
+#include "report/report.hpp"
 
 namespace {
 

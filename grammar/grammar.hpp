@@ -13,8 +13,8 @@
 #include <tao/pegtl/contrib/analyze_traits.hpp>
 #include <type_traits>
 
+#include "base/units.hpp"
 #include "grammar/keywords.hpp"
-#include "units.hpp"
 
 namespace firn::grammar {
 

@@ -15,9 +15,9 @@
 #include <optional>
 #include <string>
 
-#include "driver.hpp"
-#include "format.hpp"
-#include "report.hpp"
+#include "driver/driver.hpp"
+#include "format/format.hpp"
+#include "report/report.hpp"
 
 namespace {
 

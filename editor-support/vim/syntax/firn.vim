@@ -1,7 +1,7 @@
 " Vim syntax file
 " Language: firn (plane building frames and their loads)
 " The keyword list is grammar/keywords.hpp and the unit list is unit_names() in
-" src/units.cpp; src/editor_support_test.cpp checks both against this file.
+" src/base/units.cpp; src/testing/editor_support_test.cpp checks both against this file.
 
 if exists("b:current_syntax")
   finish

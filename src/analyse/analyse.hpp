@@ -1,0 +1,75 @@
+// analyse: linear static analysis of the plane frame by the direct stiffness
+// method, and what follows from the solved cases without solving again: exact
+// member functions and summaries, combinations by superposition and their
+// envelopes, deflection checks, stations, and the frame's mirror map. The
+// stiffness is assembled sparse and factored once; every load case is a
+// right-hand side of that one factorization. Eigen is used only in this stage.
+#pragma once
+
+#include <cstddef>
+#include <span>
+#include <vector>
+
+#include "ir/checks.hpp"
+#include "ir/combinations.hpp"
+#include "ir/load_set.hpp"
+#include "ir/mirror.hpp"
+#include "ir/model.hpp"
+#include "ir/results.hpp"
+#include "ir/solution.hpp"
+#include "ir/stations.hpp"
+
+namespace firn {
+
+/// Wall-clock seconds of the phases of `solve`, for the bench target.
+struct SolveTimings {
+    double assemble = 0.0;
+    double factor = 0.0;
+    double solve = 0.0;
+};
+
+/// Solves every case. An unstable structure (a mechanism, a free node, a
+/// missing restraint) is reported as an error that names a node and the
+/// direction it is free to move in, and the returned Solution has ok == false.
+Solution solve(const Model& model, const LoadSet& loads, Diagnostics& diagnostics,
+               SolveTimings* timings = nullptr);
+
+/// Results for every case (cases are processed in parallel; output is the same).
+Results compute_results(const Model& model, const LoadSet& loads, const Solution& solution);
+
+/// The exact functions of one member in one case, for reports and drawings.
+MemberFunctions member_functions(const Model& model, const CaseLoads& loads,
+                                 const Solution& solution, CaseId c, MemberId m);
+
+/// The results of every combination and their envelopes. Ties go to the first
+/// combination. `parts`: how many pieces the work is cut into (0: one per
+/// hardware thread); the output is the same for any. Empty if !solution.ok.
+Envelopes compute_envelopes(const Model& model, const LoadSet& loads, const Solution& solution,
+                            const Results& results, std::span<const Combination> combinations,
+                            std::size_t parts = 0);
+
+/// The results of one combination.
+CaseResults combination_results(const Model& model, const LoadSet& loads, const Solution& solution,
+                                const Results& results, const Combination& combination);
+
+/// The exact functions of one member under one combination, for drawings.
+MemberFunctions combination_functions(const Model& model, const LoadSet& loads,
+                                      const Solution& solution, const Combination& combination,
+                                      MemberId m);
+
+/// Every check the model's `deflection` statements ask for, in statement,
+/// member and column order. A column with no case of its loads is left out.
+std::vector<DeflectionCheck> check_deflections(const Model& model, const LoadSet& loads,
+                                               const Solution& solution, const Results& results);
+
+/// Finds the mirror map of `model` and mirrors each case of `loads` (derived
+/// from `model`). Time grows with members x cases: cases are first paired by
+/// a mirror-invariant fingerprint, then confirmed load by load.
+Mirror find_mirror(const Model& model, const LoadSet& loads);
+
+/// Evaluates the exact member functions at `per_member` evenly spaced points.
+/// Where a value jumps (a point load), the value just before the point is used.
+Stations compute_stations(const Model& model, const LoadSet& loads, const Solution& solution,
+                          std::size_t per_member);
+
+}  // namespace firn

@@ -1,0 +1,72 @@
+// results_internal: the exact member-function machinery of results.cpp, shared
+// with combine.cpp (a combination's functions are built the same way from its
+// combined loads). Not part of any stage's interface.
+#pragma once
+
+#include <array>
+#include <cstddef>
+#include <span>
+#include <vector>
+
+#include "analyse/analyse.hpp"
+#include "analyse/element.hpp"
+#include "ir/load_set.hpp"
+#include "ir/model.hpp"
+#include "ir/results.hpp"
+
+namespace firn {
+
+/// Case-independent data of one member for the result loops.
+struct MemberInfo {
+    ElementProperties properties;
+    MemberGeometry geometry;
+    std::size_t start = 0, end = 0;  ///< node indices
+};
+MemberInfo member_info(const Model& model, MemberId id);
+std::vector<MemberInfo> member_infos(const Model& model);
+
+/// N, V, M and deflection at the end of a piece (before any jump there).
+struct PieceEnd {
+    double n, v, m, w;
+};
+
+/// Buffers one worker reuses for every member, so the member loop does not
+/// allocate. `ends` holds each piece's end values: the summaries need them
+/// and they fall out of building the next piece, so they are kept, not
+/// evaluated again.
+struct Scratch {
+    std::vector<double> breaks;
+    std::vector<FunctionPiece> pieces;
+    std::vector<PieceEnd> ends;
+};
+
+/// Global end displacements of a member in one case, turned to local axes.
+ElementVector local_displacements(const Solution& s, CaseId c, const MemberInfo& m);
+
+/// The exact functions of one member, into scratch.pieces. `forces` are the
+/// local end forces the nodes apply to the member.
+void build_functions(const MemberInfo& m, std::span<const LocalDistributed> spread,
+                     std::span<const LocalPoint> points, const ElementVector& forces, Scratch& s);
+
+/// Candidates closer than this share of the member's largest value count as
+/// equal: the first position along the member then wins, on any machine, and
+/// rounding noise never shows up as a tiny extreme somewhere along the member.
+constexpr double kTie = 1e-9;
+
+/// The member summary of the functions in `functions`.
+MemberSummary summarize(const Scratch& functions);
+
+/// The functions of a member, as indices (ORDER FUNCTION).
+enum Function : std::size_t { f_axial = 0, f_shear = 1, f_moment = 2, f_deflection = 3 };
+
+/// The largest and the smallest value of each function (indexed by Function)
+/// with its position, each 0 at position 0 when the function never goes above
+/// (below) zero; the first position wins a tie.
+struct FunctionExtremes {
+    std::array<Extreme, 4> max, min;
+};
+
+/// The member summary and the signed extremes, from one pass over the functions.
+MemberSummary summarize(const Scratch& functions, FunctionExtremes& extremes);
+
+}  // namespace firn

@@ -1,0 +1,90 @@
+// cmd_run: `firn run MODEL [--format text|json] [--full] [--output FILE]`.
+#include <CLI/CLI.hpp>
+#include <cstdio>
+#include <memory>
+
+#include "analyse/analyse.hpp"
+#include "base/file_io.hpp"
+#include "cli/cmd_common.hpp"
+#include "cli/commands.hpp"
+#include "driver/driver.hpp"
+#include "report/report.hpp"
+
+namespace firn {
+namespace {
+
+struct RunArgs {
+    std::string model;
+    std::string format = "text";
+    std::string output;
+    std::string stdlib;
+    bool full = false;
+};
+
+/// Points per member in the full report: the ends and every tenth between.
+constexpr std::size_t kStationsPerMember = 11;
+
+int run(const RunArgs& args) {
+    Analysis a = analyse_file(args.model, nullptr, imports_from(args.stdlib));
+    std::string messages = render(a.diagnostics, a.sources);
+    if (!a.ok) {
+        std::fputs(messages.c_str(), stderr);
+        return exit_model_error;
+    }
+
+    Stations stations;
+    ReportOptions options = report_options(a);
+    options.full = args.full;
+    if (args.full) {
+        stations = compute_stations(a.model, a.loads, a.solution, kStationsPerMember);
+        options.stations = &stations;
+    }
+    auto write_report = [&](const ReportSink& sink) {
+        if (args.format == "json") {
+            write_json_report(a.model, a.results, options, sink);
+        } else {
+            write_text_report(a.model, a.results, options, sink);
+        }
+    };
+    int status = exit_ok;
+    if (args.output.empty()) {
+        write_report(
+            [](std::string_view piece) { std::fwrite(piece.data(), 1, piece.size(), stdout); });
+        if (std::fflush(stdout) != 0)
+            status = exit_internal;
+    } else {
+        AtomicFile file;
+        std::string error;
+        bool written = file.open(args.output, error);
+        if (written) {
+            write_report([&file](std::string_view piece) { file.write(piece); });
+            written = file.commit(error);
+        }
+        if (!written) {
+            std::fprintf(stderr, "firn: error: %s\n", error.c_str());
+            status = exit_model_error;
+        }
+    }
+    std::fputs(messages.c_str(), stderr);  // warnings, after the report they qualify
+    return status;
+}
+
+}  // namespace
+
+void add_run_command(CLI::App& app, int& status) {
+    auto args = std::make_shared<RunArgs>();
+    CLI::App* cmd = app.add_subcommand("run", "Analyse a model and print its report");
+    cmd->add_option("model", args->model, "The model file (.firn)")->required();
+    cmd->add_option("--format", args->format, "Report format")
+        ->check(CLI::IsMember({"text", "json"}))
+        ->capture_default_str();
+    cmd->add_flag("--full", args->full,
+                  "Also print every node's displacements, member end forces and member stations "
+                  "(values at tenths of each member)");
+    cmd->add_option("-o,--output", args->output,
+                    "Write the report to this file (atomically) instead of standard output");
+    add_stdlib_option(cmd, args->stdlib);
+    cmd->callback([args, &status] { status = run(*args); });
+}
+
+}  // namespace firn

@@ -1,0 +1,57 @@
+// firn: compile a frame model, analyse it, print deterministic results.
+// A thin driver: each subcommand lives in its own cmd_*.cpp.
+#include <CLI/CLI.hpp>
+#include <cstdio>
+#include <exception>
+#include <string>
+#include <vector>
+
+#include "base/diag.hpp"
+#include "cli/commands.hpp"
+
+namespace {
+
+/// CLI11 answers a mistyped command with "a subcommand is required"; say what
+/// was wrong instead.
+bool is_unknown_command(CLI::App& app, int argc, char** argv) {
+    if (argc < 2 || argv[1][0] == '-')
+        return false;
+    std::vector<std::string> names;
+    for (const CLI::App* sub : app.get_subcommands({}))
+        names.push_back(sub->get_name());
+    std::string word = argv[1];
+    for (const std::string& name : names) {
+        if (name == word)
+            return false;
+    }
+    std::fprintf(stderr,
+                 "firn: error: unknown command '%s'%s\nRun with --help for more information.\n",
+                 word.c_str(), firn::did_you_mean(word, names).c_str());
+    return true;
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+    int status = firn::exit_ok;
+    CLI::App app{"firn: snow-loaded plane frames from text models, solved and reported", "firn"};
+    app.set_version_flag("--version", "firn 0.1.0");
+    app.require_subcommand(1);
+    firn::add_run_command(app, status);
+    firn::add_fmt_command(app, status);
+    firn::add_check_command(app, status);
+    firn::add_baseline_command(app, status);
+    firn::add_draw_command(app, status);
+    if (is_unknown_command(app, argc, argv))
+        return firn::exit_model_error;
+    try {
+        app.parse(argc, argv);
+    } catch (const CLI::ParseError& e) {
+        int code = app.exit(e);
+        return code == 0 ? firn::exit_ok : firn::exit_model_error;
+    } catch (const std::exception& e) {
+        std::fprintf(stderr, "firn: internal error (please report this): %s\n", e.what());
+        return firn::exit_internal;
+    }
+    return status;
+}

@@ -1,0 +1,574 @@
+// snow: ASCE 7-16 Chapter 7, the formulas. The standard's numbers come from
+// its library module (model.snow->tables); every value derived here is
+// written to the trace with its formula, the values put in and its clause.
+// Drifts and sliding snow are in snow_drift.cpp.
+#include "derive/snow.hpp"
+
+#include "derive/arrange.hpp"
+#include "derive/derive.hpp"
+#include "derive/snow_internal.hpp"
+
+namespace firn {
+namespace snow_detail {
+
+std::size_t curve_of(double Ct) {
+    return Ct <= 1.0 + 1e-9 ? 0 : (Ct < 1.2 - 1e-9 ? 1 : 2);
+}
+
+Geometry geometry_of(const Model& m, MemberId id) {
+    const Member& member = m.members[at(id)];
+    const Node& a = m.nodes[at(member.start)];
+    const Node& b = m.nodes[at(member.end)];
+    double run = std::abs(b.x - a.x);
+    return Geometry{std::atan2(std::abs(b.y - a.y), run), run};
+}
+
+RoofShape shape_of(const Model& m, const Roof& roof) {
+    RoofShape shape;
+    double top = -INFINITY, top_x = 0.0;
+    for (MemberId id : roof.members) {
+        for (NodeId n : {m.members[at(id)].start, m.members[at(id)].end}) {
+            const Node& node = m.nodes[at(n)];
+            shape.left = std::min(shape.left, node.x);
+            shape.right = std::max(shape.right, node.x);
+            if (node.y > top + 1e-9) {
+                top = node.y;
+                top_x = node.x;
+            }
+        }
+    }
+    if (top_x > shape.left + 1e-6 && top_x < shape.right - 1e-6)
+        shape.ridge = top_x;
+    return shape;
+}
+
+double eave_to_ridge(const RoofShape& shape) {
+    if (!shape.ridge)
+        return shape.right - shape.left;
+    return std::max(*shape.ridge - shape.left, shape.right - *shape.ridge);
+}
+
+namespace {
+
+/// Cs on a curve that is 1 up to its knee and falls linearly to 0 at `zero`.
+double on_curve(double knee, double zero, double slope) {
+    if (slope <= knee)
+        return 1.0;
+    if (slope >= zero)
+        return 0.0;
+    return 1.0 - (slope - knee) / (zero - knee);
+}
+
+/// Clauses whose values were entered from memory (see stdlib/asce7_16.firn);
+/// the trace marks them so a reviewer verifies them against the printed standard.
+bool from_memory(std::string_view clause) {
+    for (std::string_view c :
+         {"Table 7.3-1", "Table 1.5-2", "Sec. 7.3.4", "Sec. 7.10", "Fig. 7.4-1a", "Fig. 7.4-1b",
+          "Fig. 7.4-1c", "Sec. 7.4.1", "Sec. 7.6.1", "Fig. 7.6-2", "Fig. 7.6-1", "Sec. 7.7.1",
+          "Sec. 7.8", "Sec. 7.7.2", "Sec. 7.4.5", "Sec. 7.9", "Sec. 7.5.1"}) {
+        if (clause.ends_with(c))
+            return true;
+    }
+    return false;
+}
+
+}  // namespace
+
+void SnowDeriver::trace_site() {
+    heading(fmt::format("Snow data {}: {}, Chapter 7", site_.name, "ASCE 7-16"));
+    for (const Amendment& a : m_.amendments) {
+        std::string value = a.dimension == dim::pressure ? pressure(a.value)
+                            : a.dimension == dim::length ? length(a.value)
+                                                         : fmt::format("{:g}", a.value);
+        line(fmt::format("amended: {} = {} because \"{}\"", a.name, value, a.reason));
+    }
+    line(fmt::format("pg = {}, the ground snow load (given)", pressure(site_.pg)),
+         "ASCE 7-16 Sec. 7.2");
+    trace_factor("Ce", site_.Ce,
+                 fmt::format("terrain {}, {} exposed", site_.terrain, site_.exposure));
+    trace_factor("Ct", site_.Ct, fmt::format("thermal condition {}", site_.thermal));
+    trace_factor("Is", site_.Is, fmt::format("risk category {}", site_.risk));
+    pf_ = t_.pf_factor * site_.Ce.value * site_.Ct.value * site_.Is.value * site_.pg;
+    line(fmt::format("pf = {:g} Ce Ct Is pg = {:g} x {} x {} x {} x {} = {}", t_.pf_factor,
+                     t_.pf_factor, factor(site_.Ce.value), factor(site_.Ct.value),
+                     factor(site_.Is.value), pressure(site_.pg), pressure(pf_)),
+         "ASCE 7-16 Eq. 7.3-1");
+    record("pg", site_.pg, dim::pressure);
+    record("Ce", site_.Ce.value, dim::number);
+    record("Ct", site_.Ct.value, dim::number);
+    record("Is", site_.Is.value, dim::number);
+    record("pf", pf_, dim::pressure);
+}
+
+void SnowDeriver::trace_factor(const char* symbol, const SnowFactor& f, const std::string& basis) {
+    if (f.reason.empty()) {
+        line(fmt::format("{} = {}, {}", symbol, factor(f.value), basis),
+             fmt::format("ASCE 7-16 {}", f.table));
+    } else {
+        line(fmt::format("{} = {}, given instead of {}: \"{}\"", symbol, factor(f.value), f.table,
+                         f.reason),
+             "override");
+    }
+}
+
+/// Cs from the curve of Fig. 7.4-1 that the thermal factor and surface select.
+double SnowDeriver::slope_factor(const Roof& roof, double slope, const std::string& members) {
+    std::size_t curve = curve_of(site_.Ct.value);
+    static const char* const figures[] = {"Fig. 7.4-1a", "Fig. 7.4-1b", "Fig. 7.4-1c"};
+    static const char* const roofs[] = {"warm roof", "cold ventilated roof", "cold roof"};
+    bool slippery = roof.slippery;
+    if (slippery && curve == 0) {
+        double needed =
+            roof.ventilated ? t_.warm_slippery_R_ventilated : t_.warm_slippery_R_unventilated;
+        if (roof.insulation_R < needed) {
+            line(fmt::format("a warm slippery roof takes the slippery curve only with insulation "
+                             "R >= {:g} ({}); roof {} has R {:g}: the curve for other surfaces",
+                             needed, roof.ventilated ? "ventilated" : "unventilated", roof.name,
+                             roof.insulation_R),
+                 "ASCE 7-16 Sec. 7.4.1");
+            slippery = false;
+        }
+    }
+    double knee = t_.Cs_knee[curve][slippery ? 0 : 1];
+    double zero = t_.Cs_zero_slope;
+    std::string which =
+        fmt::format("{}, {} surface", roofs[curve], slippery ? "unobstructed slippery" : "other");
+    std::string clause = fmt::format("ASCE 7-16 {}", figures[curve]);
+    if (slope <= knee) {
+        line(fmt::format("Cs = 1.00 for {}: slope {} is not above the knee {} ({})", members,
+                         degrees(slope), degrees(knee), which),
+             clause);
+        return 1.0;
+    }
+    if (slope >= zero) {
+        line(fmt::format("Cs = 0.00 for {}: slope {} is not below {} ({})", members, degrees(slope),
+                         degrees(zero), which),
+             clause);
+        return 0.0;
+    }
+    double cs = 1.0 - (slope - knee) / (zero - knee);
+    line(fmt::format("Cs = 1 - (slope - knee)/({} - knee) = 1 - ({} - {})/({} - {}) = {:.3f} for "
+                     "{} ({})",
+                     degrees(zero), degrees(slope), degrees(knee), degrees(zero), degrees(knee), cs,
+                     members, which),
+         clause);
+    return cs;
+}
+
+/// The rain-on-snow surcharge for the balanced case (0 where it does not apply).
+double SnowDeriver::rain_on_snow(double slope, double W) {
+    const char* clause = "ASCE 7-16 Sec. 7.10";
+    double limit_deg = W / t_.rain_W_per_degree;
+    if (!(site_.pg > 0.0)) {
+        line("rain-on-snow surcharge not required: pg is zero", clause);
+        return 0.0;
+    }
+    if (site_.pg > t_.rain_pg_limit) {
+        line(fmt::format("rain-on-snow surcharge not required: pg = {} is above {}",
+                         pressure(site_.pg), pressure(t_.rain_pg_limit)),
+             clause);
+        return 0.0;
+    }
+    std::string limit = fmt::format("W/{} = {} / {} = {:.2f} deg", length(t_.rain_W_per_degree),
+                                    length(W), length(t_.rain_W_per_degree), limit_deg);
+    if (!(slope / kDegree < limit_deg)) {
+        line(fmt::format("rain-on-snow surcharge not required: slope {} is not below {}",
+                         degrees(slope), limit),
+             clause);
+        return 0.0;
+    }
+    line(fmt::format("rain-on-snow surcharge {} on the balanced load: 0 < pg = {} <= {} and "
+                     "slope {} < {}",
+                     pressure(t_.rain_surcharge), pressure(site_.pg), pressure(t_.rain_pg_limit),
+                     degrees(slope), limit),
+         clause);
+    return t_.rain_surcharge;
+}
+
+/// pm for a low-slope roof (0 where it does not apply): its own case, never a floor on pf.
+double SnowDeriver::minimum_load(double slope) {
+    const char* clause = "ASCE 7-16 Sec. 7.3.4";
+    if (!(slope < t_.pm_max_slope)) {
+        line(fmt::format("minimum load pm not required: slope {} is not below {}", degrees(slope),
+                         degrees(t_.pm_max_slope)),
+             clause);
+        return 0.0;
+    }
+    double is = site_.Is.value;
+    if (site_.pg <= t_.pm_pg_limit) {
+        double pm = is * site_.pg;
+        line(fmt::format("pm = Is pg = {} x {} = {} (pg <= {}), a case of its own", factor(is),
+                         pressure(site_.pg), pressure(pm), pressure(t_.pm_pg_limit)),
+             clause);
+        return pm;
+    }
+    double pm = is * t_.pm_pg_limit;
+    line(fmt::format("pm = Is x {} = {} x {} = {} (pg > {}), a case of its own",
+                     pressure(t_.pm_pg_limit), factor(is), pressure(t_.pm_pg_limit), pressure(pm),
+                     pressure(t_.pm_pg_limit)),
+         clause);
+    return pm;
+}
+
+void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& minimum) {
+    std::vector<std::string> names;
+    double steepest = 0.0;
+    for (MemberId id : roof.members) {
+        names.push_back(m_.members[at(id)].name);
+        steepest = std::max(steepest, geometry_of(m_, id).slope);
+    }
+    heading(fmt::format("Roof {}: members {}; tributary width {}; {} surface", roof.name,
+                        fmt::join(names, ", "), length(roof.tributary),
+                        roof.slippery ? "unobstructed slippery" : "other"));
+    const Roof::Tributary& t = roof.tributary_from;
+    if (!t.frame.empty()) {
+        line(fmt::format("tributary width of the frame on plan line {} = half of each bay beside "
+                         "it{} = ({} + {}) / 2{} = {}",
+                         t.frame, t.overhang > 0.0 ? ", plus the overhang" : "", length(t.left_bay),
+                         length(t.right_bay),
+                         t.overhang > 0.0 ? fmt::format(" + {}", length(t.overhang)) : "",
+                         length(roof.tributary)),
+             "common practice");
+    }
+    double W = eave_to_ridge(shape_of(m_, roof));
+    double rain = rain_on_snow(steepest, W);
+    // One Cs per roof plane: members of equal slope share it.
+    std::vector<char> done(roof.members.size(), 0);
+    std::vector<double> ps_of(roof.members.size(), 0.0);
+    for (std::size_t i = 0; i < roof.members.size(); ++i) {
+        if (done[i])
+            continue;
+        double slope = geometry_of(m_, roof.members[i]).slope;
+        std::vector<MemberId> plane;
+        std::vector<std::string> plane_names;
+        std::vector<std::size_t> same_plane;
+        for (std::size_t j = i; j < roof.members.size(); ++j) {
+            if (!done[j] && std::abs(geometry_of(m_, roof.members[j]).slope - slope) < kSameSlope) {
+                done[j] = 1;
+                same_plane.push_back(j);
+                plane.push_back(roof.members[j]);
+                plane_names.push_back(m_.members[at(roof.members[j])].name);
+            }
+        }
+        double cs = slope_factor(roof, slope, fmt::format("{}", fmt::join(plane_names, ", ")));
+        double ps = cs * pf_;
+        for (std::size_t j : same_plane)
+            ps_of[j] = ps;
+        line(fmt::format("ps = Cs pf = {:.3f} x {} = {}", cs, pressure(pf_), pressure(ps)),
+             "ASCE 7-16 Eq. 7.4-1");
+        double p = ps + rain;
+        if (rain > 0.0) {
+            line(fmt::format("balanced load = ps + rain-on-snow = {} + {} = {}", pressure(ps),
+                             pressure(rain), pressure(p)),
+                 "ASCE 7-16 Sec. 7.10");
+        }
+        line(fmt::format("on the members: {} x {} = {} down, on the horizontal projection",
+                         pressure(p), length(roof.tributary), line_load(p * roof.tributary)));
+        load_members(roof, plane, p, balanced);
+        load_members(roof, plane, ps, plain_balanced_);
+    }
+    record(roof.name + ".ps", *std::max_element(ps_of.begin(), ps_of.end()), dim::pressure);
+    unbalanced(roof, ps_of, steepest);
+    drift_at(roof, ps_of.front(), true);
+    drift_at(roof, ps_of.back(), false);
+    adjacent_drift(roof, ps_of.front(), true);
+    adjacent_drift(roof, ps_of.back(), false);
+    sliding_onto(roof, true);
+    sliding_onto(roof, false);
+    ice_dam(roof);
+    double pm = minimum_load(steepest);
+    if (pm > 0.0) {
+        record(roof.name + ".pm", pm, dim::pressure);
+        line(fmt::format(
+            "on the members (case {}.minimum): {} x {} = {} down, on the horizontal "
+            "projection",
+            site_.name, pressure(pm), length(roof.tributary), line_load(pm * roof.tributary)));
+        load_members(roof, roof.members, pm, minimum);
+    }
+    // Last: each projection opens a part of the trace of its own.
+    for (const Projection& p : m_.projections) {
+        if (&m_.roofs[p.roof] == &roof)
+            projection_drifts(p, ps_of);
+    }
+}
+
+/// Partial loading (Sec. 7.5.1): the balanced load ps (without rain-on-snow) on
+/// some spans of the roof and a fraction of it on the others, by the library's
+/// rule (or the roof's own); the other roofs keep their balanced load.
+void SnowDeriver::partial_loads(const Roof& roof) {
+    const char* clause = "ASCE 7-16 Sec. 7.5.1";
+    std::string rule_name = roof.partial.empty() ? site_.standard + ".partial" : roof.partial;
+    heading(fmt::format("Partial loads on roof {}", roof.name));
+    if (rule_name == "none") {
+        line(fmt::format("partial loading not applied: the roof says partial = none"), clause);
+        return;
+    }
+    auto rule = std::find_if(m_.patterns.begin(), m_.patterns.end(),
+                             [&](const PatternRule& p) { return p.name == rule_name; });
+    if (rule == m_.patterns.end()) {
+        line(fmt::format("partial loading not applied: no pattern rule {} (is 'use {}' missing?)",
+                         rule_name, site_.standard),
+             clause);
+        return;
+    }
+    double steepest = 0.0;
+    for (MemberId id : roof.members)
+        steepest = std::max(steepest, geometry_of(m_, id).slope);
+    if (shape_of(m_, roof).ridge && std::tan(steepest) >= t_.partial_gable_exempt_rise - 1e-12) {
+        line(fmt::format("partial loading not required: the members span perpendicular to the "
+                         "ridge of a gable roof sloped {}, not below {}",
+                         degrees(steepest), degrees(std::atan(t_.partial_gable_exempt_rise))),
+             clause);
+        return;
+    }
+    std::vector<Span> spans = spans_of(m_, roof.members);
+    std::vector<std::string> names;
+    for (const Span& span : spans)
+        names.push_back(span.cantilever ? span.name + " (cantilever)" : span.name);
+    if (spans.size() < 2) {
+        line(fmt::format("partial loading not required: roof {} has one span, {}", roof.name,
+                         fmt::join(names, ", ")),
+             clause);
+        return;
+    }
+    line(fmt::format("spans {}, arranged by rule {}; the other roofs carry their balanced load",
+                     fmt::join(names, ", "), rule->name),
+         clause);
+    for (const Arrangement& a : arrangements_of(*rule, spans)) {
+        LoadCase lc = arranged_case(m_, plain_balanced_, roof.members, spans, a,
+                                    fmt::format("{}.partial.{}.{}", site_.name, roof.name, a.name));
+        lc.arrangement_of.clear();
+        line(fmt::format("case {}: ps x {}", lc.name, a.description), clause);
+        add_case(std::move(lc));
+    }
+}
+
+/// Unbalanced loads on a gable (Sec. 7.6.1): one case for wind from each side.
+void SnowDeriver::unbalanced(const Roof& roof, const std::vector<double>& ps, double steepest) {
+    const char* clause = "ASCE 7-16 Sec. 7.6.1";
+    RoofShape shape = shape_of(m_, roof);
+    if (!shape.ridge) {
+        line(fmt::format("unbalanced load not required: roof {} is not a hip or gable roof (no "
+                         "ridge between its eaves)",
+                         roof.name),
+             clause);
+        return;
+    }
+    double rise = std::tan(steepest);
+    if (rise < t_.unbalanced_min_rise - 1e-12 || rise > t_.unbalanced_max_rise + 1e-12) {
+        line(fmt::format("unbalanced load not required: slope {} is outside {} to {}",
+                         degrees(steepest), degrees(std::atan(t_.unbalanced_min_rise)),
+                         degrees(std::atan(t_.unbalanced_max_rise))),
+             clause);
+        return;
+    }
+    line(fmt::format("unbalanced loads, wind from each side: slope {} is within {} to {}",
+                     degrees(steepest), degrees(std::atan(t_.unbalanced_min_rise)),
+                     degrees(std::atan(t_.unbalanced_max_rise))),
+         clause);
+    unbalanced_case(roof, ps, true, shape);
+    unbalanced_case(roof, ps, false, shape);
+}
+
+void SnowDeriver::unbalanced_case(const Roof& roof, const std::vector<double>& ps,
+                                  bool wind_from_left, const RoofShape& shape) {
+    double ridge_x = *shape.ridge;
+    const char* clause = "ASCE 7-16 Sec. 7.6.1, Fig. 7.6-2";
+    LoadCase& lc =
+        case_named(wind_from_left ? "unbalanced.wind_from_left" : "unbalanced.wind_from_right");
+    // Members on the windward side lie upwind of the ridge.
+    auto windward = [&](MemberId id) {
+        const Member& mem = m_.members[at(id)];
+        double mid = 0.5 * (m_.nodes[at(mem.start)].x + m_.nodes[at(mem.end)].x);
+        return wind_from_left ? mid < ridge_x : mid > ridge_x;
+    };
+    double leeward_slope = 0.0;
+    for (std::size_t i = 0; i < roof.members.size(); ++i) {
+        if (!windward(roof.members[i]))
+            leeward_slope = std::max(leeward_slope, geometry_of(m_, roof.members[i]).slope);
+    }
+    double W = wind_from_left ? ridge_x - shape.left : shape.right - ridge_x;
+    std::string side = wind_from_left ? "wind from the left" : "wind from the right";
+    if (roof.simple_rafters && W <= t_.unbalanced_narrow_W) {
+        double p = site_.Is.value * site_.pg;
+        line(fmt::format("{}: W = {} <= {} with simply supported rafters: windward 0, leeward "
+                         "Is pg = {} x {} = {}",
+                         side, length(W), length(t_.unbalanced_narrow_W), factor(site_.Is.value),
+                         pressure(site_.pg), pressure(p)),
+             clause);
+        for (std::size_t i = 0; i < roof.members.size(); ++i) {
+            if (!windward(roof.members[i]))
+                load_member(roof, roof.members[i], p, lc);
+        }
+        return;
+    }
+    double gamma = snow_density(t_, site_.pg);
+    double hd = drift_height(t_, site_.pg, W);
+    double S = 1.0 / std::tan(leeward_slope);
+    double surcharge = hd * gamma / std::sqrt(S);
+    double extent = 8.0 * hd * std::sqrt(S) / 3.0;
+    line(fmt::format("{}: W = {}; S = 1/tan(slope) = {:.2f}", side, length(W), S), clause);
+    trace_density(gamma);
+    trace_drift(W, hd, "W");
+    line(fmt::format("windward: {:g} ps; leeward: ps + hd gamma / sqrt(S) = ps + {} x {} / "
+                     "sqrt({:.2f}) = ps + {} over 8 hd sqrt(S) / 3 = {} from the ridge",
+                     t_.unbalanced_windward, length(hd), density(gamma), S, pressure(surcharge),
+                     length(extent)),
+         clause);
+    double from = wind_from_left ? ridge_x : ridge_x - extent;
+    double to = wind_from_left ? ridge_x + extent : ridge_x;
+    for (std::size_t i = 0; i < roof.members.size(); ++i) {
+        MemberId id = roof.members[i];
+        if (windward(id)) {
+            load_member(roof, id, t_.unbalanced_windward * ps[i], lc);
+            continue;
+        }
+        load_member(roof, id, ps[i], lc);
+        load_part(roof, id, from, to, surcharge, lc);
+    }
+}
+
+void SnowDeriver::load_members(const Roof& roof, const std::vector<MemberId>& members, double p,
+                               LoadCase& lc) const {
+    for (MemberId id : members)
+        load_member(roof, id, p, lc);
+}
+
+void SnowDeriver::load_member(const Roof& roof, MemberId id, double p, LoadCase& lc) const {
+    load_between(
+        roof, id, -INFINITY, INFINITY, [p](double) { return p; }, lc);
+}
+
+void SnowDeriver::load_part(const Roof& roof, MemberId id, double x_from, double x_to, double p,
+                            LoadCase& lc) const {
+    load_between(
+        roof, id, x_from, x_to, [p](double) { return p; }, lc);
+}
+
+LoadCase& SnowDeriver::case_named(const char* what) {
+    std::string name = fmt::format("{}.{}", site_.name, what);
+    for (LoadCase& lc : unbalanced_cases_) {
+        if (lc.name == name)
+            return lc;
+    }
+    unbalanced_cases_.push_back(new_case(what));
+    return unbalanced_cases_.back();
+}
+
+/// Members at a roof's ends that overhang: their outer node carries no other
+/// member and no support.
+std::vector<MemberId> SnowDeriver::overhangs(const Roof& roof) const {
+    std::vector<MemberId> found;
+    for (MemberId id : {roof.members.front(), roof.members.back()}) {
+        const Member& m = m_.members[at(id)];
+        bool outer = is_free_end(m_, m.start) || is_free_end(m_, m.end);
+        if (outer && std::find(found.begin(), found.end(), id) == found.end())
+            found.push_back(id);
+    }
+    return found;
+}
+
+/// Ice dams along eaves (Sec. 7.4.5): 2 pf on the overhangs of a warm roof
+/// without enough insulation, a case combined with dead load only.
+void SnowDeriver::ice_dam(const Roof& roof) {
+    const char* clause = "ASCE 7-16 Sec. 7.4.5";
+    std::vector<MemberId> eaves = overhangs(roof);
+    if (eaves.empty()) {
+        line(fmt::format("ice dam load not required: roof {} has no eave overhang", roof.name),
+             clause);
+        return;
+    }
+    if (curve_of(site_.Ct.value) != 0) {
+        line(fmt::format("ice dam load not required: not a warm roof (Ct = {})",
+                         factor(site_.Ct.value)),
+             clause);
+        return;
+    }
+    double needed = roof.ventilated ? t_.ice_dam_R_ventilated : t_.ice_dam_R_unventilated;
+    if (roof.insulation_R >= needed) {
+        line(
+            fmt::format("ice dam load not required: insulation R {:g} is at least {:g} ({})",
+                        roof.insulation_R, needed, roof.ventilated ? "ventilated" : "unventilated"),
+            clause);
+        return;
+    }
+    double p = t_.ice_dam_factor * pf_;
+    std::vector<std::string> names;
+    for (MemberId id : eaves)
+        names.push_back(m_.members[at(id)].name);
+    line(fmt::format("ice dam load {:g} pf = {:g} x {} = {} on the eave overhangs {} (insulation "
+                     "R {:g} below {:g}); case {}.ice_dam, combined with dead load only",
+                     t_.ice_dam_factor, t_.ice_dam_factor, pressure(pf_), pressure(p),
+                     fmt::join(names, ", "), roof.insulation_R, needed, site_.name),
+         clause);
+    if (ice_dam_.name.empty()) {
+        ice_dam_ = new_case("ice_dam");
+        ice_dam_.with_dead_only = true;
+    }
+    load_members(roof, eaves, p, ice_dam_);
+}
+
+LoadCase SnowDeriver::new_case(const char* what) const {
+    LoadCase lc;
+    lc.name = fmt::format("{}.{}", site_.name, what);
+    lc.kind = CaseKind::snow;
+    lc.where = site_.where;
+    return lc;
+}
+
+void SnowDeriver::add_case(LoadCase lc) {
+    for (const LoadCase& other : m_.cases) {
+        if (other.name == lc.name) {
+            Diagnostic& d =
+                d_.error(other.where, fmt::format("load case '{}' has the name of a snow case "
+                                                  "that snow data {} make",
+                                                  lc.name, site_.name));
+            d.note(site_.where, "the snow data are here");
+            return;
+        }
+    }
+    m_.cases.push_back(std::move(lc));
+}
+
+void SnowDeriver::mark_unverified() {
+    bool any = false;
+    for (TraceLine& t : m_.snow_trace) {
+        if (from_memory(t.clause)) {
+            t.clause += " *";
+            any = true;
+        }
+    }
+    if (any) {
+        heading(
+            "* values of this clause were entered from memory: verify them against the printed "
+            "standard");
+    }
+}
+
+}  // namespace snow_detail
+
+using namespace snow_detail;
+
+double snow_density(const SnowTables& t, double pg) {
+    return std::min(t.density_per_pg * pg + t.density_base, t.density_max);
+}
+
+double drift_height(const SnowTables& t, double pg, double lu) {
+    double lu_ft = std::max(lu, t.drift_min_lu) / kFoot;
+    double pg_psf = (pg + t.drift_pg_offset) / kPoundPerSquareFoot;
+    double hd_ft =
+        t.drift_coefficient * std::cbrt(lu_ft) * std::pow(pg_psf, 0.25) - t.drift_offset / kFoot;
+    return std::max(hd_ft, 0.0) * kFoot;
+}
+
+double roof_slope_factor(const SnowTables& tables, double Ct, bool slippery, double slope) {
+    return on_curve(tables.Cs_knee[curve_of(Ct)][slippery ? 0 : 1], tables.Cs_zero_slope, slope);
+}
+
+void derive_snow(Model& model, Diagnostics& diagnostics) {
+    if (!model.snow)
+        return;
+    SnowDeriver(model, diagnostics).run();
+}
+
+}  // namespace firn

@@ -1,0 +1,38 @@
+// report_envelopes: the text report's combinations and envelopes sections.
+#pragma once
+
+#include <string>
+
+#include "ir/checks.hpp"
+#include "ir/combinations.hpp"
+#include "ir/mirror.hpp"
+#include "ir/model.hpp"
+
+namespace firn {
+
+/// `== Load combinations ==`: the sets, the permissions taken, every
+/// combination with its formula, and what was left out. Nothing without `combine`.
+void write_combinations(std::string& out, const Model& model, const CombinationList& list);
+
+/// `== Envelopes of SET ==` for each chosen set: per member group, each member's
+/// largest M+, M-, V+, V-, tension and compression with position and governing
+/// combination; reactions max and min; the largest displacements.
+void write_envelopes(std::string& out, const Model& model, const CombinationList& list,
+                     const std::vector<Envelopes>& envelopes);
+
+/// `== Deflection checks ==`: per `deflection` statement, each member's worst
+/// case under each column of its row, its deflection, the limit and the ratio.
+void write_deflections(std::string& out, const Model& model,
+                       const std::vector<DeflectionCheck>& checks);
+
+/// `== Expectations ==`: each `expect` statement, whether it holds, its closest place
+/// (or every failing one) and the margin. Nothing when the model states none.
+void write_expectations(std::string& out, const Model& model,
+                        const std::vector<ExpectationOutcome>& outcomes);
+
+/// `== Mirror images ==`: with a frame symmetric about a vertical axis, the load
+/// cases that mirror each other, those symmetric in themselves, and each
+/// member's image. One line when the frame is not symmetric.
+void write_mirror(std::string& out, const Model& model, const Mirror& mirror);
+
+}  // namespace firn

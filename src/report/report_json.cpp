@@ -1,0 +1,368 @@
+// report_json: the machine-readable twin of the text report. Values are in the
+// display units named under "units", rounded two decimals finer than the text
+// report so that output is stable across machines yet loses nothing a reader needs.
+#include <fmt/format.h>
+#include <nlohmann/json.hpp>
+
+#include "base/number_format.hpp"
+#include "report/report.hpp"
+
+namespace firn {
+namespace {
+
+using Json = nlohmann::ordered_json;
+
+/// Bumped whenever a key changes meaning or goes away.
+constexpr int kJsonFormat = 1;
+
+double shown(double si_value, const DisplayUnit& unit) {
+    return round_to(unit.from_si(si_value), unit.decimals + 2);
+}
+
+Json units_json(const DisplayUnits& u) {
+    return Json{{"force", u.force.name},
+                {"length", u.length.name},
+                {"moment", u.moment.name},
+                {"displacement", u.displacement.name},
+                {"rotation", u.rotation.name},
+                {"area", u.area.name},
+                {"inertia", u.inertia.name},
+                {"modulus", u.modulus.name},
+                {"unit_weight", u.unit_weight.name}};
+}
+
+Json model_json(const Model& model) {
+    const DisplayUnits& u = model.units;
+    Json nodes = Json::array(), members = Json::array(), sections = Json::array(),
+         supports = Json::array();
+    for (const Node& n : model.nodes) {
+        nodes.push_back(
+            {{"name", n.name}, {"x", shown(n.x, u.length)}, {"y", shown(n.y, u.length)}});
+    }
+    for (const Section& s : model.sections) {
+        const Material& m = model.materials[at(s.material)];
+        sections.push_back({{"name", s.name},
+                            {"material", m.name},
+                            {"A", shown(s.area, u.area)},
+                            {"I", shown(s.inertia, u.inertia)},
+                            {"E", shown(m.elastic_modulus, u.modulus)},
+                            {"density", shown(m.unit_weight, u.unit_weight)}});
+    }
+    for (const Member& m : model.members) {
+        members.push_back({{"name", m.name},
+                           {"start", model.nodes[at(m.start)].name},
+                           {"end", model.nodes[at(m.end)].name},
+                           {"section", model.sections[at(m.section)].name},
+                           {"hinge_start", m.hinge_start},
+                           {"hinge_end", m.hinge_end}});
+    }
+    for (const Support& s : model.supports) {
+        supports.push_back(
+            {{"node", model.nodes[at(s.node)].name}, {"kind", support_kind_name(s.kind)}});
+    }
+    return Json{
+        {"nodes", nodes}, {"sections", sections}, {"members", members}, {"supports", supports}};
+}
+
+Json triple(const std::array<double, 3>& v, const DisplayUnit& force, const DisplayUnit& moment,
+            const char* a, const char* b, const char* c) {
+    return Json{{a, shown(v[0], force)}, {b, shown(v[1], force)}, {c, shown(v[2], moment)}};
+}
+
+Json extreme(const Extreme& e, const DisplayUnit& unit, const DisplayUnit& length) {
+    return Json{{"value", shown(e.value, unit)}, {"at", shown(e.position, length)}};
+}
+
+Json member_json(const Model& model, std::size_t i, const MemberSummary& s) {
+    const DisplayUnits& u = model.units;
+    return Json{{"member", model.members[i].name},
+                {"start", triple(s.start, u.force, u.moment, "N", "V", "M")},
+                {"end", triple(s.end, u.force, u.moment, "N", "V", "M")},
+                {"moment_max", extreme(s.moment_max, u.moment, u.length)},
+                {"moment_min", extreme(s.moment_min, u.moment, u.length)},
+                {"shear_max", extreme(s.shear_max, u.force, u.length)},
+                {"tension_max", extreme(s.axial_max, u.force, u.length)},
+                {"compression_max", extreme(s.axial_min, u.force, u.length)},
+                {"deflection_max", extreme(s.deflection_max, u.displacement, u.length)}};
+}
+
+Json stations_json(const Model& model, const Stations& stations, std::size_t c, std::size_t m) {
+    const DisplayUnits& u = model.units;
+    Json out = Json::array();
+    const Station* s = stations.of(c, m);
+    for (std::size_t k = 0; k < stations.per_member; ++k) {
+        out.push_back({{"x", shown(s[k].position, u.length)},
+                       {"N", shown(s[k].axial, u.force)},
+                       {"V", shown(s[k].shear, u.force)},
+                       {"M", shown(s[k].moment, u.moment)},
+                       {"deflection", shown(s[k].deflection, u.displacement)}});
+    }
+    return out;
+}
+
+Json case_json(const Model& model, const Results& results, std::size_t c,
+               const ReportOptions& options) {
+    const DisplayUnits& u = model.units;
+    const CaseResults& r = results.cases[c];
+    Json reactions = Json::array(), displacements = Json::array(), members = Json::array();
+    for (std::size_t i = 0; i < model.supports.size(); ++i) {
+        Json row{{"node", model.nodes[at(model.supports[i].node)].name}};
+        row.update(triple(r.reactions[i], u.force, u.moment, "Rx", "Ry", "M"));
+        reactions.push_back(std::move(row));
+    }
+    for (std::size_t i = 0; i < model.nodes.size(); ++i) {
+        bool free = !results.rotation_free.empty() && results.rotation_free[i];
+        displacements.push_back(
+            {{"node", model.nodes[i].name},
+             {"dx", shown(r.displacements[i][0], u.displacement)},
+             {"dy", shown(r.displacements[i][1], u.displacement)},
+             {"rotation", free ? Json(nullptr) : Json(shown(r.displacements[i][2], u.rotation))}});
+    }
+    for (std::size_t i = 0; i < model.members.size(); ++i) {
+        Json m = member_json(model, i, r.members[i]);
+        if (options.stations != nullptr)
+            m["stations"] = stations_json(model, *options.stations, c, i);
+        members.push_back(std::move(m));
+    }
+    const Equilibrium& e = r.equilibrium;
+    return Json{{"name", model.cases[c].name},
+                {"kind", case_kind_name(model.cases[c].kind)},
+                {"equilibrium",
+                 {{"applied", triple(e.applied, u.force, u.moment, "Fx", "Fy", "M")},
+                  {"reactions", triple(e.reactions, u.force, u.moment, "Fx", "Fy", "M")}}},
+                {"reactions", reactions},
+                {"displacements", displacements},
+                {"members", members}};
+}
+
+/// The snow trace: each line's text, its clause and whether it starts a part.
+Json snow_trace_json(const Model& model) {
+    Json lines = Json::array();
+    for (const TraceLine& t : model.snow_trace) {
+        Json line{{"text", t.text}};
+        if (!t.clause.empty())
+            line["clause"] = t.clause;
+        if (t.heading)
+            line["heading"] = true;
+        lines.push_back(std::move(line));
+    }
+    return lines;
+}
+
+Json governing_json(const Governing& g, const DisplayUnit& unit, const DisplayUnit& length,
+                    const CombinationList& list, std::size_t first) {
+    return Json{{"value", shown(g.value, unit)},
+                {"at", shown(g.position, length)},
+                {"combination", g.combination == no_combination
+                                    ? Json(nullptr)
+                                    : Json(list.combinations[first + g.combination].name)}};
+}
+
+Json combinations_json(const Model& model, const CombinationList& list) {
+    Json out = Json::array();
+    for (std::size_t c = 0; c < list.combinations.size(); ++c) {
+        Json terms = Json::array();
+        for (const CombinationTerm& t : list.combinations[c].terms)
+            terms.push_back({{"case", model.cases[at(t.case_id)].name}, {"factor", t.factor}});
+        out.push_back({{"name", list.combinations[c].name}, {"terms", std::move(terms)}});
+    }
+    return out;
+}
+
+Json component_json(const ComponentEnvelope& e, std::array<const char*, 3> names,
+                    std::array<const DisplayUnit*, 3> units, const DisplayUnit& length,
+                    const CombinationList& list, std::size_t first) {
+    Json out;
+    for (std::size_t d = 0; d < 3; ++d) {
+        out[names[d]] = {{"max", governing_json(e.max[d], *units[d], length, list, first)},
+                         {"min", governing_json(e.min[d], *units[d], length, list, first)}};
+    }
+    return out;
+}
+
+Json envelope_json(const Model& model, const CombinationList& list, std::size_t set,
+                   const Envelopes& env) {
+    const DisplayUnits& u = model.units;
+    std::size_t first = list.sets[set].first;
+    auto g = [&](const Governing& v, const DisplayUnit& unit) {
+        return governing_json(v, unit, u.length, list, first);
+    };
+    Json members = Json::array(), reactions = Json::array(), displacements = Json::array();
+    for (std::size_t m = 0; m < env.members.size(); ++m) {
+        const MemberEnvelope& e = env.members[m];
+        members.push_back({{"member", model.members[m].name},
+                           {"moment_max", g(e.moment_max, u.moment)},
+                           {"moment_min", g(e.moment_min, u.moment)},
+                           {"shear_max", g(e.shear_max, u.force)},
+                           {"shear_min", g(e.shear_min, u.force)},
+                           {"tension", g(e.tension, u.force)},
+                           {"compression", g(e.compression, u.force)},
+                           {"deflection_max", g(e.deflection_max, u.displacement)},
+                           {"deflection_min", g(e.deflection_min, u.displacement)}});
+    }
+    for (std::size_t s = 0; s < env.reactions.size(); ++s) {
+        Json r = component_json(env.reactions[s], {"Rx", "Ry", "M"},
+                                {&u.force, &u.force, &u.moment}, u.length, list, first);
+        r["node"] = model.nodes[at(model.supports[s].node)].name;
+        reactions.push_back(std::move(r));
+    }
+    for (std::size_t n = 0; n < env.displacements.size(); ++n) {
+        Json d =
+            component_json(env.displacements[n], {"dx", "dy", "rotation"},
+                           {&u.displacement, &u.displacement, &u.rotation}, u.length, list, first);
+        d["node"] = model.nodes[n].name;
+        displacements.push_back(std::move(d));
+    }
+    return Json{{"set", list.sets[set].name},
+                {"members", std::move(members)},
+                {"reactions", std::move(reactions)},
+                {"displacements", std::move(displacements)}};
+}
+
+Json deflections_json(const Model& model, const std::vector<DeflectionCheck>& checks) {
+    const DisplayUnits& u = model.units;
+    Json out = Json::array();
+    for (const DeflectionCheck& c : checks) {
+        out.push_back({{"member", model.members[at(c.member)].name},
+                       {"row", model.deflection_limits[c.limits].row},
+                       {"load", c.column},
+                       {"case", c.governing},
+                       {"deflection", shown(c.deflection, u.displacement)},
+                       {"span", shown(c.span, u.length)},
+                       {"n", c.n},
+                       {"limit", shown(c.span / c.n, u.displacement)},
+                       {"ratio", round_to(c.ratio(), 5)},
+                       {"passes", c.passes()}});
+    }
+    return out;
+}
+
+Json finding_json(const Model& model, const Expectation& x, const Finding& f) {
+    const DisplayUnit* unit = expectation_unit(model, x);
+    auto value = [&](double v) { return unit != nullptr ? shown(v, *unit) : round_to(v, 6); };
+    Json out{{"value", value(f.value)}, {"bound", value(f.bound)}, {"margin", value(f.margin)}};
+    if (!f.place.empty())
+        out["place"] = f.place;
+    if (f.on_member)
+        out["at"] = shown(f.position, model.units.length);
+    if (!f.governing.empty())
+        out["under"] = f.governing;
+    return out;
+}
+
+Json expectations_json(const Model& model, const std::vector<ExpectationOutcome>& outcomes) {
+    Json out = Json::array();
+    for (const ExpectationOutcome& o : outcomes) {
+        const Expectation& x = model.expectations[o.expectation];
+        const DisplayUnit* unit = expectation_unit(model, x);
+        Json failures = Json::array();
+        for (const Finding& f : o.failures)
+            failures.push_back(finding_json(model, x, f));
+        out.push_back({{"line", x.where.begin.line},
+                       {"subject", x.subject},
+                       {"under", x.source},
+                       {"bound", show_bound(model, x)},
+                       {"unit", unit != nullptr ? unit->name : ""},
+                       {"holds", o.passed()},
+                       {"closest", finding_json(model, x, o.closest)},
+                       {"failures", failures},
+                       {"because", x.reason}});
+    }
+    return out;
+}
+
+Json mirror_json(const Model& model, const Mirror& mirror) {
+    Json out{{"symmetric", mirror.symmetric}};
+    if (!mirror.symmetric)
+        return out;
+    out["axis"] = shown(mirror.axis, model.units.length);
+    Json cases = Json::array(), members = Json::array();
+    for (std::size_t c = 0; c < model.cases.size(); ++c) {
+        const auto& image = mirror.case_mirror[c];
+        cases.push_back({{"case", model.cases[c].name},
+                         {"mirror", image ? Json(model.cases[at(*image)].name) : Json(nullptr)}});
+    }
+    for (std::size_t m = 0; m < model.members.size(); ++m) {
+        const auto& image = mirror.member[m];
+        members.push_back(
+            {{"member", model.members[m].name},
+             {"mirror", image ? Json(model.members[at(*image)].name) : Json(nullptr)}});
+    }
+    out["cases"] = std::move(cases);
+    out["members"] = std::move(members);
+    return out;
+}
+
+/// The parts after the cases: mirror images, combinations, envelopes, deflection checks.
+Json checks_json(const Model& model, const ReportOptions& options) {
+    Json out = Json::object();
+    if (options.mirror != nullptr)
+        out["mirror"] = mirror_json(model, *options.mirror);
+    if (options.combinations != nullptr && model.combine) {
+        out["combinations"] = combinations_json(model, *options.combinations);
+        Json envelopes = Json::array();
+        for (std::size_t s = 0; options.envelopes != nullptr && s < options.envelopes->size(); ++s)
+            envelopes.push_back(
+                envelope_json(model, *options.combinations, s, (*options.envelopes)[s]));
+        out["envelopes"] = std::move(envelopes);
+    }
+    if (options.deflections != nullptr && !model.deflection_limits.empty())
+        out["deflection_checks"] = deflections_json(model, *options.deflections);
+    if (options.expectations != nullptr && !options.expectations->empty())
+        out["expectations"] = expectations_json(model, *options.expectations);
+    return out;
+}
+
+}  // namespace
+
+void write_json_report(const Model& model, const Results& results, const ReportOptions& options,
+                       const ReportSink& sink) {
+    // The root object is written by hand around the cases, so that each case
+    // is built, written and freed in turn: a DOM of a large run would not fit
+    // in memory. The layout is the one Json::dump(1) would give.
+    Json head{{"format", kJsonFormat},
+              {"title", model.title},
+              {"source", shown_source(model.source_name)},
+              {"caution", kCaution},
+              {"units", units_json(model.units)},
+              {"model", model_json(model)}};
+    if (!model.snow_trace.empty())
+        head["snow_trace"] = snow_trace_json(model);
+    std::string text = head.dump(1, ' ', false, Json::error_handler_t::replace);
+    text.resize(text.size() - 2);  // the final "\n}": the cases follow
+    text += ",\n \"cases\": [";
+    for (std::size_t c = 0; c < model.cases.size(); ++c) {
+        text += c == 0 ? "\n" : ",\n";
+        std::string one = case_json(model, results, c, options)
+                              .dump(1, ' ', false, Json::error_handler_t::replace);
+        text += "  ";
+        for (char ch : one) {
+            text += ch;
+            if (ch == '\n')
+                text += "  ";
+        }
+        sink(text);
+        text.clear();
+    }
+    text += model.cases.empty() ? "]" : "\n ]";
+    Json tail = checks_json(model, options);
+    for (auto it = tail.begin(); it != tail.end(); ++it) {
+        std::string one = it.value().dump(1, ' ', false, Json::error_handler_t::replace);
+        text += fmt::format(",\n \"{}\": ", it.key());
+        for (char ch : one) {
+            text += ch;
+            if (ch == '\n')
+                text += ' ';
+        }
+    }
+    text += "\n}\n";
+    sink(text);
+}
+
+std::string json_report(const Model& model, const Results& results, const ReportOptions& options) {
+    std::string all;
+    write_json_report(model, results, options, [&all](std::string_view piece) { all += piece; });
+    return all;
+}
+
+}  // namespace firn
