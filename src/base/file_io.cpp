@@ -14,7 +14,8 @@ namespace {
 
 /// Models are text written by people; anything this large is not a model, and
 /// refusing it keeps every source offset within 32 bits.
-constexpr off_t kMaxModelBytes = 64 * 1024 * 1024;
+constexpr off_t kMebibyte = off_t{1024} * 1024;
+constexpr off_t kMaxModelBytes = 64 * kMebibyte;
 
 std::string reason() {
     return std::strerror(errno);
@@ -36,7 +37,7 @@ bool read_file(const std::string& path, std::string& text, std::string& error) {
     }
     if (info.st_size > kMaxModelBytes) {
         error = fmt::format("cannot read '{}': larger than {} MiB, too large for a model", path,
-                            kMaxModelBytes / (1024 * 1024));
+                            kMaxModelBytes / kMebibyte);
         ::close(fd);
         return false;
     }

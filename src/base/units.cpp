@@ -169,6 +169,7 @@ const Unit* find_unit(std::string_view name) {
 
 std::vector<std::string> unit_names() {
     std::vector<std::string> names;
+    names.reserve(std::size(kUnits));
     for (const Unit& u : kUnits)
         names.emplace_back(u.name);
     return names;

@@ -30,9 +30,8 @@ bool is_unknown_command(CLI::App& app, int argc, char** argv) {
     return true;
 }
 
-}  // namespace
-
-int main(int argc, char** argv) {
+/// The commands on the command line; a bad command line is exit 2.
+int run_command(int argc, char** argv) {
     int status = firn::exit_ok;
     CLI::App app{"firn: snow-loaded plane frames from text models, solved and reported", "firn"};
     app.set_version_flag("--version", "firn 0.1.0");
@@ -49,9 +48,20 @@ int main(int argc, char** argv) {
     } catch (const CLI::ParseError& e) {
         int code = app.exit(e);
         return code == 0 ? firn::exit_ok : firn::exit_model_error;
-    } catch (const std::exception& e) {
-        std::fprintf(stderr, "firn: internal error (please report this): %s\n", e.what());
-        return firn::exit_internal;
     }
     return status;
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+    // Anything that escapes a command is a bug in firn, never the user's: say so, exit 3.
+    try {
+        return run_command(argc, argv);
+    } catch (const std::exception& e) {
+        std::fprintf(stderr, "firn: internal error (please report this): %s\n", e.what());
+    } catch (...) {
+        std::fprintf(stderr, "firn: internal error (please report this)\n");
+    }
+    return firn::exit_internal;
 }

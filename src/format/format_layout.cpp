@@ -64,7 +64,7 @@ class Layout {
         int most = -1;
         for (const Atom& a : atoms)
             most = std::max(most, a.list);
-        return static_cast<std::size_t>(most + 1);
+        return most < 0 ? 0 : static_cast<std::size_t>(most) + 1;
     }
 
     static bool soft_break(const Atom& a) { return a.list >= 0 && !a.first_item; }

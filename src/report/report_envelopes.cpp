@@ -51,13 +51,13 @@ std::vector<MemberGroup> envelope_groups(const Model& model) {
     return groups;
 }
 
-struct Quantity {
+struct EnvelopeColumn {
     const char* label;  ///< followed by its unit
     const Governing MemberEnvelope::*field;
     bool force;  ///< a force (else a moment)
 };
 
-constexpr std::array<Quantity, 6> kQuantities{{
+constexpr std::array<EnvelopeColumn, 6> kEnvelopeColumns{{
     {"M+", &MemberEnvelope::moment_max, false},
     {"M-", &MemberEnvelope::moment_min, false},
     {"V+", &MemberEnvelope::shear_max, true},
@@ -81,7 +81,7 @@ void write_member_group(std::string& out, const Model& model, const SetView& set
     for (MemberId m : group.members) {
         const MemberEnvelope& e = env.members[at(m)];
         bool first = true;
-        for (const Quantity& q : kQuantities) {
+        for (const EnvelopeColumn& q : kEnvelopeColumns) {
             const Governing& g = e.*q.field;
             const DisplayUnit& unit = q.force ? u.force : u.moment;
             t.name(first ? std::string_view(model.members[at(m)].name) : "");

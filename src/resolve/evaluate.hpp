@@ -27,7 +27,7 @@ struct Expected {
     const char* example;
 };
 
-namespace expect {
+namespace expected {
 inline constexpr Expected length{dim::length, "a length", "12 ft"};
 inline constexpr Expected force{dim::force, "a force", "2 kip"};
 inline constexpr Expected moment{dim::moment, "a moment", "10 kip*ft"};
@@ -39,7 +39,7 @@ inline constexpr Expected unit_weight{dim::unit_weight, "a unit weight", "490 pc
 inline constexpr Expected stiffness{dim::force_per_length, "a spring stiffness", "200 kip/in"};
 inline constexpr Expected rotational_stiffness{dim::moment, "a rotational stiffness",
                                                "5000 kip*ft/rad"};
-}  // namespace expect
+}  // namespace expected
 
 /// The named values an expression may use (the model's `let` constants).
 class Scope {

@@ -319,7 +319,7 @@ bool resolve_coordinate(Resolver& r, const syntax::NodeDecl& decl,
             v = grid[*i].position;
     } else {
         axis = *c.axis;
-        v = r.value(*c.value, expect::length);
+        v = r.value(*c.value, expected::length);
         if (v && !r.within(*c.value, *v, kMaxCoordinate, "coordinate"))
             v.reset();
     }
@@ -351,7 +351,7 @@ void resolve_nodes(Resolver& r, const Collected& c) {
                             decl->name.text));
         }
         placed = placed && complete;
-        r.node_placed.push_back(placed);
+        r.node_status.push_back(Resolver::NodeStatus{placed, false});
         Node n{decl->name.text, xy[0].value_or(0.0), xy[1].value_or(0.0), decl->name.where};
         auto [it, fresh] =
             r.node_at.emplace(place_key(n.x, n.y), make_id<NodeId>(r.model.nodes.size()));
@@ -365,7 +365,6 @@ void resolve_nodes(Resolver& r, const Collected& c) {
         }
         r.model.nodes.push_back(std::move(n));
     }
-    r.node_used.assign(r.model.nodes.size(), 0);
 }
 
 void resolve_constants(Resolver& r, const Collected& c) {
@@ -433,8 +432,8 @@ std::vector<std::optional<double>> read_properties(Resolver& r,
 }
 
 void resolve_materials(Resolver& r, const Collected& c) {
-    static const std::vector<PropertySpec> spec{{"E", &expect::modulus, true, true},
-                                                {"density", &expect::unit_weight, false, false}};
+    static const std::vector<PropertySpec> spec{{"E", &expected::modulus, true, true},
+                                                {"density", &expected::unit_weight, false, false}};
     for (const syntax::MaterialDecl* decl : c.materials) {
         auto v = read_properties(r, decl->properties, spec, decl->name, "material");
         if (!r.materials.add(decl->name, r.diagnostics))
@@ -448,14 +447,14 @@ void resolve_materials(Resolver& r, const Collected& c) {
 std::optional<std::pair<double, double>> section_properties(Resolver& r,
                                                             const syntax::SectionDecl& decl) {
     using Shape = syntax::SectionDecl::Shape;
-    static const std::vector<PropertySpec> given{{"A", &expect::area, true, true},
-                                                 {"I", &expect::inertia, true, true}};
-    static const std::vector<PropertySpec> rectangle{{"b", &expect::length, true, true},
-                                                     {"d", &expect::length, true, true}};
-    static const std::vector<PropertySpec> ishape{{"d", &expect::length, true, true},
-                                                  {"bf", &expect::length, true, true},
-                                                  {"tf", &expect::length, true, true},
-                                                  {"tw", &expect::length, true, true}};
+    static const std::vector<PropertySpec> given{{"A", &expected::area, true, true},
+                                                 {"I", &expected::inertia, true, true}};
+    static const std::vector<PropertySpec> rectangle{{"b", &expected::length, true, true},
+                                                     {"d", &expected::length, true, true}};
+    static const std::vector<PropertySpec> ishape{{"d", &expected::length, true, true},
+                                                  {"bf", &expected::length, true, true},
+                                                  {"tf", &expected::length, true, true},
+                                                  {"tw", &expected::length, true, true}};
     const auto& spec = decl.shape == Shape::given       ? given
                        : decl.shape == Shape::rectangle ? rectangle
                                                         : ishape;
@@ -500,7 +499,7 @@ void resolve_sections(Resolver& r, const Collected& c) {
         if (props)
             std::tie(s.area, s.inertia) = *props;
         r.model.sections.push_back(std::move(s));
-        r.section_material_known.push_back(material.has_value());
+        r.section_status.push_back(Resolver::SectionStatus{material.has_value()});
     }
 }
 
@@ -555,8 +554,8 @@ void resolve_springs(Resolver& r, const syntax::SupportDecl& decl,
             restraint[dof] = Restraint{Restraint::Kind::fixed, 0.0};
             continue;
         }
-        auto k = r.value(*spring.stiffness,
-                         dof == dof_rotation ? expect::rotational_stiffness : expect::stiffness);
+        auto k = r.value(*spring.stiffness, dof == dof_rotation ? expected::rotational_stiffness
+                                                                : expected::stiffness);
         if (k && !(*k > 0.0)) {
             r.diagnostics.error(spring.stiffness->where,
                                 "a spring stiffness must be greater than zero");
@@ -616,7 +615,7 @@ std::vector<std::pair<NodeId, syntax::Name>> support_nodes(Resolver& r,
         for (std::size_t i = 0; i < r.model.nodes.size(); ++i) {
             const Node& n = r.model.nodes[i];
             double place = g.axis == syntax::Axis::x ? n.x : n.y;
-            if (g.valid && r.node_used[i] && std::abs(place - g.position) <= 1e-6)
+            if (g.valid && r.node_status[i].used && std::abs(place - g.position) <= 1e-6)
                 found.emplace_back(make_id<NodeId>(i), name);
         }
         if (g.valid && found.size() == before && !r.members_missing) {
@@ -670,7 +669,7 @@ void check_whole_model(Resolver& r, const Collected& c) {
                             "the model has no supports, so nothing holds the structure up");
     }
     for (std::size_t i = 0; i < r.model.nodes.size(); ++i) {
-        if (!r.node_used[i]) {
+        if (!r.node_status[i].used) {
             r.diagnostics.error(
                 r.model.nodes[i].where,
                 fmt::format("node '{}' is not connected to any member", r.model.nodes[i].name));

@@ -38,15 +38,15 @@ std::size_t component_of(const std::string& word) {
 std::optional<Expected> expected_bound(Q q, std::size_t component) {
     switch (q) {
         case Q::moment:
-            return expect::moment;
+            return expected::moment;
         case Q::shear:
         case Q::axial:
-            return expect::force;
+            return expected::force;
         case Q::reaction:
-            return component == 2 ? expect::moment : expect::force;
+            return component == 2 ? expected::moment : expected::force;
         case Q::deflection:
         case Q::displacement:
-            return expect::length;
+            return expected::length;
         case Q::rotation:
             return Expected{dim::number, "a rotation", "0.01 rad"};
         case Q::snow:
@@ -57,7 +57,7 @@ std::optional<Expected> expected_bound(Q q, std::size_t component) {
 
 /// What a bound of `dimension` is called in messages.
 Expected expected_for(Dimension dimension) {
-    for (const Expected& e : {expect::moment, expect::force, expect::length})
+    for (const Expected& e : {expected::moment, expected::force, expected::length})
         if (e.dimension == dimension)
             return e;
     if (dimension == dim::pressure)

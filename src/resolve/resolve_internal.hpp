@@ -109,11 +109,23 @@ struct Resolver {
     std::vector<std::pair<syntax::Name, MemberId>> tagged;      ///< `tag` clauses, for groups
     std::unordered_map<std::string, NodeId> node_aliases;       ///< intersections at declared nodes
     std::map<std::pair<long long, long long>, NodeId> node_at;  ///< nodes by place (micrometres)
-    std::vector<char> node_used;               ///< per node: some member ends there
-    std::vector<char> node_placed;             ///< per node: both coordinates known (no error)
-    std::vector<char> member_valid;            ///< per member: nodes, section and length all good
-    std::vector<char> member_section_known;    ///< per member: its section resolved
-    std::vector<char> section_material_known;  ///< per section: its material resolved
+    /// What resolving found of each node, member and section, one entry per entity in
+    /// step with the model's vectors (pushed where the entity is), so later statements skip
+    /// the entities whose errors were already reported.
+    struct NodeStatus {
+        bool placed = false;  ///< both coordinates known (no error)
+        bool used = false;    ///< some member ends there
+    };
+    struct MemberStatus {
+        bool valid = false;          ///< nodes, section and length all good
+        bool section_known = false;  ///< its section resolved
+    };
+    struct SectionStatus {
+        bool material_known = false;  ///< its material resolved
+    };
+    std::vector<NodeStatus> node_status;
+    std::vector<MemberStatus> member_status;
+    std::vector<SectionStatus> section_status;
 
     /// A member statement made fewer members than it asked for because of an
     /// error (an unknown line, say); references that then name no member are not
@@ -143,6 +155,15 @@ struct Resolver {
         return make_id<Id>(*i);
     }
 };
+
+/// "column line" or "level", for messages.
+const char* axis_noun(syntax::Axis axis);
+
+/// The names of the grid lines along one axis, for "did you mean".
+std::vector<std::string> line_names(const Resolver& r, syntax::Axis axis);
+
+/// m: a point this close to a grid line lies on it.
+inline constexpr double kOnLine = 1e-6;
 
 /// Key of a place in the node_at map.
 inline std::pair<long long, long long> place_key(double x, double y) {

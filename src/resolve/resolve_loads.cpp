@@ -30,7 +30,7 @@ CaseKind case_kind(syntax::CaseDecl::Kind kind) {
 }
 
 /// The part of one member a spread load covers, checked against its length.
-struct Span {
+struct LoadExtent {
     double start = 0.0;
     double end = 0.0;
 };
@@ -132,9 +132,10 @@ class LoadResolver {
         return false;
     }
 
-    std::optional<Span> span_on(MemberId m, std::optional<double> from, std::optional<double> to) {
+    std::optional<LoadExtent> extent_on(MemberId m, std::optional<double> from,
+                                        std::optional<double> to) {
         if (!decl_.from)
-            return Span{0.0, measured_length(m)};
+            return LoadExtent{0.0, measured_length(m)};
         if (!from || !to)
             return std::nullopt;
         if (!position_fits(*decl_.from, *from, m) || !position_fits(*decl_.to, *to, m))
@@ -144,7 +145,7 @@ class LoadResolver {
             return std::nullopt;
         }
         double length = measured_length(m);
-        return Span{std::clamp(*from, 0.0, length), std::clamp(*to, 0.0, length)};
+        return LoadExtent{std::clamp(*from, 0.0, length), std::clamp(*to, 0.0, length)};
     }
 
     /// One warning per list item that repeats members (a group or pattern may
@@ -180,7 +181,7 @@ class LoadResolver {
                     continue;
                 }
                 listed[at(id)] = 1;
-                if (r_.member_valid[at(id)])
+                if (r_.member_status[at(id)].valid)
                     ids.push_back(id);
             }
             warn_listed_again(name, again);
@@ -210,17 +211,17 @@ class LoadResolver {
     }
 
     void spread() {
-        auto w_start = checked(*decl_.value, expect::line_load);
-        auto w_end = decl_.end_value ? checked(*decl_.end_value, expect::line_load) : w_start;
+        auto w_start = checked(*decl_.value, expected::line_load);
+        auto w_end = decl_.end_value ? checked(*decl_.end_value, expected::line_load) : w_start;
         auto direction = member_direction();
         std::optional<double> from, to;
         if (decl_.from) {
-            from = r_.value(*decl_.from, expect::length);
-            to = r_.value(*decl_.to, expect::length);
+            from = r_.value(*decl_.from, expected::length);
+            to = r_.value(*decl_.to, expected::length);
         }
         bool ok = projected_allowed() && w_start && w_end && direction;
         for (MemberId m : members()) {
-            auto span = span_on(m, from, to);
+            auto span = extent_on(m, from, to);
             if (!ok || !span)
                 continue;
             lc_.distributed.push_back(DistributedLoad{m, *direction, decl_.projected, span->start,
@@ -229,7 +230,7 @@ class LoadResolver {
     }
 
     void point() {
-        auto force = checked(*decl_.value, expect::force);
+        auto force = checked(*decl_.value, expected::force);
         if (!decl_.on_members) {
             auto d = node_direction();
             for (NodeId n : nodes()) {
@@ -240,7 +241,7 @@ class LoadResolver {
             return;
         }
         auto direction = member_direction();
-        auto pos = r_.value(*decl_.at, expect::length);
+        auto pos = r_.value(*decl_.at, expected::length);
         for (MemberId m : members()) {
             if (!force || !direction || !pos || !position_fits(*decl_.at, *pos, m))
                 continue;
@@ -250,7 +251,7 @@ class LoadResolver {
     }
 
     void moment() {
-        auto value = checked(*decl_.value, expect::moment);
+        auto value = checked(*decl_.value, expected::moment);
         if (value && decl_.clockwise)
             *value = -*value;
         if (!decl_.on_members) {
@@ -260,7 +261,7 @@ class LoadResolver {
             }
             return;
         }
-        auto pos = r_.value(*decl_.at, expect::length);
+        auto pos = r_.value(*decl_.at, expected::length);
         for (MemberId m : members()) {
             if (!value || !pos || !position_fits(*decl_.at, *pos, m))
                 continue;
@@ -277,10 +278,10 @@ class LoadResolver {
         sw.where = where_;
         std::vector<char> reported(r_.model.materials.size(), 0);
         auto check = [&](MemberId id) {
-            if (!r_.member_section_known[at(id)])
+            if (!r_.member_status[at(id)].section_known)
                 return;  // the unknown section is reported already
             SectionId section = r_.model.members[at(id)].section;
-            if (!r_.section_material_known[at(section)])
+            if (!r_.section_status[at(section)].material_known)
                 return;  // the unknown material is reported already
             const Section& s = r_.model.sections[at(section)];
             const Material& mat = r_.model.materials[at(s.material)];

@@ -297,7 +297,7 @@ std::optional<std::vector<MemberId>> member_run(Resolver& r, const syntax::Name&
                                                 const RunWords& words,
                                                 const std::vector<MemberId>& members) {
     for (MemberId m : members) {
-        if (!r.member_valid[at(m)])
+        if (!r.member_status[at(m)].valid)
             return std::nullopt;  // its own error is reported
     }
     std::map<NodeId, std::vector<MemberId>> at_node;
@@ -403,7 +403,7 @@ bool tributary_width(Resolver& r, Settings& s, const syntax::RoofDecl& decl, Roo
         Roof::Tributary& t = roof.tributary_from;
         if (!plan_bays(r, *frame, t))
             return false;
-        if (s.find("overhang") != nullptr && !s.value("overhang", expect::length, t.overhang))
+        if (s.find("overhang") != nullptr && !s.value("overhang", expected::length, t.overhang))
             return false;
         bool end_frame = t.left_bay == 0.0 || t.right_bay == 0.0;
         if (!end_frame && t.overhang > 0.0) {
@@ -423,7 +423,7 @@ bool tributary_width(Resolver& r, Settings& s, const syntax::RoofDecl& decl, Roo
                                         decl.name.text));
         return false;
     }
-    if (!s.value("tributary", expect::length, out))
+    if (!s.value("tributary", expected::length, out))
         return false;
     if (out > 0.0)
         return true;
@@ -435,7 +435,7 @@ bool tributary_width(Resolver& r, Settings& s, const syntax::RoofDecl& decl, Roo
 bool positive_length(Resolver& r, Settings& s, const std::string& key, double& out) {
     if (s.find(key) == nullptr)
         return true;
-    if (!s.value(key, expect::length, out))
+    if (!s.value(key, expected::length, out))
         return false;
     if (out > 0.0)
         return true;
@@ -617,7 +617,7 @@ void resolve_projection(Resolver& r, const syntax::RoofDecl& decl, const NameTab
             ok = false;
         }
     }
-    bool values_ok = s.value("left_face", expect::length, p.left_face) &
+    bool values_ok = s.value("left_face", expected::length, p.left_face) &
                      positive_length(r, s, "width", p.width) &
                      positive_length(r, s, "face_length", p.face_length) &
                      positive_length(r, s, "height", p.height);
