@@ -57,6 +57,7 @@ std::vector<NodeId> run_nodes(const Model& model, const std::vector<MemberId>& r
 
 std::string span_list(const std::vector<Span>& spans, const std::vector<std::size_t>& which) {
     std::vector<std::string> names;
+    names.reserve(which.size());
     for (std::size_t i : which)
         names.push_back(spans[i].name);
     return fmt::format("{}", fmt::join(names, ", "));

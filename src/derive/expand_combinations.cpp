@@ -140,6 +140,7 @@ std::string factor_text(double f) {
 
 std::string formula_of(const Model& model, const std::vector<CombinationTerm>& terms) {
     std::vector<std::string> parts;
+    parts.reserve(terms.size());
     for (const CombinationTerm& t : terms)
         parts.push_back(
             fmt::format("{} {}", factor_text(t.factor), model.cases[at(t.case_id)].name));

@@ -9,7 +9,6 @@
 #include <map>
 
 #include "base/file_io.hpp"
-#include "front/front.hpp"
 #include "front/stdlib_embedded.hpp"
 
 namespace firn {

@@ -390,6 +390,7 @@ std::vector<std::optional<double>> read_properties(Resolver& r,
     std::vector<std::optional<double>> values(spec.size());
     std::vector<const syntax::Property*> seen(spec.size(), nullptr);
     std::vector<std::string> keys;
+    keys.reserve(spec.size());
     for (const PropertySpec& s : spec)
         keys.emplace_back(s.key);
     for (const syntax::Property& p : props) {
