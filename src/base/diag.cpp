@@ -75,6 +75,18 @@ constexpr std::size_t kMaxShown = 100;
 // pathological input cannot flood the terminal.
 constexpr std::size_t kShownWidth = 100;
 
+/// `text` with control bytes (a NUL, a terminal escape) shown as '?', one byte for one,
+/// so a message can neither stop short at a NUL nor drive the terminal.
+std::string printable(std::string_view text) {
+    std::string shown(text);
+    for (char& c : shown) {
+        auto byte = static_cast<unsigned char>(c);
+        if ((byte < 0x20 && c != '\t') || byte == 0x7f)
+            c = '?';
+    }
+    return shown;
+}
+
 // The quoted line and the caret line under it. Tabs in the source are kept in
 // the caret line so the caret stays aligned in any terminal.
 void quote_line(std::string& out, std::string_view line, const SourceRange& where) {
@@ -97,11 +109,7 @@ void quote_line(std::string& out, std::string_view line, const SourceRange& wher
     std::size_t shown_col = col - first;
     width = std::max<std::size_t>(
         1, std::min(width, line.size() > shown_col ? line.size() - shown_col : 1));
-    std::string shown(line);
-    for (char& c : shown) {
-        if (static_cast<unsigned char>(c) < 0x20 && c != '\t')
-            c = '?';  // keep terminals sane
-    }
+    std::string shown = printable(line);
     out += "    " + prefix + shown + suffix + "\n    " + std::string(prefix.size(), ' ');
     for (std::size_t i = 0; i < shown_col; ++i)
         out += line[i] == '\t' ? '\t' : ' ';
@@ -112,8 +120,8 @@ void quote_line(std::string& out, std::string_view line, const SourceRange& wher
 
 void render_one(std::string& out, const Diagnostic& d, const SourceMap& sources) {
     const SourceFile& file = sources.file(d.where.file);
-    out += fmt::format("{}:{}:{}: {}: {}\n", file.name, d.where.begin.line, d.where.begin.column,
-                       severity_word(d.severity), d.message);
+    out += fmt::format("{}:{}:{}: {}: {}\n", printable(file.name), d.where.begin.line,
+                       d.where.begin.column, severity_word(d.severity), printable(d.message));
     quote_line(out, sources.line_text(d.where.file, d.where.begin.line), d.where);
     for (const Diagnostic& note : d.notes)
         render_one(out, note, sources);
@@ -152,7 +160,7 @@ std::size_t edit_distance(std::string_view a, std::string_view b) {
 std::string render(const Diagnostics& diagnostics, const SourceMap& sources) {
     std::string out;
     for (const std::string& message : diagnostics.unplaced())
-        out += "firn: error: " + message + "\n";
+        out += "firn: error: " + printable(message) + "\n";
     std::vector<const Diagnostic*> sorted;
     for (const Diagnostic& d : diagnostics.all())
         sorted.push_back(&d);

@@ -38,6 +38,8 @@ class SourceMap {
     /// Adds a file and returns its id.
     FileId add(std::string name, std::string text);
     const SourceFile& file(FileId id) const { return files_.at(id); }
+    /// How many files it holds; their ids are 0 .. count - 1.
+    std::size_t count() const { return files_.size(); }
     /// The text of the line `line` (1-based) of `id`, without its end of line.
     std::string_view line_text(FileId id, std::uint32_t line) const;
     /// Line and column of the byte `offset` of `id`.

@@ -8,6 +8,7 @@
 #include <cerrno>
 #include <cstdio>
 #include <cstring>
+#include <filesystem>
 
 namespace firn {
 namespace {
@@ -21,10 +22,31 @@ std::string reason() {
     return std::strerror(errno);
 }
 
+std::string too_large(const std::string& what) {
+    return fmt::format("cannot read {}: larger than {} MiB, too large for a model", what,
+                       kMaxModelBytes / kMebibyte);
+}
+
+/// The file a path names, its links followed (also a link to a file not yet made), so
+/// that writing replaces that file and keeps the link.
+std::string resolved(const std::string& path) {
+    namespace fs = std::filesystem;
+    fs::path p = path;
+    std::error_code ec;
+    for (int hops = 0; hops < 40 && fs::is_symlink(p, ec); ++hops) {
+        fs::path target = fs::read_symlink(p, ec);
+        if (ec)
+            break;
+        p = target.is_absolute() ? target : p.parent_path() / target;
+    }
+    return p.string();
+}
+
 }  // namespace
 
 bool read_file(const std::string& path, std::string& text, std::string& error) {
-    int fd = ::open(path.c_str(), O_RDONLY | O_CLOEXEC);
+    // O_NONBLOCK: opening a FIFO with no writer must not wait; it is refused below.
+    int fd = ::open(path.c_str(), O_RDONLY | O_CLOEXEC | O_NONBLOCK);
     if (fd < 0) {
         error = fmt::format("cannot read '{}': {}", path, reason());
         return false;
@@ -36,8 +58,7 @@ bool read_file(const std::string& path, std::string& text, std::string& error) {
         return false;
     }
     if (info.st_size > kMaxModelBytes) {
-        error = fmt::format("cannot read '{}': larger than {} MiB, too large for a model", path,
-                            kMaxModelBytes / kMebibyte);
+        error = too_large(fmt::format("'{}'", path));
         ::close(fd);
         return false;
     }
@@ -56,6 +77,33 @@ bool read_file(const std::string& path, std::string& text, std::string& error) {
     return true;
 }
 
+bool read_standard_input(std::string& text, std::string& error) {
+    char buffer[65536];
+    for (;;) {
+        ssize_t n = ::read(STDIN_FILENO, buffer, sizeof buffer);
+        if (n < 0 && errno == EINTR)
+            continue;
+        if (n < 0) {
+            error = fmt::format("cannot read standard input: {}", reason());
+            return false;
+        }
+        if (n == 0)
+            return true;
+        if (text.size() + static_cast<std::size_t>(n) > static_cast<std::size_t>(kMaxModelBytes)) {
+            error = too_large("standard input");
+            return false;
+        }
+        text.append(buffer, static_cast<std::size_t>(n));
+    }
+}
+
+bool same_file(const std::string& a, const std::string& b) {
+    struct stat x {
+    }, y{};
+    return ::stat(a.c_str(), &x) == 0 && ::stat(b.c_str(), &y) == 0 && x.st_dev == y.st_dev &&
+           x.st_ino == y.st_ino;
+}
+
 AtomicFile::~AtomicFile() {
     if (fd_ >= 0)
         ::close(fd_);
@@ -64,8 +112,21 @@ AtomicFile::~AtomicFile() {
 }
 
 bool AtomicFile::open(const std::string& path, std::string& error) {
-    path_ = path;
-    temp_ = path + ".firn-XXXXXX";
+    shown_ = path;
+    path_ = resolved(path);
+    struct stat info {};
+    if (::stat(path_.c_str(), &info) == 0 && !S_ISREG(info.st_mode)) {
+        if (S_ISDIR(info.st_mode)) {
+            error = fmt::format("cannot write '{}': it is a folder", path);
+            return false;
+        }
+        // A FIFO or a device: write to it as it is; renaming over it would destroy it.
+        fd_ = ::open(path_.c_str(), O_WRONLY | O_CLOEXEC);
+        if (fd_ < 0)
+            error = fmt::format("cannot write '{}': {}", path, reason());
+        return fd_ >= 0;
+    }
+    temp_ = path_ + ".firn-XXXXXX";
     fd_ = ::mkstemp(temp_.data());
     if (fd_ < 0) {
         error = fmt::format("cannot write '{}': {}", path, reason());
@@ -92,19 +153,22 @@ void AtomicFile::write(std::string_view data) {
 }
 
 bool AtomicFile::commit(std::string& error) {
-    if (write_errno_ == 0 && ::fsync(fd_) != 0)
+    bool direct = temp_.empty();
+    if (write_errno_ == 0 && !direct && ::fsync(fd_) != 0)
         write_errno_ = errno;
     if (::close(fd_) != 0 && write_errno_ == 0)
         write_errno_ = errno;
     fd_ = -1;
-    // mkstemp creates the file 0600; give it the permissions of a normal new file.
-    mode_t mask = ::umask(0);
-    ::umask(mask);
-    ::chmod(temp_.c_str(), 0666 & ~mask);
-    if (write_errno_ == 0 && ::rename(temp_.c_str(), path_.c_str()) != 0)
-        write_errno_ = errno;
+    if (!direct) {
+        // mkstemp creates the file 0600; give it the permissions of a normal new file.
+        mode_t mask = ::umask(0);
+        ::umask(mask);
+        ::chmod(temp_.c_str(), 0666 & ~mask);
+        if (write_errno_ == 0 && ::rename(temp_.c_str(), path_.c_str()) != 0)
+            write_errno_ = errno;
+    }
     if (write_errno_ != 0) {
-        error = fmt::format("cannot write '{}': {}", path_, std::strerror(write_errno_));
+        error = fmt::format("cannot write '{}': {}", shown_, std::strerror(write_errno_));
         return false;  // the destructor removes the temporary file
     }
     temp_.clear();

@@ -44,7 +44,7 @@ struct Outcome {
 
 void print(const std::vector<Outcome>& outcomes) {
     for (const Outcome& o : outcomes) {
-        std::fputs(o.out.c_str(), stdout);
+        write_stdout(o.out);
         std::fflush(stdout);
         std::fputs(o.err.c_str(), stderr);
     }

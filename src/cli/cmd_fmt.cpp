@@ -1,6 +1,8 @@
 // cmd_fmt: `firn fmt [--check] [--stdout] FILE...` rewrites model files in the
-// canonical layout (src/format.hpp); `-` formats standard input to standard output.
+// canonical layout (src/format/format.hpp); `-` formats standard input to standard output.
+#include <fmt/format.h>
 #include <sys/stat.h>
+#include <unistd.h>
 #include <CLI/CLI.hpp>
 #include <cstdio>
 #include <filesystem>
@@ -39,18 +41,6 @@ void error(const std::string& message) {
     std::fprintf(stderr, "firn: error: %s\n", message.c_str());
 }
 
-bool read_stdin(std::string& text) {
-    char buffer[65536];
-    std::size_t n = 0;
-    while ((n = std::fread(buffer, 1, sizeof buffer, stdin)) > 0)
-        text.append(buffer, n);
-    return std::ferror(stdin) == 0;
-}
-
-void write_stdout(const std::string& text) {
-    std::fwrite(text.data(), 1, text.size(), stdout);
-}
-
 /// Rewrites `path` in place, atomically, keeping its permissions; a link is
 /// followed so that the file it names is rewritten, not the link replaced.
 bool rewrite(const std::string& path, const std::string& text) {
@@ -60,6 +50,14 @@ bool rewrite(const std::string& path, const std::string& text) {
         target = std::filesystem::canonical(path, ec).string();
     struct stat info {};
     bool had_mode = ::stat(target.c_str(), &info) == 0;
+    // As editors do, a file its owner made read-only is not rewritten.
+    if (::access(target.c_str(), W_OK) != 0 || (had_mode && (info.st_mode & 0222) == 0)) {
+        error(
+            fmt::format("'{}' is read-only; it was left as it is (make it writable to "
+                        "format it, or use --stdout)",
+                        path));
+        return false;
+    }
     std::string message;
     if (!write_file_atomically(target, text, message)) {
         error(message);
@@ -94,8 +92,8 @@ void format_one(const FmtArgs& args, const std::string& path, Outcome& outcome) 
     bool from_stdin = path == "-";
     std::string name = from_stdin ? "<stdin>" : path;
     std::string text, message;
-    if (from_stdin ? !read_stdin(text) : !read_file(path, text, message)) {
-        error(from_stdin ? "cannot read standard input" : message);
+    if (from_stdin ? !read_standard_input(text, message) : !read_file(path, text, message)) {
+        error(message);
         outcome.model_error = true;
         return;
     }
@@ -130,8 +128,6 @@ int run_fmt(const FmtArgs& args) {
     Outcome outcome;
     for (const std::string& path : args.files)
         format_one(args, path, outcome);
-    if (std::fflush(stdout) != 0)
-        outcome.internal_error = true;
     return outcome.status();
 }
 

@@ -24,11 +24,29 @@ struct RunArgs {
 /// Points per member in the full report: the ends and every tenth between.
 constexpr std::size_t kStationsPerMember = 11;
 
+/// The file of the run that `output` would overwrite (the model, a used file), if any.
+const SourceFile* input_at(const SourceMap& sources, const std::string& output) {
+    for (std::size_t i = 0; i < sources.count(); ++i) {
+        const SourceFile& f = sources.file(static_cast<FileId>(i));
+        if (same_file(f.name, output))
+            return &f;
+    }
+    return nullptr;
+}
+
 int run(const RunArgs& args) {
     Analysis a = analyse_file(args.model, nullptr, imports_from(args.stdlib));
     std::string messages = render(a.diagnostics, a.sources);
     if (!a.ok) {
         std::fputs(messages.c_str(), stderr);
+        return exit_model_error;
+    }
+    if (const SourceFile* input =
+            args.output.empty() ? nullptr : input_at(a.sources, args.output)) {
+        std::fprintf(stderr,
+                     "firn: error: the report would overwrite '%s', an input of this run; give "
+                     "-o another file\n",
+                     input->name.c_str());
         return exit_model_error;
     }
 
@@ -48,10 +66,8 @@ int run(const RunArgs& args) {
     };
     int status = exit_ok;
     if (args.output.empty()) {
-        write_report(
-            [](std::string_view piece) { std::fwrite(piece.data(), 1, piece.size(), stdout); });
-        if (std::fflush(stdout) != 0)
-            status = exit_internal;
+        // A failed write to standard output is reported once, by main.
+        write_report(write_stdout);
     } else {
         AtomicFile file;
         std::string error;

@@ -1,11 +1,19 @@
 // commands: the subcommands of the firn executable, one file each (cmd_*.cpp).
 #pragma once
 
+#include <string_view>
+
 namespace CLI {
 class App;
 }
 
 namespace firn {
+
+/// Writes to standard output; a failed write is remembered for stdout_error().
+void write_stdout(std::string_view text);
+
+/// The errno of the first write_stdout that failed, 0 if none has.
+int stdout_error();
 
 /// Exit statuses of the firn executable.
 enum ExitStatus : int {

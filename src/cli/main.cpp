@@ -1,7 +1,9 @@
 // firn: compile a frame model, analyse it, print deterministic results.
 // A thin driver: each subcommand lives in its own cmd_*.cpp.
 #include <CLI/CLI.hpp>
+#include <cerrno>
 #include <cstdio>
+#include <cstring>
 #include <exception>
 #include <string>
 #include <vector>
@@ -52,12 +54,26 @@ int run_command(int argc, char** argv) {
     return status;
 }
 
+/// A report lost on the way out (a full disk, a closed pipe) is an error the user must
+/// see, whatever the command made of it: exit 2 with the reason.
+int with_output_checked(int status) {
+    errno = 0;
+    bool failed = std::fflush(stdout) != 0;
+    int cause = firn::stdout_error() != 0 ? firn::stdout_error() : errno;
+    failed = std::ferror(stdout) != 0 || failed;
+    if (!failed)
+        return status;
+    std::fprintf(stderr, "firn: error: cannot write standard output: %s\n",
+                 std::strerror(cause != 0 ? cause : EIO));
+    return firn::exit_model_error;
+}
+
 }  // namespace
 
 int main(int argc, char** argv) {
     // Anything that escapes a command is a bug in firn, never the user's: say so, exit 3.
     try {
-        return run_command(argc, argv);
+        return with_output_checked(run_command(argc, argv));
     } catch (const std::exception& e) {
         std::fprintf(stderr, "firn: internal error (please report this): %s\n", e.what());
     } catch (...) {

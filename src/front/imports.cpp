@@ -16,6 +16,10 @@ namespace {
 
 namespace fs = std::filesystem;
 
+/// How deep `use` may nest: far beyond any model's library of shared parts, and
+/// well within the stack (each level holds a parse in progress).
+constexpr std::size_t kMaxUseDepth = 100;
+
 /// The name messages give a built-in library module.
 std::string builtin_name(const std::string& module) {
     return fmt::format("<stdlib>/{}.firn", module);
@@ -66,12 +70,23 @@ class Loader {
     }
 
     void follow(const syntax::UseDecl& use, FileId from, bool from_library) {
+        if (chain_.size() >= kMaxUseDepth) {
+            diagnostics_.error(use.module ? use.module->where : use.path_where,
+                               fmt::format("files are used more than {} deep here; a chain of "
+                                           "'use' may be at most {} files long",
+                                           kMaxUseDepth, kMaxUseDepth));
+            return;
+        }
         if (use.module) {
             load_module(*use.module);
             return;
         }
         if (from_library && !options_.stdlib_dir) {
             diagnostics_.error(use.path_where, "a built-in library module uses only other modules");
+            return;
+        }
+        if (use.path.find('\0') != std::string::npos) {
+            diagnostics_.error(use.path_where, "a file name cannot hold a NUL byte");
             return;
         }
         fs::path here = fs::path(sources_.file(from).name).parent_path();
