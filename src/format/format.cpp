@@ -168,7 +168,10 @@ class FilePrinter {
         if (const auto* roof = std::get_if<syntax::RoofDecl>(&s.node))
             return settings_block(roof->members.back(), roof->settings);
         if (const auto* combine = std::get_if<syntax::CombineDecl>(&s.node)) {
-            if (combine->settings.empty())
+            // `combine S` and `combine S { }` are both complete; an empty block is kept.
+            std::size_t brace = source_.find('{', combine->sets.back().where.end.offset);
+            if (combine->settings.empty() &&
+                (brace == std::string_view::npos || brace >= s.where.end.offset))
                 return std::nullopt;
             return settings_block(combine->sets.back(), combine->settings);
         }

@@ -61,6 +61,12 @@ TEST_CASE("fmt: statements joined by semicolons go on lines of their own") {
           "case D dead {\n  self weight\n  uniform 1 kip/ft down on B1\n}\n");
 }
 
+TEST_CASE("fmt: an empty combine block is kept as a block, a combine without one stays so") {
+    // `combine S { }` runs (the block is optional); formatting it once ended in exit 3.
+    CHECK(formatted("combine asce7_16.strength {   }\n") == "combine asce7_16.strength {\n}\n");
+    CHECK(formatted("combine asce7_16.strength\n") == "combine asce7_16.strength\n");
+}
+
 TEST_CASE("fmt: spacing between words, around '=', ',' and operators") {
     CHECK(formatted("node   N1\tat x=0 ft ,y =  12 ft\n") == "node N1 at x = 0 ft, y = 12 ft\n");
     CHECK(formatted("let a = (b+2 ft)*c/ -d - 3ft\n") == "let a = (b + 2 ft) * c / -d - 3 ft\n");
