@@ -103,6 +103,16 @@ bool write_drawings(const std::string& folder_name, const std::vector<OutputFile
     std::vector<std::string> earlier;
     if (has_manifest)
         earlier = read_manifest(folder);
+    // The list first names every file this run may leave, so a run that fails half way
+    // still leaves a folder the next run knows as its own.
+    std::set<std::string> mine(earlier.begin(), earlier.end());
+    for (const OutputFile& f : files)
+        mine.insert(f.path);
+    std::string during = kManifestHeader;
+    for (const std::string& path : mine)
+        during += path + "\n";
+    if (!write_file_atomically((folder / kDrawingsManifest).string(), during, error))
+        return false;
     std::set<std::string> now;
     std::string manifest = kManifestHeader;
     for (const OutputFile& f : files) {

@@ -76,6 +76,18 @@ TEST_CASE("a second run replaces its own files and removes the sheets it no long
     CHECK(contents(t.path / "loads" / "mine.svg") == "mine");
 }
 
+TEST_CASE("a run that fails half way leaves a folder the next run takes as its own", "[draw]") {
+    TempFolder t;
+    std::string error;
+    // The third file cannot be written: a folder the second made stands in its way.
+    CHECK_FALSE(write_drawings(t.path.string(), {{"a.svg", "A"}, {"sub/b.svg", "B"}, {"sub", "C"}},
+                               false, error));
+    CHECK(error.find("a folder of that name is in the way") != std::string::npos);
+    REQUIRE(write_drawings(t.path.string(), {{"a.svg", "A2"}}, false, error));
+    CHECK(contents(t.path / "a.svg") == "A2");
+    CHECK_FALSE(fs::exists(t.path / "sub" / "b.svg"));
+}
+
 TEST_CASE("a list naming paths outside the folder removes nothing there", "[draw]") {
     TempFolder t;
     fs::create_directories(t.path / "out");
