@@ -7,6 +7,7 @@
 #include <cstdio>
 #include <memory>
 
+#include "base/number_format.hpp"
 #include "cli/cmd_batch.hpp"
 #include "cli/commands.hpp"
 #include "driver/driver.hpp"
@@ -24,7 +25,8 @@ struct CheckArgs {
 /// keeps the models' order.
 struct ModelCheck {
     std::string out, err;
-    std::size_t passed = 0, failed = 0;
+    std::size_t passed = 0, failed = 0;                          ///< expectations
+    std::size_t deflections_passed = 0, deflections_failed = 0;  ///< deflection limits
     bool model_error = false;
 };
 
@@ -44,6 +46,32 @@ std::string outcome_line(const Analysis& a, const Expectation& x, const Finding&
     if (!x.reason.empty())
         line += fmt::format(" (because \"{}\")", x.reason);
     return line + "\n";
+}
+
+std::string shown(const DisplayUnit& unit, double si) {
+    std::string out;
+    append_fixed(out, unit.from_si(si), unit.decimals);
+    return out + " " + unit.name;
+}
+
+/// A deflection limit the model states (`deflection MEMBERS limit ROW`) is checked as an
+/// expectation is: one line per member and load column.
+std::string deflection_line(const Analysis& a, const DeflectionCheck& c, const char* verdict) {
+    const DisplayUnit& u = a.model.units.displacement;
+    const DeflectionLimits& limits = a.model.deflection_limits[c.limits];
+    return fmt::format("{}: {}: deflection of {} ({}) <= l/{:g} = {}: {} under {}; ratio {:.3f}\n",
+                       place_of(a.sources, limits.where), verdict,
+                       a.model.members[at(c.member)].name, c.column, c.n, shown(u, c.span / c.n),
+                       shown(u, c.deflection), c.governing, c.ratio());
+}
+
+void check_deflection_limits(const Analysis& a, const CheckArgs& args, ModelCheck& result) {
+    for (const DeflectionCheck& c : a.deflections) {
+        bool ok = c.passes();
+        ++(ok ? result.deflections_passed : result.deflections_failed);
+        if (!ok || args.verbose)
+            result.out += deflection_line(a, c, ok ? "passed" : "failed");
+    }
 }
 
 ModelCheck check_model(const std::string& path, const CheckArgs& args) {
@@ -66,6 +94,7 @@ ModelCheck check_model(const std::string& path, const CheckArgs& args) {
         for (const Finding& f : o.failures)
             result.out += outcome_line(a, x, f, "failed");
     }
+    check_deflection_limits(a, args, result);
     return result;
 }
 
@@ -76,12 +105,14 @@ int check(const CheckArgs& args) {
     std::vector<ModelCheck> results =
         run_each<ModelCheck>(models->size(), args.batch.jobs,
                              [&](std::size_t i) { return check_model((*models)[i], args); });
-    std::size_t passed = 0, failed = 0, broken = 0;
+    std::size_t passed = 0, failed = 0, broken = 0, d_passed = 0, d_failed = 0;
     for (const ModelCheck& r : results) {
         std::fputs(r.err.c_str(), stderr);
         write_stdout(r.out);
         passed += r.passed;
         failed += r.failed;
+        d_passed += r.deflections_passed;
+        d_failed += r.deflections_failed;
         broken += r.model_error ? 1U : 0U;
     }
     if (broken > 0)
@@ -89,8 +120,11 @@ int check(const CheckArgs& args) {
                      "firn: %zu of %zu models have errors; their expectations were not "
                      "checked\n",
                      broken, results.size());
-    std::printf("%zu passed, %zu failed\n", passed, failed);
-    return broken > 0 ? exit_model_error : failed > 0 ? exit_check_failed : exit_ok;
+    std::printf("expectations: %zu passed, %zu failed\n", passed, failed);
+    std::printf("deflection limits: %zu passed, %zu failed\n", d_passed, d_failed);
+    std::printf("%zu passed, %zu failed\n", passed + d_passed, failed + d_failed);
+    bool any_failed = failed + d_failed > 0;
+    return broken > 0 ? exit_model_error : any_failed ? exit_check_failed : exit_ok;
 }
 
 }  // namespace
