@@ -19,6 +19,7 @@ struct RunArgs {
     std::string output;
     std::string stdlib;
     bool full = false;
+    bool exact_numbers = false;
 };
 
 /// Points per member in the full report: the ends and every tenth between.
@@ -53,6 +54,7 @@ int run(const RunArgs& args) {
     Stations stations;
     ReportOptions options = report_options(a);
     options.full = args.full;
+    options.exact_numbers = args.exact_numbers;
     if (args.full) {
         stations = compute_stations(a.model, a.loads, a.solution, kStationsPerMember);
         options.stations = &stations;
@@ -97,6 +99,9 @@ void add_run_command(CLI::App& app, int& status) {
     cmd->add_flag("--full", args->full,
                   "Also print every node's displacements, member end forces and member stations "
                   "(values at tenths of each member)");
+    cmd->add_flag("--exact-numbers", args->exact_numbers,
+                  "JSON: write every number unrounded, as the shortest text that reads back to "
+                  "the same double (for checking firn with other tools)");
     cmd->add_option("-o,--output", args->output,
                     "Write the report to this file (atomically) instead of standard output");
     add_stdlib_option(cmd, args->stdlib);

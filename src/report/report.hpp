@@ -28,6 +28,10 @@ struct ReportOptions {
     const std::vector<DeflectionCheck>* deflections = nullptr;
     const Mirror* mirror = nullptr;  ///< which cases and members mirror which
     const std::vector<ExpectationOutcome>* expectations = nullptr;  ///< per `expect`
+    /// JSON: every number unrounded, as the shortest text that reads back to the same
+    /// double, so other tools can check firn to round-off (the default rounds two
+    /// decimals finer than the text report).
+    bool exact_numbers = false;
 };
 
 /// Receives a report piece by piece (a piece per load case at most), so a

@@ -15,9 +15,26 @@ using Json = nlohmann::ordered_json;
 /// Bumped whenever a key changes meaning or goes away.
 constexpr int kJsonFormat = 1;
 
+/// Set for the length of one write_json_report that asked for exact numbers. A flag
+/// rather than a parameter of every writer below: the choice is the same for every
+/// number of one report, and each thread writes its own report.
+thread_local bool exact_numbers = false;
+
 double shown(double si_value, const DisplayUnit& unit) {
-    return round_to(unit.from_si(si_value), unit.decimals + 2);
+    double value = unit.from_si(si_value);
+    if (exact_numbers)
+        return value == 0.0 ? 0.0 : value;  // never -0
+    return round_to(value, unit.decimals + 2);
 }
+
+/// Sets exact_numbers for its lifetime.
+struct ExactNumbers {
+    bool before = exact_numbers;
+    explicit ExactNumbers(bool on) { exact_numbers = on; }
+    ExactNumbers(const ExactNumbers&) = delete;
+    ExactNumbers& operator=(const ExactNumbers&) = delete;
+    ~ExactNumbers() { exact_numbers = before; }
+};
 
 Json units_json(const DisplayUnits& u) {
     return Json{{"force", u.force.name},
@@ -317,6 +334,7 @@ Json checks_json(const Model& model, const ReportOptions& options) {
 
 void write_json_report(const Model& model, const Results& results, const ReportOptions& options,
                        const ReportSink& sink) {
+    ExactNumbers precision(options.exact_numbers);
     // The root object is written by hand around the cases, so that each case
     // is built, written and freed in turn: a DOM of a large run would not fit
     // in memory. The layout is the one Json::dump(1) would give.
@@ -326,6 +344,8 @@ void write_json_report(const Model& model, const Results& results, const ReportO
               {"caution", kCaution},
               {"units", units_json(model.units)},
               {"model", model_json(model)}};
+    if (options.exact_numbers)
+        head["numbers"] = "exact: unrounded, the shortest text that reads back to the same double";
     if (!model.snow_trace.empty())
         head["snow_trace"] = snow_trace_json(model);
     std::string text = head.dump(1, ' ', false, Json::error_handler_t::replace);

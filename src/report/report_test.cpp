@@ -72,6 +72,35 @@ TEST_CASE("a one-line change to a load changes only that case's lines") {
     CHECK(differing < 15);
 }
 
+TEST_CASE("exact JSON numbers read back to the unrounded values") {
+    // A simple beam of 7 m under 1 kN/m, reported in kip*ft: M = wL^2/8 = 6.125 kN*m
+    // (statics, common practice) = 6125 / (4.4482216152605 x 304.8) kip*ft, with the exact
+    // definitions of the pound-force and the foot (NIST SP 811, Appendix B).
+    const char* beam = R"(model "Exact numbers"
+report units kip, ft
+node A at x = 0 m, y = 0 m
+node B at x = 7 m, y = 0 m
+material steel E = 200 GPa
+section s steel, A = 0.01 m2, I = 1e-4 m4
+member AB from A to B section s
+support pinned at A
+support roller at B
+case D dead { uniform 1 kN/m down on AB }
+)";
+    Analysis a = analyse_text("beam.firn", beam);
+    REQUIRE(a.ok);
+    ReportOptions exact;
+    exact.exact_numbers = true;
+    auto j = nlohmann::json::parse(json_report(a.model, a.results, exact));
+    auto rounded = nlohmann::json::parse(json_report(a.model, a.results, {}));
+    double expected = 6125.0 / (4.4482216152605 * 304.8);
+    double m = j["cases"][0]["members"][0]["moment_max"]["value"].get<double>();
+    CHECK(std::abs(m - expected) <= 1e-12 * expected);
+    CHECK(rounded["cases"][0]["members"][0]["moment_max"]["value"].get<double>() == 4.51757);  // 3 + 2 decimals
+    CHECK(j["numbers"].get<std::string>().rfind("exact", 0) == 0);
+    CHECK_FALSE(rounded.contains("numbers"));
+}
+
 TEST_CASE("the JSON report states units and matches the analysis") {
     auto j = nlohmann::json::parse(report_of(kFrame, true));
     CHECK(j["format"] == 1);
