@@ -158,22 +158,11 @@ bool starts_line(const char* at, const char* begin) {
     return at == begin || at[-1] == '\n';
 }
 
-/// True if the text at `at` begins with a keyword that starts a top-level statement.
+/// True if the text at `at` begins with a keyword that starts a top-level statement
+/// (`statement_start` is derived from the grammar's own list of statements).
 bool starts_statement(const char* at, const char* end) {
-    static constexpr std::array<std::string_view, 24> words{
-        "snow",    "roof",    "projection", "amend",    "combinations", "combine",
-        "pattern", "arrange", "deflection", "model",    "use",          "let",
-        "report",  "grid",    "node",       "material", "section",      "member",
-        "columns", "beams",   "rafters",    "group",    "support",      "case"};
-    for (std::string_view w : words) {
-        if (static_cast<std::size_t>(end - at) < w.size())
-            continue;
-        bool word_ends =
-            static_cast<std::size_t>(end - at) == w.size() || !is_word_char(at[w.size()]);
-        if (std::string_view(at, w.size()) == w && word_ends)
-            return true;
-    }
-    return false;
+    pegtl::memory_input in(at, end, "");
+    return pegtl::parse<g::statement_start>(in);
 }
 
 /// Keywords a message names, for a "did you mean" on a misspelt keyword.
