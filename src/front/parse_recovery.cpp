@@ -4,7 +4,6 @@
 // a hint when a block whose '}' is missing runs into the next statement.
 #include <fmt/format.h>
 #include <algorithm>
-#include <array>
 
 #include "front/parse_builder.hpp"
 #include "grammar/errors.hpp"
