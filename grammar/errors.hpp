@@ -1,4 +1,4 @@
-// Messages for the grammar's error points. src/parse.cpp adds what was found
+// Messages for the grammar's error points. src/front/parse_recovery.cpp adds what was found
 // ("found 'x'") and a "did you mean" drawn from the keywords a message names.
 #pragma once
 

@@ -1,6 +1,6 @@
-// The firn grammar: PEGTL rules only (actions live in src/parse.cpp, messages in
+// The firn grammar: PEGTL rules only (actions live in src/front/parse_*, messages in
 // grammar/errors.hpp). Each rule carries its production as a comment. Only
-// src/parse.cpp and the grammar tests include this header.
+// src/front/ and the grammar tests include this header.
 //
 // Statements end at a line break or ';'. A line may break after ',', after an
 // operator and inside parentheses. '#' starts a comment that runs to the end of
@@ -695,6 +695,17 @@ struct statement : sor<model_stmt, use_stmt, let_stmt, report_stmt, grid_stmt, n
                        projection_stmt, amend_stmt, combinations_stmt, combine_stmt,
                        pattern_stmt, arrange_stmt, deflection_stmt, expect_stmt,
                        raise<unknown_statement>> {};
+// statement_start <- the keyword any statement of `statement` begins with
+//                taken from the rule itself, so that error recovery's question "does this
+//                line open a new statement?" cannot drift from the statements there are
+template <typename Parts> struct first_part_of { using type = failure; };  // raise<>: no parts
+template <typename First, typename... Rest>
+struct first_part_of<type_list<First, Rest...>> { using type = First; };
+template <typename Alternatives> struct first_words;
+template <typename... Statements>
+struct first_words<type_list<Statements...>>
+    : sor<typename first_part_of<typename Statements::subs_t>::type...> {};
+struct statement_start : first_words<statement::subs_t> {};
 struct statement_line : seq<statement, sp, must<end_of_statement>> {};
 struct top_item : seq<not_at<eof>, recover<statement_line, skip_statement>, sp_nl> {};
 // file        <- sp_nl top_item* eof

@@ -3,6 +3,8 @@
 
 #include <fmt/format.h>
 #include <array>
+#include <charconv>
+#include <cmath>
 #include <numbers>
 
 namespace firn {
@@ -96,6 +98,26 @@ constexpr std::array<Unit, 25> kUnits{{
     {"deg", std::numbers::pi / 180.0, dim::number},
 }};
 
+/// One `NAME` or `NAME^N` factor of a written unit.
+bool unit_factor(std::string_view text, double& to_si, Dimension& dimension) {
+    int exponent = 1;
+    std::size_t caret = text.find('^');
+    if (caret != std::string_view::npos) {
+        std::string_view digits = text.substr(caret + 1);
+        auto [ptr, ec] = std::from_chars(digits.data(), digits.data() + digits.size(), exponent);
+        if (ec != std::errc() || ptr != digits.data() + digits.size() || exponent < 1 ||
+            exponent > 4)
+            return false;
+        text = text.substr(0, caret);
+    }
+    const Unit* unit = find_unit(text);
+    if (unit == nullptr)
+        return false;
+    to_si = std::pow(unit->to_si, exponent);
+    dimension = power(unit->dimension, exponent);
+    return true;
+}
+
 /// The size of a unit of the table (the caller knows it is there).
 double unit_size(std::string_view name) {
     return find_unit(name)->to_si;
@@ -165,6 +187,27 @@ const Unit* find_unit(std::string_view name) {
             return &u;
     }
     return nullptr;
+}
+
+bool parse_unit(std::string_view text, double& to_si, Dimension& dimension) {
+    to_si = 1.0;
+    dimension = dim::number;
+    if (text.empty())
+        return true;
+    bool divide = false;
+    while (true) {
+        std::size_t op = text.find_first_of("*/");
+        double size = 0.0;
+        Dimension d;
+        if (!unit_factor(text.substr(0, op), size, d))
+            return false;
+        to_si = divide ? to_si / size : to_si * size;
+        dimension = divide ? dimension / d : dimension * d;
+        if (op == std::string_view::npos)
+            return true;
+        divide = text[op] == '/';
+        text = text.substr(op + 1);
+    }
 }
 
 std::vector<std::string> unit_names() {

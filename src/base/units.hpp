@@ -48,6 +48,11 @@ struct Unit {
 const Unit* find_unit(std::string_view name);
 /// Every unit name, for "did you mean" and for the editor highlighters.
 std::vector<std::string> unit_names();
+/// A unit as a report writes it (`kip*ft`, `kN/m^3`, `in^4`): factors of the table
+/// joined by '*' or '/', each with an optional power `^1` to `^4`, no spaces; "" is a
+/// plain number. Sets its size in SI and its dimension; false if a part is not a
+/// unit of the table. (Model text is read by the grammar, which knows more forms.)
+bool parse_unit(std::string_view text, double& to_si, Dimension& dimension);
 
 /// A unit chosen for display: a spelling, its size in SI, and the fixed number of
 /// decimals every value in it is printed with.

@@ -42,3 +42,18 @@ TEST_CASE("display units follow from a force and a length unit") {
     CHECK(u.unit_weight.to_si == Approx(1000.0));
     CHECK_FALSE(make_display_units("psf", "ft", "", u));
 }
+
+TEST_CASE("a written unit is read with the factors of the table") {
+    double to_si = 0.0;
+    Dimension d;
+    // ksi is kip/in^2 and pcf is lb/ft^3 by their definitions (tests/SOURCES.md).
+    REQUIRE(parse_unit("kip/in^2", to_si, d));
+    CHECK(to_si == Approx(find_unit("ksi")->to_si).epsilon(1e-15));
+    CHECK(d == dim::pressure);
+    REQUIRE(parse_unit("lb/ft^3", to_si, d));
+    CHECK(to_si == Approx(find_unit("pcf")->to_si).epsilon(1e-15));
+    CHECK(d == dim::unit_weight);
+    CHECK_FALSE(parse_unit("ft^5", to_si, d));
+    CHECK_FALSE(parse_unit("kip ft", to_si, d));
+    CHECK_FALSE(parse_unit("furlong", to_si, d));
+}

@@ -63,10 +63,6 @@ std::optional<Baseline> read_baseline(std::string_view text, const std::string& 
 /// text is not a baseline at all (so that `update` never overwrites another file).
 std::optional<int> baseline_format_of(std::string_view text);
 
-/// A unit as a report writes it (`kip*ft`, `kN/m^3`, `in`): its size in SI and
-/// its dimension; "" is a plain number. False if a part is not a known unit.
-bool parse_unit(std::string_view text, double& to_si, Dimension& dimension);
-
 /// A value moved when |new - old| > max(floor of its kind, relative * |old|).
 struct Tolerances {
     double relative = 1e-4;  ///< 0.01 %

@@ -1,9 +1,11 @@
 // Tests of the parser: the tree it builds and its syntax errors, asserted by
 // exact message, line and column.
+#include <fmt/format.h>
 #include <catch2/catch.hpp>
 #include <tao/pegtl/contrib/analyze.hpp>
 
 #include "front/front.hpp"
+#include "grammar/errors.hpp"
 #include "grammar/grammar.hpp"
 #include "testing/test_text.hpp"
 
@@ -125,6 +127,40 @@ TEST_CASE("an unclosed case block is reported once, at its '{' or where it runs 
           "input:3:1: error: expected a load (uniform, linear, point, moment or self weight) or "
           "'}', found "
           "'grid' (a reserved word) (is the '}' of the case block opened at line 1 missing?)");
+}
+
+TEST_CASE("an unclosed block before an `expect` line gets the missing '}' hint") {
+    // `expect` is a contextual keyword, so it is found as a word, not a reserved one.
+    CHECK(messages_for("case L live {\n  uniform 3 kip/ft down on M1\nexpect moment of M1 <= 10 "
+                       "kip*ft\n") ==
+          "input:3:1: error: expected a load (uniform, linear, point, moment or self weight) or "
+          "'}', found 'expect' (is the '}' of the case block opened at line 1 missing?)\n"
+          "    expect moment of M1 <= 10 kip*ft\n"
+          "    ^~~~~~\n");
+}
+
+TEST_CASE("the words that start a statement are the ones the unknown-statement message lists") {
+    std::string_view listed = grammar::errors::message<grammar::unknown_statement>;
+    auto named = [&](std::string_view word) {
+        for (std::string_view sep : {"(", ", ", " or "}) {
+            std::size_t at = listed.find(fmt::format("{}{}", sep, word));
+            std::size_t after = at + sep.size() + word.size();
+            if (at != std::string_view::npos &&
+                (listed[after] == ',' || listed[after] == ' ' || listed[after] == ')'))
+                return true;
+        }
+        return false;
+    };
+    std::vector<std::string_view> words(grammar::keywords.begin(), grammar::keywords.end());
+    words.insert(words.end(), grammar::contextual_keywords.begin(),
+                 grammar::contextual_keywords.end());
+    for (std::string_view word : words) {
+        tao::pegtl::memory_input in(word.data(), word.size(), "word");
+        bool starts =
+            tao::pegtl::parse<tao::pegtl::seq<grammar::statement_start, tao::pegtl::eof>>(in);
+        INFO(word);
+        CHECK(starts == named(word));
+    }
 }
 
 TEST_CASE("the parser recovers at the next statement and reports every independent error") {
