@@ -118,6 +118,16 @@ void add_distributed(double l, const LocalDistributed& q, ElementVector& f) {
 
 ElementMatrix local_stiffness(const ElementProperties& e) {
     ElementMatrix k = full_stiffness(e);
+    if (e.hinge_start && e.hinge_end) {
+        // A bar hinged at both ends has no transverse stiffness at all. Condensing
+        // both rotations leaves round-off there instead of zero, which hid the
+        // mechanism of pin-ended bars in a straight line; write the exact bar.
+        double axial = k[0][0];
+        k = ElementMatrix{};
+        k[0][0] = k[3][3] = axial;
+        k[0][3] = k[3][0] = -axial;
+        return k;
+    }
     condense_released(e, k, nullptr);
     return k;
 }

@@ -10,6 +10,9 @@
 #include <chrono>
 #include <cmath>
 #include <cstdint>
+#include <limits>
+#include <optional>
+#include <string>
 
 #include "analyse/element.hpp"
 #include "base/parallel.hpp"
@@ -30,10 +33,24 @@ double seconds_since(Clock::time_point start) {
     return std::chrono::duration<double>(Clock::now() - start).count();
 }
 
-/// A pivot this much smaller than its diagonal means the stiffness has lost
-/// rank. Very stiff axial members (A = 1e6 I/h^2) give pivots around 1e-6 of
-/// their diagonal, far above it; a mechanism leaves only round-off (~1e-16).
-constexpr double pivot_tolerance = 1e-10;
+/// A pivot this much smaller than its diagonal has lost about eight of the sixteen
+/// digits: the factor is looked at more closely, and the conditioning reported.
+/// Well-conditioned frames stay far above it, so the common path does no more.
+constexpr double kSuspiciousPivot = 1e-8;
+
+/// In the unit copy of the frame (every member and spring of unit stiffness, see
+/// unit_members), a pivot this much smaller than its diagonal is a lost rank: there
+/// only geometry and releases are left, and a mechanism leaves round-off (~1e-16)
+/// while a stable frame keeps pivots many orders larger, whatever its real stiffnesses.
+constexpr double kMechanismPivot = 1e-11;
+
+/// A solve of a badly conditioned frame is kept when its componentwise backward error
+/// (see backward_error) is below this: round-off gives about 1e-15.
+constexpr double kBackwardErrorTolerance = 1e-10;
+
+/// A displacement past this fraction of the frame's size is beyond what a linear
+/// (first-order, small-displacement) analysis describes (common practice).
+constexpr double kLargeDisplacement = 1.0 / 50.0;
 
 /// The restraint of every node and direction (resolve allows one support per node).
 std::vector<std::array<Restraint, 3>> node_restraints(const Model& model) {
@@ -235,19 +252,32 @@ std::vector<Eigen::Index> factor_positions(const Factor& factor, Eigen::Index n)
     return position;
 }
 
-/// The first pivot of the factor that shows lost rank, or -1 if none does.
-Eigen::Index first_bad_pivot(const Factor& factor, const Stiffness& k,
-                             const std::vector<Eigen::Index>& position) {
+/// The pivots of a factor against the diagonal they came from.
+struct PivotScan {
+    Eigen::Index first_below = -1;  ///< the first pivot below the limit asked for, or -1
+    double least_ratio = 1.0;       ///< the smallest pivot / diagonal (<= 0: lost)
+    bool usable = false;            ///< the factor finished and every pivot is positive
+};
+
+PivotScan scan_pivots(const Factor& factor, const Stiffness& k,
+                      const std::vector<Eigen::Index>& position, double limit) {
+    PivotScan scan;
+    if (factor.info() != Eigen::Success)
+        return scan;
     Eigen::VectorXd permuted_diagonal(k.diagonal.size());
-    for (std::size_t i = 0; i < position.size(); ++i) {
+    for (std::size_t i = 0; i < position.size(); ++i)
         permuted_diagonal[position[i]] = k.diagonal[static_cast<Eigen::Index>(i)];
-    }
     const Eigen::VectorXd d = factor.vectorD();
+    scan.usable = true;
     for (Eigen::Index i = 0; i < d.size(); ++i) {
-        if (!(d[i] > pivot_tolerance * permuted_diagonal[i]) || !std::isfinite(d[i]))
-            return i;
+        double ratio = std::isfinite(d[i]) ? d[i] / permuted_diagonal[i] : -1.0;
+        if (!(ratio > 0.0))
+            scan.usable = false;
+        if (!(ratio > limit) && scan.first_below < 0)
+            scan.first_below = i;
+        scan.least_ratio = std::min(scan.least_ratio, ratio);
     }
-    return -1;
+    return scan;
 }
 
 /// The mechanism behind a zero pivot `bad`: the null vector of the leading
@@ -299,35 +329,160 @@ double typical_member_length(const std::vector<MemberData>& members) {
     return members.empty() ? 1.0 : sum / static_cast<double>(members.size());
 }
 
-/// Factors k and checks every pivot. On a lost rank, names the node and
-/// direction that moves most in the mechanism and returns false.
-bool factor_stiffness(const Model& model, const DofMap& map, const std::vector<MemberData>& members,
-                      const Stiffness& k, Factor& factor, Diagnostics& diagnostics) {
+/// What the factor's checks read of the frame.
+struct SolveInputs {
+    const Model& model;
+    const DofMap& map;
+    const std::vector<MemberData>& members;
+    const std::vector<std::array<Restraint, 3>>& restraints;
+};
+
+/// The frame with every member and spring of unit stiffness: EA/L = 12EI/L^3 = 1 N/m and
+/// springs 1 N/m (rotations: the typical member length squared, in N*m/rad). Whether a
+/// frame is a mechanism depends only on its geometry, releases and restraints, never on
+/// how stiff its parts are, so this copy answers it without the real stiffness ratios.
+std::vector<MemberData> unit_members(const std::vector<MemberData>& members) {
+    std::vector<MemberData> unit = members;
+    for (MemberData& m : unit) {
+        double l = m.properties.length;
+        m.properties.axial_rigidity = l;
+        m.properties.bending_rigidity = l * l * l / 12.0;
+    }
+    return unit;
+}
+
+std::vector<std::array<Restraint, 3>> unit_restraints(
+    const std::vector<std::array<Restraint, 3>>& restraints, double typical_length) {
+    std::vector<std::array<Restraint, 3>> unit = restraints;
+    for (auto& node : unit) {
+        for (std::size_t d = 0; d < 3; ++d) {
+            if (node[d].kind == Restraint::Kind::spring && node[d].stiffness > 0.0)
+                node[d].stiffness = d == dof_rotation ? typical_length * typical_length : 1.0;
+        }
+    }
+    return unit;
+}
+
+/// Factors `k`; when Eigen stops at an exactly zero pivot, a tiny diagonal shift lets
+/// the factor finish so that the mode can be read.
+void factor_even_if_singular(const Stiffness& k, Factor& factor) {
+    factor.compute(k.lower);
+    if (factor.info() == Eigen::Success)
+        return;
+    factor.setShift(1e-13 * k.diagonal.minCoeff());
+    factor.compute(k.lower);
+}
+
+/// The equation that moves most in the frame's mechanism, if it has one.
+std::optional<std::size_t> mechanism_equation(const SolveInputs& in) {
+    double typical = typical_member_length(in.members);
+    Stiffness unit = assemble_stiffness(unit_members(in.members), in.map,
+                                        unit_restraints(in.restraints, typical));
+    Factor factor;
+    factor_even_if_singular(unit, factor);
+    std::vector<Eigen::Index> position = factor_positions(factor, unit.diagonal.size());
+    PivotScan scan = scan_pivots(factor, unit, position, kMechanismPivot);
+    if (factor.info() != Eigen::Success)
+        return 0;  // not even a shift helps: say it of the first freedom
+    if (scan.first_below < 0)
+        return std::nullopt;
+    std::vector<double> z = mechanism_mode(factor, scan.first_below);
+    return most_moving_equation(z, position, in.map, typical);
+}
+
+/// The stiffest and the softest part of the frame: a member by the larger of EA/L and
+/// 12EI/L^3 (EA/L for a bar hinged at both ends), a spring by its stiffness.
+struct StiffnessRange {
+    std::string stiffest, softest;
+    SourceRange soft_where;  ///< where the softest part is written
+    double high = 0.0, low = std::numeric_limits<double>::infinity();
+};
+
+StiffnessRange stiffness_range(const SolveInputs& in) {
+    StiffnessRange range;
+    auto consider = [&](const std::string& what, double k, const SourceRange& where) {
+        if (k > range.high) {
+            range.high = k;
+            range.stiffest = what;
+        }
+        if (k < range.low) {
+            range.low = k;
+            range.softest = what;
+            range.soft_where = where;
+        }
+    };
+    for (std::size_t i = 0; i < in.members.size(); ++i) {
+        const ElementProperties& e = in.members[i].properties;
+        double l = e.length, bend = 12.0 * e.bending_rigidity / (l * l * l);
+        bool bar = e.hinge_start && e.hinge_end;
+        consider(fmt::format("member '{}'", in.model.members[i].name),
+                 bar ? e.axial_rigidity / l : std::max(e.axial_rigidity / l, bend),
+                 in.model.members[i].where);
+    }
+    for (const Support& sp : in.model.supports) {
+        for (std::size_t d = 0; d < 3; ++d) {
+            const Restraint& r = sp.restraint[d];
+            if (r.kind == Restraint::Kind::spring && r.stiffness > 0.0) {
+                // A rotational spring compares with members as the force it gives at a
+                // typical member length.
+                double l = typical_member_length(in.members);
+                consider(fmt::format("the spring at node '{}'", in.model.nodes[at(sp.node)].name),
+                         d == dof_rotation ? r.stiffness / (l * l) : r.stiffness, sp.where);
+            }
+        }
+    }
+    return range;
+}
+
+std::string conditioning_words(const SolveInputs& in, double least_ratio) {
+    double estimate =
+        least_ratio > 0.0 ? 1.0 / least_ratio : std::numeric_limits<double>::infinity();
+    StiffnessRange range = stiffness_range(in);
+    std::string text =
+        std::isfinite(estimate)
+            ? fmt::format(
+                  "the stiffness matrix is badly conditioned (estimate {:.1e}: about {:.0f} "
+                  "of the 16 digits are lost)",
+                  estimate, std::log10(estimate))
+            : std::string("the stiffness matrix is too badly conditioned to factor");
+    if (range.low > 0.0 && range.high / range.low > 1e6)
+        text += fmt::format("; {} is {:.1e} times as stiff as {}", range.stiffest,
+                            range.high / range.low, range.softest);
+    return text;
+}
+
+/// Factors k. A frame that is a mechanism is refused, naming the node and direction that
+/// move most in it; a stable frame that is badly conditioned is solved with a warning
+/// that names the stiffness ratio behind it (the solve's residual is checked later).
+bool factor_stiffness(const SolveInputs& in, const Stiffness& k, Factor& factor,
+                      bool& ill_conditioned, Diagnostics& diagnostics) {
     factor.compute(k.lower);
     std::vector<Eigen::Index> position = factor_positions(factor, k.diagonal.size());
-    if (factor.info() == Eigen::Success && first_bad_pivot(factor, k, position) < 0)
+    PivotScan scan = scan_pivots(factor, k, position, kSuspiciousPivot);
+    if (scan.usable && scan.first_below < 0)
         return true;
-    if (factor.info() != Eigen::Success) {
-        // Eigen stops at an exactly zero pivot, leaving the factor unfinished.
-        // A tiny diagonal shift lets it finish so the mechanism can be read.
-        factor.setShift(1e-13 * k.diagonal.minCoeff());
-        factor.compute(k.lower);
+    if (std::optional<std::size_t> equation = mechanism_equation(in)) {
+        std::size_t f = in.map.freedom[*equation];
+        const Node& node = in.model.nodes[f / 3];
+        diagnostics.error(node.where,
+                          fmt::format("the structure is unstable: node '{}' is free to {} "
+                                      "(its members and supports form a mechanism)",
+                                      node.name, movement_words(f % 3)));
+        return false;
     }
-    Eigen::Index bad = first_bad_pivot(factor, k, position);
-    std::size_t equation = 0;
-    if (factor.info() == Eigen::Success && bad >= 0) {
-        std::vector<double> z = mechanism_mode(factor, bad);
-        equation = most_moving_equation(z, position, map, typical_member_length(members));
-    } else if (bad >= 0) {
-        auto it = std::find(position.begin(), position.end(), bad);
-        equation = static_cast<std::size_t>(it - position.begin());
+    // Point at the softest part: usually the one to look at (a spring, a slender member).
+    SourceRange where = stiffness_range(in).soft_where;
+    if (!scan.usable) {
+        diagnostics.error(where, conditioning_words(in, scan.least_ratio) +
+                                     "; the frame is stable but cannot be solved in double "
+                                     "precision: make the stiffnesses less far apart");
+        return false;
     }
-    std::size_t f = map.freedom[equation];
-    const Node& node = model.nodes[f / 3];
-    diagnostics.error(node.where, fmt::format("the structure is unstable: node '{}' is free to {} "
-                                              "(its members and supports form a mechanism)",
-                                              node.name, movement_words(f % 3)));
-    return false;
+    ill_conditioned = true;
+    diagnostics.warning(where, conditioning_words(in, scan.least_ratio) +
+                                   "; the frame is stable and was solved; the results keep fewer "
+                                   "digits than usual");
+    return true;
 }
 
 /// Adds the condensed equivalent loads of member i in cases [first, last) to
@@ -458,6 +613,88 @@ bool report_unresisted_moments(const Model& model, const DofMap& map, Diagnostic
     return ok;
 }
 
+/// The componentwise backward error of the solve, max over equations and cases of
+/// |K u - f| / (|K| |u| + |f|) (Oettli and Prager): how far the loads would have to move
+/// for u to be exact. A sound factor leaves round-off (~1e-15) whatever the conditioning;
+/// a factor broken by lost digits leaves far more.
+double backward_error(const LoadSet& loads, const SolveInputs& in, const Stiffness& k,
+                      const std::vector<Eigen::Index>& position, const Solution& out) {
+    auto n = static_cast<Eigen::Index>(in.map.freedom.size());
+    auto cases = static_cast<Eigen::Index>(out.case_count);
+    Block f = load_block(loads, in.map, in.members, position, 0, out.case_count);
+    Eigen::MatrixXd u(n, cases);
+    std::size_t stride = out.node_count * 3;
+    for (Eigen::Index e = 0; e < n; ++e) {
+        for (Eigen::Index c = 0; c < cases; ++c)
+            u(e, c) = out.displacements[static_cast<std::size_t>(c) * stride +
+                                        in.map.freedom[static_cast<std::size_t>(e)]];
+    }
+    SparseMatrix magnitude = k.lower.cwiseAbs();
+    Eigen::MatrixXd ku = k.lower.selfadjointView<Eigen::Lower>() * u;
+    Eigen::MatrixXd scale = magnitude.selfadjointView<Eigen::Lower>() * u.cwiseAbs();
+    double worst = 0.0;
+    for (Eigen::Index e = 0; e < n; ++e) {
+        for (Eigen::Index c = 0; c < cases; ++c) {
+            double load = f(position[static_cast<std::size_t>(e)], c);
+            double bound = scale(e, c) + std::abs(load);
+            if (bound > 0.0)
+                worst = std::max(worst, std::abs(ku(e, c) - load) / bound);
+        }
+    }
+    return worst;
+}
+
+/// Warns of the case that moves a node farthest beyond kLargeDisplacement of the frame's size.
+void warn_large_displacements(const Model& model, const Solution& s, Diagnostics& diagnostics) {
+    if (model.nodes.empty())
+        return;
+    auto [xlo, xhi] = std::minmax_element(model.nodes.begin(), model.nodes.end(),
+                                          [](const Node& a, const Node& b) { return a.x < b.x; });
+    auto [ylo, yhi] = std::minmax_element(model.nodes.begin(), model.nodes.end(),
+                                          [](const Node& a, const Node& b) { return a.y < b.y; });
+    double size = std::max(xhi->x - xlo->x, yhi->y - ylo->y);
+    double worst = kLargeDisplacement * size;
+    std::size_t worst_case = 0, worst_node = 0;
+    bool found = false;
+    for (std::size_t c = 0; c < s.case_count; ++c) {
+        for (std::size_t n = 0; n < s.node_count; ++n) {
+            double move = std::hypot(s.displacement(make_id<CaseId>(c), make_id<NodeId>(n), dof_x),
+                                     s.displacement(make_id<CaseId>(c), make_id<NodeId>(n), dof_y));
+            if (move > worst) {
+                worst = move;
+                worst_case = c;
+                worst_node = n;
+                found = true;
+            }
+        }
+    }
+    if (!found)
+        return;
+    diagnostics.warning(
+        model.cases[worst_case].where,
+        fmt::format("load case '{}' moves node '{}' by {:.3g} m, more than 1/{:g} of the frame's "
+                    "size ({:.3g} m): a linear analysis no longer describes it; check the "
+                    "supports, springs and stiffnesses",
+                    model.cases[worst_case].name, model.nodes[worst_node].name, worst,
+                    1.0 / kLargeDisplacement, size));
+}
+
+/// A badly conditioned frame's solution is kept only if it satisfies its equations.
+bool residual_acceptable(const LoadSet& loads, const SolveInputs& in, const Stiffness& k,
+                         const Factor& factor, const Solution& out, Diagnostics& diagnostics) {
+    std::vector<Eigen::Index> position =
+        factor_positions(factor, static_cast<Eigen::Index>(in.map.freedom.size()));
+    double residual = backward_error(loads, in, k, position, out);
+    if (residual <= kBackwardErrorTolerance)
+        return true;
+    SourceRange where = in.model.members.empty() ? SourceRange{} : in.model.members[0].where;
+    diagnostics.error(where, fmt::format("the solution of this badly conditioned frame does not "
+                                         "satisfy its equations (backward error {:.1e}); make "
+                                         "the stiffnesses less far apart",
+                                         residual));
+    return false;
+}
+
 bool all_finite(const Model& model, const Solution& s, Diagnostics& diagnostics) {
     for (std::size_t c = 0; c < s.case_count; ++c) {
         const double* u = s.displacements.data() + c * s.node_count * 3;
@@ -498,16 +735,21 @@ Solution solve(const Model& model, const LoadSet& loads, Diagnostics& diagnostic
 
     start = Clock::now();
     Factor factor;
-    if (!map.freedom.empty() && !factor_stiffness(model, map, members, k, factor, diagnostics))
+    SolveInputs in{model, map, members, restraints};
+    bool ill_conditioned = false;
+    if (!map.freedom.empty() && !factor_stiffness(in, k, factor, ill_conditioned, diagnostics))
         return out;
     if (timings)
         timings->factor = seconds_since(start);
 
     start = Clock::now();
     double building = map.freedom.empty() ? 0.0 : solve_all_cases(loads, map, members, factor, out);
-    out.ok = all_finite(model, out, diagnostics);
+    out.ok = all_finite(model, out, diagnostics) &&
+             (!ill_conditioned || residual_acceptable(loads, in, k, factor, out, diagnostics));
     if (!out.ok)
         std::fill(out.displacements.begin(), out.displacements.end(), 0.0);
+    else
+        warn_large_displacements(model, out, diagnostics);
     if (timings) {  // building the load vectors counts as assembly
         timings->assemble += building;
         timings->solve = seconds_since(start) - building;

@@ -252,3 +252,122 @@ TEST_CASE("members without stiffness are reported, not solved", "[solve]") {
 
 }  // namespace
 }  // namespace firn
+
+namespace firn {
+namespace {
+
+/// The first warning of an analysis that solved, or none.
+std::string first_warning(const testing::Analysis& a) {
+    for (const Diagnostic& d : a.diagnostics.all()) {
+        if (d.severity == Severity::warning)
+            return d.message;
+    }
+    return "";
+}
+
+TEST_CASE("pin-ended bars in a straight line are a mechanism, across and along", "[solve]") {
+    // A tie of two bars hinged at both ends, split at a hoist node C: nothing holds C
+    // across the line (statics: two collinear two-force members carry no transverse load).
+    for (double slope : {0.0, 0.5}) {
+        ModelBuilder b;
+        SectionId s = b.section(b.material(E), A, I);
+        NodeId na = b.node("A", 0.0, 0.0), nc = b.node("C", 4.0, 4.0 * slope);
+        NodeId nb = b.node("B", 8.0, 8.0 * slope);
+        b.member("AC", na, nc, s, true, true);
+        b.member("CB", nc, nb, s, true, true);
+        b.support(na, Support::Kind::pinned);
+        b.support(nb, Support::Kind::pinned);
+        b.nodal(b.load_case("hoist"), nc, 0.0, -P, 0.0);
+        auto a = testing::analyse(b.model);
+        const Diagnostic& d = only_error(a);
+        INFO(d.message);
+        CHECK(d.message.find("node 'C' is free to move in") != std::string::npos);
+    }
+}
+
+TEST_CASE("a stiffness ratio of 1e12 is stable: solved, with a conditioning warning", "[solve]") {
+    // A fixed-base portal whose beam is 1e12 times as stiff as its columns: the beam is
+    // rigid, so a lateral load H at the top sways both columns as fixed-fixed members,
+    // each 12EI/h^3: sway = H h^3 / (24 EI) (statics with the slope-deflection stiffness).
+    ModelBuilder b;
+    MaterialId steel = b.material(E);
+    SectionId beam = b.section(steel, A * 1e12, I * 1e12), column = b.section(steel, A, I);
+    double h = 4.0, H = 10e3;
+    NodeId na = b.node("A", 0.0, 0.0), nb = b.node("B", 0.0, h);
+    NodeId nc = b.node("C", 8.0, h), nd = b.node("D", 8.0, 0.0);
+    b.member("left", na, nb, column);
+    b.member("beam", nb, nc, beam);
+    b.member("right", nd, nc, column);
+    b.support(na, Support::Kind::fixed);
+    b.support(nd, Support::Kind::fixed);
+    CaseId c = b.load_case("push");
+    b.nodal(c, nb, H, 0.0, 0.0);
+    auto a = testing::analyse(b.model);
+    REQUIRE(a.diagnostics.error_count() == 0);
+    REQUIRE(a.solution.ok);
+    // To the digits such a conditioning leaves: kappa x 1.1e-16 = 4e13 x 1.1e-16 ~ 5e-3.
+    CHECK(a.displacement(c, nc, dof_x) == Approx(H * h * h * h / (24 * EI)).epsilon(1e-2));
+    std::string warning = first_warning(a);
+    INFO(warning);
+    CHECK(warning.rfind("the stiffness matrix is badly conditioned (estimate", 0) == 0);
+    // Stiffness scales max(EA/L, 12EI/L^3): beam 2.5e20 N/m, columns EA/h = 5e8 N/m.
+    CHECK(warning.find("member 'beam' is 5.0e+11 times as stiff as member 'left'") !=
+          std::string::npos);
+}
+
+TEST_CASE("a 1 mm link between two 10 m spans is stable and solved", "[solve]") {
+    // Two 10 m spans joined by a 1 mm link, pinned at the far ends and a roller under the
+    // link: the link is rigid beside the spans, so each span is propped at the link and the
+    // link node hardly moves (statics: the roller takes the load at the link).
+    ModelBuilder b;
+    SectionId s = b.section(b.material(E), A, I);
+    NodeId na = b.node("A", 0.0, 0.0), nb = b.node("B", 10.0, 0.0);
+    NodeId nc = b.node("C", 10.001, 0.0), nd = b.node("D", 20.001, 0.0);
+    MemberId left = b.member("left", na, nb, s);
+    b.member("link", nb, nc, s);
+    b.member("right", nc, nd, s);
+    b.support(na, Support::Kind::pinned);
+    b.support(nb, Support::Kind::roller_free_x);
+    b.support(nd, Support::Kind::roller_free_x);
+    CaseId c = b.load_case("load");
+    b.uniform(c, left, LoadDirection::down, w);
+    auto a = testing::analyse(b.model);
+    REQUIRE(a.diagnostics.error_count() == 0);
+    REQUIRE(a.solution.ok);
+    // Equilibrium of the whole frame (statics): the reactions carry the 10 m of load, to
+    // the digits such a conditioning leaves (the warning says how many are lost).
+    double total = a.reaction(c, 0)[1] + a.reaction(c, 1)[1] + a.reaction(c, 2)[1];
+    CHECK(total == Approx(w * 10.0).epsilon(1e-6));
+    // Through the link the beam is continuous over B: a two-span beam with one span
+    // loaded, R_A = 7wL/16 (three-moment equation), the 1 mm link changing it by ~1e-4.
+    CHECK(a.reaction(c, 0)[1] == Approx(7.0 * w * 10.0 / 16.0).epsilon(1e-3));
+    // Once refused as a mechanism; its pivots lose fewer than 8 digits, so no warning.
+    CHECK(first_warning(a).empty());
+}
+
+TEST_CASE("a frame held only by a soft rotational spring is solved with warnings", "[solve]") {
+    // A cantilever column on a base spring of 1e-4 kN*m/rad under a lateral load H at its
+    // top: the spring alone resists, so the top sways H h^2 / k (rigid-body rotation about
+    // the base, statics), far beyond what a linear analysis describes.
+    ModelBuilder b;
+    SectionId s = b.section(b.material(E), A, I);
+    NodeId base = b.node("base", 0.0, 0.0), top = b.node("top", 0.0, 4.0);
+    b.member("column", base, top, s);
+    b.springs(base, -1.0, -1.0, 0.1);
+    CaseId c = b.load_case("push");
+    b.nodal(c, top, 1e3, 0.0, 0.0);
+    auto a = testing::analyse(b.model);
+    REQUIRE(a.diagnostics.error_count() == 0);
+    REQUIRE(a.solution.ok);
+    CHECK(a.displacement(c, top, dof_x) == Approx(1e3 * 16.0 / 0.1).epsilon(1e-6));
+    bool large = false, conditioned = false;
+    for (const Diagnostic& d : a.diagnostics.all()) {
+        large = large || d.message.rfind("load case 'push' moves node 'top' by", 0) == 0;
+        conditioned = conditioned || d.message.find("badly conditioned") != std::string::npos;
+    }
+    CHECK(large);
+    CHECK(conditioned);
+}
+
+}  // namespace
+}  // namespace firn
