@@ -18,6 +18,7 @@ struct BatchArgs {
     std::string shard;
     std::size_t jobs = 0;
     std::string stdlib;
+    bool strict = false;  ///< --warnings-as-errors (firn check)
 };
 
 inline void add_batch_options(CLI::App* cmd, BatchArgs& args) {

@@ -77,8 +77,8 @@ void check_deflection_limits(const Analysis& a, const CheckArgs& args, ModelChec
 ModelCheck check_model(const std::string& path, const CheckArgs& args) {
     ModelCheck result;
     Analysis a = analyse_file(path, nullptr, import_options(args.batch));
-    result.err = render(a.diagnostics, a.sources);
-    if (!a.ok) {
+    result.err = render(a.diagnostics, a.sources) + strict_failure(a, args.batch.strict);
+    if (!a.ok || !strict_failure(a, args.batch.strict).empty()) {
         result.model_error = true;
         return result;
     }
@@ -134,6 +134,7 @@ void add_check_command(CLI::App& app, int& status) {
     CLI::App* cmd = app.add_subcommand(
         "check", "Analyse models and check their expectations (exit 1 if one fails)");
     add_batch_options(cmd, args->batch);
+    add_strict_option(cmd, args->batch.strict);
     cmd->add_flag("-v,--verbose", args->verbose,
                   "Also print each expectation that passes, with its margin");
     cmd->callback([args, &status] { status = check(*args); });

@@ -2,6 +2,7 @@
 // finds the library, and the report sections an analysis fills.
 #pragma once
 
+#include <fmt/format.h>
 #include <CLI/CLI.hpp>
 #include <string>
 
@@ -23,6 +24,25 @@ inline void add_stdlib_option(CLI::App* cmd, std::string& stdlib) {
                     "Read library modules (use NAME) from this folder instead of the built-in "
                     "library; for library development")
         ->envname("FIRN_STDLIB");
+}
+
+/// `--warnings-as-errors`: for CI, a model with warnings fails as one with errors does.
+inline void add_strict_option(CLI::App* cmd, bool& strict) {
+    cmd->add_flag("--warnings-as-errors", strict,
+                  "Treat the model's warnings as errors (exit 2), as a CI check would");
+}
+
+/// With `strict`, the sentence that fails a model for its warnings; empty otherwise.
+inline std::string strict_failure(const Analysis& a, bool strict) {
+    if (!strict)
+        return "";
+    std::size_t warnings = 0;
+    for (const Diagnostic& d : a.diagnostics.all())
+        warnings += d.severity == Severity::warning ? 1U : 0U;
+    if (warnings == 0)
+        return "";
+    return fmt::format("firn: error: {}: {} warning{} and --warnings-as-errors is set\n",
+                       a.model.source_name, warnings, warnings == 1 ? "" : "s");
 }
 
 }  // namespace firn

@@ -19,6 +19,7 @@ struct DrawArgs {
     std::string stdlib;
     std::vector<std::string> cases, combinations, diagrams;
     bool no_loads = false, no_envelopes = false, html_only = false, force = false;
+    bool strict = false;  ///< --warnings-as-errors
 };
 
 Diagram diagram_named(const std::string& name) {
@@ -52,8 +53,9 @@ std::string text_report_of(const Analysis& a) {
 int run(const DrawArgs& args) {
     Analysis a = analyse_file(args.model, nullptr, imports_from(args.stdlib));
     std::string messages = render(a.diagnostics, a.sources);
-    if (!a.ok) {
-        std::fputs(messages.c_str(), stderr);
+    std::string strict = strict_failure(a, args.strict);
+    if (!a.ok || !strict.empty()) {
+        std::fputs((messages + strict).c_str(), stderr);
         return exit_model_error;
     }
     std::vector<std::string> errors;
@@ -108,6 +110,7 @@ void add_draw_command(CLI::App& app, int& status) {
                   "Write into a folder that holds files firn did not write (only the files "
                   "firn names are replaced)");
     add_stdlib_option(cmd, args->stdlib);
+    add_strict_option(cmd, args->strict);
     cmd->callback([args, &status] { status = run(*args); });
 }
 

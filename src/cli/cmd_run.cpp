@@ -20,6 +20,7 @@ struct RunArgs {
     std::string stdlib;
     bool full = false;
     bool exact_numbers = false;
+    bool strict = false;
 };
 
 /// Points per member in the full report: the ends and every tenth between.
@@ -38,8 +39,9 @@ const SourceFile* input_at(const SourceMap& sources, const std::string& output) 
 int run(const RunArgs& args) {
     Analysis a = analyse_file(args.model, nullptr, imports_from(args.stdlib));
     std::string messages = render(a.diagnostics, a.sources);
-    if (!a.ok) {
-        std::fputs(messages.c_str(), stderr);
+    std::string strict = strict_failure(a, args.strict);
+    if (!a.ok || !strict.empty()) {
+        std::fputs((messages + strict).c_str(), stderr);
         return exit_model_error;
     }
     if (const SourceFile* input =
@@ -105,6 +107,7 @@ void add_run_command(CLI::App& app, int& status) {
     cmd->add_option("-o,--output", args->output,
                     "Write the report to this file (atomically) instead of standard output");
     add_stdlib_option(cmd, args->stdlib);
+    add_strict_option(cmd, args->strict);
     cmd->callback([args, &status] { status = run(*args); });
 }
 
