@@ -4,6 +4,8 @@
 
 #include <fmt/format.h>
 #include <CLI/CLI.hpp>
+#include <cstdio>
+#include <optional>
 #include <string>
 
 #include "driver/driver.hpp"
@@ -43,6 +45,21 @@ inline std::string strict_failure(const Analysis& a, bool strict) {
         return "";
     return fmt::format("firn: error: {}: {} warning{} and --warnings-as-errors is set\n",
                        a.model.source_name, warnings, warnings == 1 ? "" : "s");
+}
+
+/// The analysis of one model for `run` and `draw`, with its rendered diagnostics in
+/// `messages` (printed by the command after its output, which they qualify); nothing,
+/// after printing them, when the model has errors (or warnings, with `strict`).
+inline std::optional<Analysis> analyse_for_command(const std::string& model,
+                                                   const std::string& stdlib, bool strict,
+                                                   std::string& messages) {
+    Analysis a = analyse_file(model, nullptr, imports_from(stdlib));
+    messages = render(a.diagnostics, a.sources);
+    std::string failure = strict_failure(a, strict);
+    if (a.ok && failure.empty())
+        return a;
+    std::fputs((messages + failure).c_str(), stderr);
+    return std::nullopt;
 }
 
 }  // namespace firn

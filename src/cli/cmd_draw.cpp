@@ -51,13 +51,12 @@ std::string text_report_of(const Analysis& a) {
 }
 
 int run(const DrawArgs& args) {
-    Analysis a = analyse_file(args.model, nullptr, imports_from(args.stdlib));
-    std::string messages = render(a.diagnostics, a.sources);
-    std::string strict = strict_failure(a, args.strict);
-    if (!a.ok || !strict.empty()) {
-        std::fputs((messages + strict).c_str(), stderr);
+    std::string messages;
+    std::optional<Analysis> analysed =
+        analyse_for_command(args.model, args.stdlib, args.strict, messages);
+    if (!analysed)
         return exit_model_error;
-    }
+    const Analysis& a = *analysed;
     std::vector<std::string> errors;
     std::vector<Sheet> sheets = draw_sheets(a, draw_options(args), errors);
     if (!errors.empty()) {

@@ -37,13 +37,12 @@ const SourceFile* input_at(const SourceMap& sources, const std::string& output) 
 }
 
 int run(const RunArgs& args) {
-    Analysis a = analyse_file(args.model, nullptr, imports_from(args.stdlib));
-    std::string messages = render(a.diagnostics, a.sources);
-    std::string strict = strict_failure(a, args.strict);
-    if (!a.ok || !strict.empty()) {
-        std::fputs((messages + strict).c_str(), stderr);
+    std::string messages;
+    std::optional<Analysis> analysed =
+        analyse_for_command(args.model, args.stdlib, args.strict, messages);
+    if (!analysed)
         return exit_model_error;
-    }
+    const Analysis& a = *analysed;
     if (const SourceFile* input =
             args.output.empty() ? nullptr : input_at(a.sources, args.output)) {
         std::fprintf(stderr,
