@@ -215,9 +215,14 @@ struct expr : seq<product, star<sum_tail>> {};
 
 // ---------------------------------------------------------------- statements
 
+// text_char   <- '\\' ["\\] / !control [^"\\]     (quoted text: a title, a path, a reason)
+// A control byte but a tab (a line break, a NUL, a terminal escape) cannot stand in quoted
+// text, so none can reach a file name, a report or a terminal.
+struct control_char : sor<range<'\x00', '\x08'>, range<'\x0a', '\x1f'>, one<'\x7f'>> {};
+struct text_char : sor<seq<one<'\\'>, one<'"', '\\'>>, seq<not_at<control_char>, not_one<'"', '\\'>>> {};
+
 // model_stmt  <- 'model' sp title
-struct title : if_must<one<'"'>, star<sor<seq<one<'\\'>, one<'"', '\\'>>, not_one<'"', '\\', '\n', '\r'>>>,
-                       one<'"'>> {};
+struct title : if_must<one<'"'>, star<text_char>, one<'"'>> {};
 struct model_begin : kw_model {};
 struct model_stmt : if_must<model_begin, sp, title> {};
 
@@ -227,8 +232,7 @@ struct let_begin : kw_let {};
 struct let_stmt : if_must<let_begin, sp, let_name, sp, equals, sp, expr> {};
 
 // use_stmt    <- 'use' sp ('outside' sp)? (path / name)
-struct path : if_must<one<'"'>, star<sor<seq<one<'\\'>, one<'"', '\\'>>, not_one<'"', '\\', '\n', '\r'>>>,
-                      one<'"'>> {};
+struct path : if_must<one<'"'>, star<text_char>, one<'"'>> {};
 struct use_outside : kw_outside {};
 struct use_module : name {};
 struct use_target : sor<path, use_module> {};
@@ -509,8 +513,7 @@ struct case_stmt : if_must<case_begin, sp, case_name, sp, case_kind, sp, block_o
 // setting     <- name sp '=' sp expr (sp 'because' sp quoted)?
 //                a value of the snow site or a roof; an enumerated value is a word
 struct setting_key : name {};
-struct reason : if_must<one<'"'>, star<sor<seq<one<'\\'>, one<'"', '\\'>>, not_one<'"', '\\', '\n', '\r'>>>,
-                        one<'"'>> {};
+struct reason : if_must<one<'"'>, star<text_char>, one<'"'>> {};
 struct because : if_must<kw_because, sp, reason> {};
 struct setting : if_must<setting_key, sp, equals, sp, expr, opt<sp, because>> {};
 struct setting_line : seq<setting, sp, must<end_of_statement>> {};

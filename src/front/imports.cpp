@@ -85,10 +85,6 @@ class Loader {
             diagnostics_.error(use.path_where, "a built-in library module uses only other modules");
             return;
         }
-        if (use.path.find('\0') != std::string::npos) {
-            diagnostics_.error(use.path_where, "a file name cannot hold a NUL byte");
-            return;
-        }
         fs::path here = fs::path(sources_.file(from).name).parent_path();
         fs::path target = (here / use.path).lexically_normal();
         fs::path root = inside(model_root_, here) ? model_root_ : here;

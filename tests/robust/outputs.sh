@@ -81,7 +81,12 @@ expect 2 "a deep chain of use" "c100.firn:1:5: error: files are used more than 1
 printf 'model "nul"\nuse "parts\000.firn"\n' > "$work/nul.firn"
 "$firn" run "$work/nul.firn" 2> "$work/err"
 status=$?
-expect 2 "a NUL in a use path" "error: a file name cannot hold a NUL byte"
+expect 2 "a NUL in a use path" "found a character that is not allowed here (byte 0x00)"
+
+printf 'model "bell\033[31m red"\n' > "$work/escape.firn"
+"$firn" run "$work/escape.firn" 2> "$work/err"
+status=$?
+expect 2 "a terminal escape in a title" "found a character that is not allowed here (byte 0x1B)"
 
 [ "$failures" -eq 0 ] || exit 1
 echo "all output and input cases pass"
