@@ -432,6 +432,20 @@ std::vector<std::optional<double>> read_properties(Resolver& r,
     return values;
 }
 
+/// Structural materials have E between about 7 GPa (timber across its grain aside) and
+/// 210 GPa (steel) (common practice); a value outside 0.1 GPa to 1000 GPa is almost
+/// surely a unit slip, so it is said, though the model still runs.
+constexpr double kPlausibleModulusLow = 1e8, kPlausibleModulusHigh = 1e12;  // Pa
+
+void warn_implausible_modulus(Resolver& r, const syntax::MaterialDecl& decl, double e) {
+    if (e <= 0.0 || (e >= kPlausibleModulusLow && e <= kPlausibleModulusHigh))
+        return;
+    r.diagnostics.warning(decl.name.where,
+                          fmt::format("material '{}' has E = {:.3g} Pa, outside the 0.1 to 1000 "
+                                      "GPa of structural materials; check its unit",
+                                      decl.name.text, e));
+}
+
 void resolve_materials(Resolver& r, const Collected& c) {
     static const std::vector<PropertySpec> spec{{"E", &expected::modulus, true, true},
                                                 {"density", &expected::unit_weight, false, false}};
@@ -439,6 +453,7 @@ void resolve_materials(Resolver& r, const Collected& c) {
         auto v = read_properties(r, decl->properties, spec, decl->name, "material");
         if (!r.materials.add(decl->name, r.diagnostics))
             continue;
+        warn_implausible_modulus(r, *decl, v[0].value_or(0.0));
         r.model.materials.push_back(
             Material{decl->name.text, v[0].value_or(0.0), v[1].value_or(0.0), decl->name.where});
     }

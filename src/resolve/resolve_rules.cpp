@@ -43,8 +43,18 @@ bool known_symbol(Resolver& r, const syntax::Name& symbol) {
     return false;
 }
 
-/// A factor must be a plain positive number.
+/// The standards' load factors stay below 2 (ASCE 7-16 Sec. 2.3.1 and 2.4.1: 1.6 at
+/// most); one past this is a slip, and one near the largest double would overflow.
+constexpr double kLargestLoadFactor = 100.0;
+
+/// A factor must be a plain positive number, and not an absurd one.
 bool positive_factor(Resolver& r, const syntax::Factor& f) {
+    if (f.value > kLargestLoadFactor && std::isfinite(f.value)) {
+        r.diagnostics.error(f.where, fmt::format("a load factor of {:g} is far beyond any "
+                                                 "standard's (they stay below 2); at most {:g}",
+                                                 f.value, kLargestLoadFactor));
+        return false;
+    }
     if (f.value > 0.0 && std::isfinite(f.value))
         return true;
     r.diagnostics.error(f.where, "a load factor is a number greater than zero");
