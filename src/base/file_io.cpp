@@ -6,6 +6,7 @@
 #include <sys/stat.h>
 #include <unistd.h>
 #include <cerrno>
+#include <chrono>
 #include <cstdio>
 #include <cstring>
 #include <filesystem>
@@ -40,6 +41,25 @@ std::string resolved(const std::string& path) {
         p = target.is_absolute() ? target : p.parent_path() / target;
     }
     return p.string();
+}
+
+/// Removes the temporary files a killed writer of `path` left (`NAME.firn-XXXXXX`
+/// beside it), once they are a minute old, so a live writer's file is never taken.
+void remove_orphans(const std::string& path) {
+    namespace fs = std::filesystem;
+    fs::path target(path);
+    fs::path folder = target.parent_path().empty() ? fs::path(".") : target.parent_path();
+    std::string prefix = target.filename().string() + ".firn-";
+    std::error_code ec;
+    auto now = fs::file_time_type::clock::now();
+    for (const fs::directory_entry& e : fs::directory_iterator(folder, ec)) {
+        std::string name = e.path().filename().string();
+        bool orphan = name.size() == prefix.size() + 6 && name.rfind(prefix, 0) == 0 &&
+                      e.is_regular_file(ec) &&
+                      now - e.last_write_time(ec) > std::chrono::minutes(1);
+        if (orphan)
+            fs::remove(e.path(), ec);
+    }
 }
 
 }  // namespace
@@ -126,6 +146,7 @@ bool AtomicFile::open(const std::string& path, std::string& error) {
             error = fmt::format("cannot write '{}': {}", path, reason());
         return fd_ >= 0;
     }
+    remove_orphans(path_);
     temp_ = path_ + ".firn-XXXXXX";
     fd_ = ::mkstemp(temp_.data());
     if (fd_ < 0) {

@@ -88,5 +88,14 @@ printf 'model "bell\033[31m red"\n' > "$work/escape.firn"
 status=$?
 expect 2 "a terminal escape in a title" "found a character that is not allowed here (byte 0x1B)"
 
+# A writer killed half way leaves NAME.firn-XXXXXX beside its file; the next write of that
+# file removes it once it is a minute old (and leaves a younger one, a live writer's, alone).
+printf 'stale' > "$work/report.txt.firn-AbC123"
+touch -d '2 hours ago' "$work/report.txt.firn-AbC123"
+printf 'live' > "$work/report.txt.firn-XyZ789"
+"$firn" run "$work/m.firn" -o "$work/report.txt" 2> "$work/err" || fail "-o after a killed write"
+[ ! -e "$work/report.txt.firn-AbC123" ] || fail "an orphan temporary file was left"
+[ -e "$work/report.txt.firn-XyZ789" ] || fail "a live writer's temporary file was removed"
+
 [ "$failures" -eq 0 ] || exit 1
 echo "all output and input cases pass"
