@@ -44,6 +44,10 @@ constexpr double kSuspiciousPivot = 1e-8;
 /// while a stable frame keeps pivots many orders larger, whatever its real stiffnesses.
 constexpr double kMechanismPivot = 1e-11;
 
+/// Past this condition estimate fewer than two of the sixteen digits would be left: the
+/// results would mean nothing, so the frame is refused though it is stable.
+constexpr double kUnsolvableCondition = 1e14;
+
 /// A solve of a badly conditioned frame is kept when its componentwise backward error
 /// (see backward_error) is below this: round-off gives about 1e-15.
 constexpr double kBackwardErrorTolerance = 1e-10;
@@ -472,7 +476,7 @@ bool factor_stiffness(const SolveInputs& in, const Stiffness& k, Factor& factor,
     }
     // Point at the softest part: usually the one to look at (a spring, a slender member).
     SourceRange where = stiffness_range(in).soft_where;
-    if (!scan.usable) {
+    if (!scan.usable || scan.least_ratio < 1.0 / kUnsolvableCondition) {
         diagnostics.error(where, conditioning_words(in, scan.least_ratio) +
                                      "; the frame is stable but cannot be solved in double "
                                      "precision: make the stiffnesses less far apart");

@@ -24,7 +24,7 @@ namespace fs = std::filesystem;
 
 namespace {
 
-constexpr std::size_t kMinimumCorpus = 45;
+constexpr std::size_t kMinimumCorpus = 110;
 const std::string kExpect = "# expect: ";
 
 /// Normalised, so the names of used files (joined and normalised by the
