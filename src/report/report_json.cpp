@@ -117,6 +117,12 @@ Json stations_json(const Model& model, const Stations& stations, std::size_t c, 
     return out;
 }
 
+/// What the loads and the reactions leave unbalanced, as the text report's residual row.
+std::array<double, 3> residual_of(const Equilibrium& e) {
+    return {e.applied[0] + e.reactions[0], e.applied[1] + e.reactions[1],
+            e.applied[2] + e.reactions[2]};
+}
+
 Json case_json(const Model& model, const Results& results, std::size_t c,
                const ReportOptions& options) {
     const DisplayUnits& u = model.units;
@@ -146,7 +152,8 @@ Json case_json(const Model& model, const Results& results, std::size_t c,
                 {"kind", case_kind_name(model.cases[c].kind)},
                 {"equilibrium",
                  {{"applied", triple(e.applied, u.force, u.moment, "Fx", "Fy", "M")},
-                  {"reactions", triple(e.reactions, u.force, u.moment, "Fx", "Fy", "M")}}},
+                  {"reactions", triple(e.reactions, u.force, u.moment, "Fx", "Fy", "M")},
+                  {"residual", triple(residual_of(e), u.force, u.moment, "Fx", "Fy", "M")}}},
                 {"reactions", reactions},
                 {"displacements", displacements},
                 {"members", members}};
