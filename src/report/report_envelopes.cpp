@@ -2,6 +2,7 @@
 // group the enveloped forces with the position and the combination that
 // governs each; then the reaction and displacement envelopes.
 #include "report/report_envelopes.hpp"
+#include "base/number_format.hpp"
 
 #include <fmt/format.h>
 #include <algorithm>
@@ -187,6 +188,31 @@ void write_combinations(std::string& out, const Model& model, const CombinationL
     out += '\n';
 }
 
+/// The largest residual (applied + reactions) of any combination of a set, component by
+/// component: the combinations' equilibrium check, as each case has its own.
+namespace {
+
+void write_combination_residual(std::string& out, const Model& model, const Envelopes& e) {
+    std::array<double, 3> worst{};
+    for (const CaseResults& c : e.combinations) {
+        for (std::size_t k = 0; k < 3; ++k) {
+            double r = c.equilibrium.applied[k] + c.equilibrium.reactions[k];
+            worst[k] = std::max(worst[k], std::abs(r));
+        }
+    }
+    const DisplayUnits& u = model.units;
+    std::string fx, fy, m;
+    append_fixed(fx, u.force.from_si(worst[0]), u.force.decimals);
+    append_fixed(fy, u.force.from_si(worst[1]), u.force.decimals);
+    append_fixed(m, u.moment.from_si(worst[2]), u.moment.decimals);
+    out += fmt::format(
+        "Equilibrium: the largest residual of any combination (applied + reactions) is Fx {} "
+        "{}, Fy {} {}, M {} {}.\n\n",
+        fx, u.force.name, fy, u.force.name, m, u.moment.name);
+}
+
+}  // namespace
+
 void write_envelopes(std::string& out, const Model& model, const CombinationList& list,
                      const std::vector<Envelopes>& envelopes) {
     for (std::size_t s = 0; s < list.sets.size() && s < envelopes.size(); ++s) {
@@ -198,6 +224,7 @@ void write_envelopes(std::string& out, const Model& model, const CombinationList
         out +=
             "Each value is the extreme over the member's whole length (exact, not sampled), "
             "at its position from the start node, with the combination that gives it.\n\n";
+        write_combination_residual(out, model, envelopes[s]);
         for (const MemberGroup& group : envelope_groups(model))
             write_member_group(out, model, set, envelopes[s], group);
         if (!model.supports.empty())

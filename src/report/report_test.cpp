@@ -96,7 +96,8 @@ case D dead { uniform 1 kN/m down on AB }
     double expected = 6125.0 / (4.4482216152605 * 304.8);
     double m = j["cases"][0]["members"][0]["moment_max"]["value"].get<double>();
     CHECK(std::abs(m - expected) <= 1e-12 * expected);
-    CHECK(rounded["cases"][0]["members"][0]["moment_max"]["value"].get<double>() == 4.51757);  // 3 + 2 decimals
+    CHECK(rounded["cases"][0]["members"][0]["moment_max"]["value"].get<double>() ==
+          4.51757);  // 3 + 2 decimals
     CHECK(j["numbers"].get<std::string>().rfind("exact", 0) == 0);
     CHECK_FALSE(rounded.contains("numbers"));
 }
