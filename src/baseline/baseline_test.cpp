@@ -264,3 +264,24 @@ TEST_CASE("baseline files sit beside their models", "[baseline]") {
 }
 
 }  // namespace firn
+
+namespace firn {
+namespace {
+
+TEST_CASE("a member held to one row twice reads back from its baseline", "[baseline]") {
+    // Found by the fuzz target: two `deflection` statements over the same member and row
+    // wrote one key twice, so `firn baseline update` wrote a baseline `check` refused.
+    std::string text = two_span("40 ft") +
+                       "use ibc2018\n"
+                       "deflection roof.* limit ibc2018.roof_no_ceiling\n"
+                       "deflection roof.A.B limit ibc2018.roof_no_ceiling\n";
+    Baseline b = baseline_of(text);
+    // The D + L column of roof.A.B: the key is there (once).
+    REQUIRE(find(b, "deflection ibc2018.roof_no_ceiling member roof.A.B D+L deflection"));
+    std::string error;
+    CHECK(read_baseline(baseline_text(b), "two_span.baseline", error).has_value());
+    CHECK(error.empty());
+}
+
+}  // namespace
+}  // namespace firn
