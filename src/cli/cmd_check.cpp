@@ -10,6 +10,7 @@
 #include "cli/cmd_batch.hpp"
 #include "cli/commands.hpp"
 #include "driver/driver.hpp"
+#include "report/report.hpp"
 
 namespace firn {
 namespace {
