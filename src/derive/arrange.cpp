@@ -184,12 +184,12 @@ LoadCase arranged_case(const Model& model, const LoadCase& base, const std::vect
     return lc;
 }
 
-void arrange_cases(Model& model, Diagnostics& diagnostics) {
+void arrange_cases(const Model& model, Derivation& derivation, Diagnostics& diagnostics) {
     for (const ArrangeRequest& request : model.arrangements) {
         const PatternRule& rule = model.patterns[request.rule];
         std::vector<Span> spans = spans_of(model, request.members);
         LoadCase base = model.cases[at(request.load_case)];
-        model.arrangement_trace.push_back(TraceLine{
+        derivation.arrangement_trace.push_back(TraceLine{
             fmt::format(
                 "{} arranged by {} over the spans {}", base.name, rule.name,
                 span_list(spans, selections(PatternRule::Selector::all, spans.size()).front())),
@@ -202,9 +202,9 @@ void arrange_cases(Model& model, Diagnostics& diagnostics) {
         }
         for (const Arrangement& a : arrangements_of(rule, spans)) {
             std::string name = fmt::format("{}.{}", base.name, a.name);
-            model.arrangement_trace.push_back(
+            derivation.arrangement_trace.push_back(
                 TraceLine{fmt::format("{}: {}", name, a.description), "", false});
-            model.cases.push_back(arranged_case(model, base, request.members, spans, a, name));
+            derivation.cases.push_back(arranged_case(model, base, request.members, spans, a, name));
         }
     }
 }

@@ -517,22 +517,25 @@ LoadCase SnowDeriver::new_case(const char* what) const {
 }
 
 void SnowDeriver::add_case(LoadCase lc) {
-    for (const LoadCase& other : m_.cases) {
-        if (other.name == lc.name) {
-            Diagnostic& d =
-                d_.error(other.where, fmt::format("load case '{}' has the name of a snow case "
-                                                  "that snow data {} make",
-                                                  lc.name, site_.name));
-            d.note(site_.where, "the snow data are here");
-            return;
+    const std::vector<LoadCase>& derived = out_.cases;
+    for (const std::vector<LoadCase>* cases : {&m_.cases, &derived}) {
+        for (const LoadCase& other : *cases) {
+            if (other.name == lc.name) {
+                Diagnostic& d =
+                    d_.error(other.where, fmt::format("load case '{}' has the name of a snow case "
+                                                      "that snow data {} make",
+                                                      lc.name, site_.name));
+                d.note(site_.where, "the snow data are here");
+                return;
+            }
         }
     }
-    m_.cases.push_back(std::move(lc));
+    out_.cases.push_back(std::move(lc));
 }
 
 void SnowDeriver::mark_unverified() {
     bool any = false;
-    for (TraceLine& t : m_.snow_trace) {
+    for (TraceLine& t : out_.snow_trace) {
         if (from_memory(t.clause)) {
             t.clause += " *";
             any = true;
@@ -565,10 +568,11 @@ double roof_slope_factor(const SnowTables& tables, double Ct, bool slippery, dou
     return on_curve(tables.Cs_knee[curve_of(Ct)][slippery ? 0 : 1], tables.Cs_zero_slope, slope);
 }
 
-void derive_snow(Model& model, Diagnostics& diagnostics) {
-    if (!model.snow)
-        return;
-    SnowDeriver(model, diagnostics).run();
+Derivation derive_snow(const Model& model, Diagnostics& diagnostics) {
+    Derivation out;
+    if (model.snow)
+        SnowDeriver(model, out, diagnostics).run();
+    return out;
 }
 
 }  // namespace firn

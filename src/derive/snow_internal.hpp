@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "base/diag.hpp"
+#include "ir/derivation.hpp"
 #include "ir/model.hpp"
 
 namespace firn::snow_detail {
@@ -46,8 +47,8 @@ double eave_to_ridge(const RoofShape& shape);
 
 class SnowDeriver {
   public:
-    SnowDeriver(Model& m, Diagnostics& d)
-        : m_(m), d_(d), site_(*m.snow), t_(m.snow->tables), u_(m.units) {}
+    SnowDeriver(const Model& m, Derivation& out, Diagnostics& d)
+        : m_(m), out_(out), d_(d), site_(*m.snow), t_(m.snow->tables), u_(m.units) {}
 
     void run() {
         trace_site();
@@ -75,7 +76,8 @@ class SnowDeriver {
     }
 
   private:
-    Model& m_;
+    const Model& m_;
+    Derivation& out_;
     Diagnostics& d_;
     const SnowSite& site_;
     const SnowTables& t_;
@@ -97,14 +99,14 @@ class SnowDeriver {
     static std::string factor(double v) { return fmt::format("{:.2f}", v); }
 
     void line(std::string text, std::string clause = "") {
-        m_.snow_trace.push_back(TraceLine{std::move(text), std::move(clause), false});
+        out_.snow_trace.push_back(TraceLine{std::move(text), std::move(clause), false});
     }
     /// Names a derived value for expectations (`expect snow NAME ...`).
     void record(std::string name, double value, Dimension dimension) {
-        m_.snow_values.push_back(SnowValue{std::move(name), value, dimension});
+        out_.snow_values.push_back(SnowValue{std::move(name), value, dimension});
     }
     void heading(std::string text) {
-        m_.snow_trace.push_back(TraceLine{std::move(text), "", true});
+        out_.snow_trace.push_back(TraceLine{std::move(text), "", true});
     }
 
     void trace_site();

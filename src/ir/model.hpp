@@ -344,14 +344,6 @@ struct Amendment {
     SourceRange where;
 };
 
-/// A derived snow value by name (`pf`, `main.ps`, `drift.main.step_left.hd`), SI, for
-/// the expectations a model states about them.
-struct SnowValue {
-    std::string name;
-    double value = 0.0;
-    Dimension dimension;
-};
-
 /// A bound on a result (`expect`), checked by `firn check`.
 struct Expectation {
     enum class Quantity {
@@ -383,14 +375,6 @@ struct Expectation {
     SourceRange where;  ///< the statement
 };
 
-/// One line of the snow trace: a derived value with its formula, the values put
-/// in, the result and the clause; or a sentence saying why a provision does not apply.
-struct TraceLine {
-    std::string text;
-    std::string clause;
-    bool heading = false;  ///< starts a part: the site's data, or a roof
-};
-
 /// The whole resolved model. Vectors keep declaration order.
 struct Model {
     std::string title;
@@ -410,15 +394,12 @@ struct Model {
     std::vector<Roof> roofs;
     std::vector<Projection> projections;
     std::vector<Amendment> amendments;
-    std::vector<TraceLine> snow_trace;   ///< filled by derive_snow
-    std::vector<SnowValue> snow_values;  ///< filled by derive_snow
     std::vector<Expectation> expectations;
     std::vector<CombinationSet> combination_sets;
     std::optional<CombineChoice> combine;
     std::vector<PatternRule> patterns;
     std::vector<ArrangeRequest> arrangements;
     std::vector<DeflectionLimits> deflection_limits;
-    std::vector<TraceLine> arrangement_trace;  ///< filled by arrange_cases
 };
 
 /// Length and direction cosines of a member (local x from start to end node).

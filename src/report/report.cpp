@@ -190,18 +190,18 @@ void write_trace(std::string& out, const std::vector<TraceLine>& trace) {
     out += '\n';
 }
 
-void write_snow(std::string& out, const Model& model) {
-    if (model.snow_trace.empty())
+void write_snow(std::string& out, const Derivation& derivation) {
+    if (derivation.snow_trace.empty())
         return;
     out += "== Snow loads ==\n";
-    write_trace(out, model.snow_trace);
+    write_trace(out, derivation.snow_trace);
 }
 
-void write_arrangements(std::string& out, const Model& model) {
-    if (model.arrangement_trace.empty())
+void write_arrangements(std::string& out, const Derivation& derivation) {
+    if (derivation.arrangement_trace.empty())
         return;
     out += "== Load arrangements ==\n";
-    write_trace(out, model.arrangement_trace);
+    write_trace(out, derivation.arrangement_trace);
 }
 
 void write_case_list(std::string& out, const Model& model) {
@@ -428,8 +428,10 @@ void write_text_report(const Model& model, const Results& results, const ReportO
     write_members(out, model);
     write_sections(out, model);
     write_case_list(out, model);
-    write_snow(out, model);
-    write_arrangements(out, model);
+    if (options.derivation != nullptr) {
+        write_snow(out, *options.derivation);
+        write_arrangements(out, *options.derivation);
+    }
     if (options.mirror != nullptr)
         write_mirror(out, model, *options.mirror);
     if (options.combinations != nullptr)
@@ -461,6 +463,7 @@ ReportOptions report_options(const Analysis& a) {
     options.deflections = &a.deflections;
     options.mirror = &a.mirror;
     options.expectations = &a.expectations;
+    options.derivation = &a.derivation;
     return options;
 }
 

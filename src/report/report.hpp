@@ -9,6 +9,7 @@
 #include "ir/analysis.hpp"
 #include "ir/checks.hpp"
 #include "ir/combinations.hpp"
+#include "ir/derivation.hpp"
 #include "ir/display.hpp"
 #include "ir/mirror.hpp"
 #include "ir/model.hpp"
@@ -28,6 +29,7 @@ struct ReportOptions {
     const std::vector<DeflectionCheck>* deflections = nullptr;
     const Mirror* mirror = nullptr;  ///< which cases and members mirror which
     const std::vector<ExpectationOutcome>* expectations = nullptr;  ///< per `expect`
+    const Derivation* derivation = nullptr;  ///< the snow and arrangement traces
 };
 
 /// Receives a report piece by piece (a piece per load case at most), so a

@@ -136,9 +136,9 @@ Json case_json(const Model& model, const Results& results, std::size_t c,
 }
 
 /// The snow trace: each line's text, its clause and whether it starts a part.
-Json snow_trace_json(const Model& model) {
+Json snow_trace_json(const Derivation& derivation) {
     Json lines = Json::array();
-    for (const TraceLine& t : model.snow_trace) {
+    for (const TraceLine& t : derivation.snow_trace) {
         Json line{{"text", t.text}};
         if (!t.clause.empty())
             line["clause"] = t.clause;
@@ -326,8 +326,8 @@ void write_json_report(const Model& model, const Results& results, const ReportO
               {"caution", kCaution},
               {"units", units_json(model.units)},
               {"model", model_json(model)}};
-    if (!model.snow_trace.empty())
-        head["snow_trace"] = snow_trace_json(model);
+    if (options.derivation != nullptr && !options.derivation->snow_trace.empty())
+        head["snow_trace"] = snow_trace_json(*options.derivation);
     std::string text = head.dump(1, ' ', false, Json::error_handler_t::replace);
     text.resize(text.size() - 2);  // the final "\n}": the cases follow
     text += ",\n \"cases\": [";

@@ -36,11 +36,18 @@ firn::ImportOptions no_files() {
     std::abort();
 }
 
+/// The report options with the snow and arrangement traces.
+firn::ReportOptions with_traces(const firn::Analysis& a) {
+    firn::ReportOptions options;
+    options.derivation = &a.derivation;
+    return options;
+}
+
 /// The text report of an analysed model (empty when it has errors). The
 /// diagnostics are rendered too, but left out, as they name places.
 std::string report_of(const firn::Analysis& a) {
     (void)firn::render(a.diagnostics, a.sources);
-    return a.ok ? firn::text_report(a.model, a.results, {}) : std::string();
+    return a.ok ? firn::text_report(a.model, a.results, with_traces(a)) : std::string();
 }
 
 /// The canonical layout of `text`, or none when it does not parse. A
@@ -64,7 +71,7 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     firn::Analysis a = firn::analyse_text("fuzz.firn", text, nullptr, options);
     std::string report = report_of(a);
     if (a.ok)
-        (void)firn::json_report(a.model, a.results, {});
+        (void)firn::json_report(a.model, a.results, with_traces(a));
     std::optional<std::string> layout = formatted(text);
     // Formatting changes only whitespace, so a model that analyses gives the
     // same report after it (messages may move, so only reports are compared).
