@@ -6,20 +6,22 @@
 #include <fmt/format.h>
 #include <algorithm>
 #include <cmath>
-#include <numbers>
 #include <optional>
 #include <string>
 #include <vector>
 
 #include "base/diag.hpp"
+#include "base/units.hpp"
 #include "ir/derivation.hpp"
 #include "ir/model.hpp"
 
 namespace firn::snow_detail {
 
-constexpr double kDegree = std::numbers::pi / 180.0;
-constexpr double kFoot = 0.3048;                                           // m, exact
-constexpr double kPoundPerSquareFoot = 4.4482216152605 / (kFoot * kFoot);  // Pa, exact
+/// The units the standard's formulas and the trace's angles are written in, from
+/// the unit table (exact definitions).
+inline const double kDegree = find_unit("deg")->to_si;
+inline const double kFoot = find_unit("ft")->to_si;
+inline const double kPoundPerSquareFoot = find_unit("psf")->to_si;
 /// Slopes closer than this are one slope (rad): members of one roof plane.
 constexpr double kSameSlope = 1e-6;
 
