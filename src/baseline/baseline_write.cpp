@@ -193,7 +193,7 @@ void add_deflections(Writer& w, const Analysis& a) {
 /// `snow SITE NAME`. A value of a kind with no display unit is left out.
 void add_snow_values(Writer& w, const Model& model, const Derivation& derivation) {
     std::string site = model.snow ? model.snow->name : "snow";
-    for (const SnowValue& v : derivation.snow_values) {
+    for (const SnowValue& v : snow_values(derivation)) {
         const DisplayUnit* unit = v.dimension == dim::pressure ? &model.units.pressure
                                   : v.dimension == dim::length ? &model.units.length
                                   : v.dimension == dim::number ? &kRatio

@@ -10,8 +10,8 @@
 
 namespace firn {
 
-/// The derived snow value called `name`, or nullptr.
-const SnowValue* find_snow_value(const Derivation& derivation, const std::string& name);
+/// The derived snow value called `name`, if there is one.
+std::optional<SnowValue> find_snow_value(const Derivation& derivation, const std::string& name);
 
 /// The index of the support at node `n`, if one holds it.
 std::optional<std::size_t> support_at(const Model& model, NodeId n);

@@ -49,10 +49,10 @@ class NameCheck {
                      "a set of combinations; leave 'under' out");
             return false;
         }
-        const SnowValue* v = find_snow_value(derivation_, x.snow_value);
-        if (v == nullptr) {
+        std::optional<SnowValue> v = find_snow_value(derivation_, x.snow_value);
+        if (!v) {
             std::vector<std::string> names;
-            for (const SnowValue& known : derivation_.snow_values)
+            for (const SnowValue& known : snow_values(derivation_))
                 names.push_back(known.name);
             d_.error(x.where,
                      fmt::format("no derived snow value '{}'{}", x.snow_value,
@@ -108,12 +108,12 @@ class NameCheck {
 
 }  // namespace
 
-const SnowValue* find_snow_value(const Derivation& derivation, const std::string& name) {
-    for (const SnowValue& v : derivation.snow_values) {
+std::optional<SnowValue> find_snow_value(const Derivation& derivation, const std::string& name) {
+    for (SnowValue& v : snow_values(derivation)) {
         if (v.name == name)
-            return &v;
+            return std::move(v);
     }
-    return nullptr;
+    return std::nullopt;
 }
 
 std::optional<std::size_t> support_at(const Model& model, NodeId n) {

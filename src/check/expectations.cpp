@@ -149,8 +149,8 @@ class Checker {
     }
 
     ExpectationOutcome& check_snow(const Expectation& x, ExpectationOutcome& out) {
-        const SnowValue* v = find_snow_value(in_.derivation, x.snow_value);
-        if (v == nullptr || !x.source.empty() || v->dimension != x.dimension)
+        std::optional<SnowValue> v = find_snow_value(in_.derivation, x.snow_value);
+        if (!v || !x.source.empty() || v->dimension != x.dimension)
             return out;  // reported by check_expectation_names
         Governing g{v->value, 0.0, no_combination};
         record(out, judge(x, Range{g, g}), "", false);

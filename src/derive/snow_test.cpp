@@ -8,6 +8,7 @@
 
 #include "derive/snow.hpp"
 #include "driver/driver.hpp"
+#include "report/report.hpp"
 #include "testing/test_text.hpp"
 
 using namespace firn;
@@ -62,8 +63,8 @@ double pressure_on(const Model& m, const std::string& c, std::size_t load = 0) {
 }
 
 bool trace_has(const Analysis& a, const std::string& text) {
-    for (const TraceLine& t : a.derivation.snow_trace) {
-        if (t.text.find(text) != std::string::npos)
+    for (const TraceStep& t : a.derivation.snow_trace) {
+        if (trace_text(t, a.model.units).find(text) != std::string::npos)
             return true;
     }
     return false;

@@ -62,6 +62,13 @@ std::string describe_finding(const Model& model, const Expectation& x, const Fin
 /// of the bound.
 std::string describe_margin(const Model& model, const Expectation& x, const Finding& f);
 
+/// A step of a trace in words, its values in the model's display units.
+std::string trace_text(const TraceStep& step, const DisplayUnits& units);
+
+/// A step's clause as the report writes it: marked " *" when its values were
+/// entered from memory.
+std::string trace_clause(const TraceStep& step);
+
 /// Report options with every section the analysis holds (no stations).
 ReportOptions report_options(const Analysis& a);
 

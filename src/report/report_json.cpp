@@ -136,12 +136,12 @@ Json case_json(const Model& model, const Results& results, std::size_t c,
 }
 
 /// The snow trace: each line's text, its clause and whether it starts a part.
-Json snow_trace_json(const Derivation& derivation) {
+Json snow_trace_json(const Derivation& derivation, const DisplayUnits& units) {
     Json lines = Json::array();
-    for (const TraceLine& t : derivation.snow_trace) {
-        Json line{{"text", t.text}};
+    for (const TraceStep& t : derivation.snow_trace) {
+        Json line{{"text", trace_text(t, units)}};
         if (!t.clause.empty())
-            line["clause"] = t.clause;
+            line["clause"] = trace_clause(t);
         if (t.heading)
             line["heading"] = true;
         lines.push_back(std::move(line));
@@ -327,7 +327,7 @@ void write_json_report(const Model& model, const Results& results, const ReportO
               {"units", units_json(model.units)},
               {"model", model_json(model)}};
     if (options.derivation != nullptr && !options.derivation->snow_trace.empty())
-        head["snow_trace"] = snow_trace_json(*options.derivation);
+        head["snow_trace"] = snow_trace_json(*options.derivation, model.units);
     std::string text = head.dump(1, ' ', false, Json::error_handler_t::replace);
     text.resize(text.size() - 2);  // the final "\n}": the cases follow
     text += ",\n \"cases\": [";
