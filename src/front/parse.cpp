@@ -661,10 +661,20 @@ template <>
 struct action<g::let_name> : store_name<&syntax::LetDecl::name> {};
 
 template <>
+struct action<g::let_text> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::LetDecl>().text = unquote(in.string_view());
+        b.current<syntax::LetDecl>().text_where = b.range(in);
+    }
+};
+
+template <>
 struct action<g::let_stmt> {
     template <typename Input>
     static void apply(const Input&, Builder& b) {
-        b.current<syntax::LetDecl>().value = b.pop_expr();
+        if (!b.current<syntax::LetDecl>().text)
+            b.current<syntax::LetDecl>().value = b.pop_expr();
     }
 };
 

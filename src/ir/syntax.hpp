@@ -100,10 +100,12 @@ struct Grid {
     std::optional<Run> run;
 };
 
-/// `let bay = 24 ft`
+/// `let bay = 24 ft`, or a text: `let asce7_16.edition = "ASCE 7-16"`
 struct LetDecl {
     Name name;
-    Expr value;
+    Expr value;                       ///< unless the value is a text
+    std::optional<std::string> text;  ///< the text, unquoted
+    SourceRange text_where;           ///< the text as written, quotes included
 };
 
 /// `use materials` (a module of the standard library) or `use "site.firn"`

@@ -72,6 +72,10 @@ std::optional<Quantity> Constants::constant(const syntax::Expr& ref, Diagnostics
         return std::nullopt;
     }
     Entry& entry = entries_[*i];
+    if (entry.decl->text) {
+        diagnostics.error(ref.where, fmt::format("'{}' is a text, not a number", ref.literal));
+        return std::nullopt;
+    }
     if (entry.state == Entry::State::evaluating) {
         auto first = std::find(evaluating_.begin(), evaluating_.end(), ref.literal);
         std::vector<std::string> chain(first, evaluating_.end());
@@ -106,6 +110,12 @@ void Constants::amend(const syntax::AmendDecl& decl, Diagnostics& diagnostics) {
         return;
     }
     Entry& entry = entries_[*i];
+    if (entry.decl->text) {
+        diagnostics.error(
+            decl.name.where,
+            fmt::format("'{}' is a text; 'amend' replaces numbers only", decl.name.text));
+        return;
+    }
     if (entry.amended != nullptr) {
         Diagnostic& d = diagnostics.error(
             decl.name.where, fmt::format("value '{}' is already amended", decl.name.text));
@@ -135,7 +145,19 @@ std::optional<Quantity> Constants::lookup(const std::string& name, Diagnostics& 
     auto i = names_.find_quietly(name);
     if (!i)
         return std::nullopt;
+    if (entries_[*i].decl->text) {
+        diagnostics.error(entries_[*i].decl->text_where,
+                          fmt::format("'{}' is a text, not a number", name));
+        return std::nullopt;
+    }
     return value_of(entries_[*i], diagnostics);
+}
+
+std::optional<std::string> Constants::text(const std::string& name) const {
+    auto i = names_.find_quietly(name);
+    if (!i)
+        return std::nullopt;
+    return entries_[*i].decl->text;
 }
 
 std::optional<Quantity> Constants::value_of(Entry& entry, Diagnostics& diagnostics) {
@@ -152,8 +174,10 @@ std::optional<Quantity> Constants::value_of(Entry& entry, Diagnostics& diagnosti
 }
 
 void Constants::evaluate_all(Diagnostics& diagnostics) {
-    for (Entry& entry : entries_)
-        value_of(entry, diagnostics);
+    for (Entry& entry : entries_) {
+        if (!entry.decl->text)
+            value_of(entry, diagnostics);
+    }
 }
 
 namespace {

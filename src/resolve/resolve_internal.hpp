@@ -56,8 +56,11 @@ class Constants : public Scope {
         return i && entries_[*i].amended == &decl;
     }
     bool has(const std::string& name) const { return names_.find_quietly(name).has_value(); }
-    /// The value named `name`, or nullopt if there is none (or it has an error).
+    /// The value named `name`, or nullopt if there is none (or it has an error, or
+    /// it is a text, which is reported).
     std::optional<Quantity> lookup(const std::string& name, Diagnostics& diagnostics);
+    /// The text a `let` gives `name` (`let asce7_16.edition = "ASCE 7-16"`), if it is one.
+    std::optional<std::string> text(const std::string& name) const;
     /// Evaluates every value, so an unused value's error is reported too.
     void evaluate_all(Diagnostics& diagnostics);
 
