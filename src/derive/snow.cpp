@@ -1,4 +1,4 @@
-// snow: ASCE 7-16 Chapter 7, the formulas. The standard's numbers come from
+// snow: the snow provisions' formulas. The standard's numbers and clauses come from
 // its library module (model.snow->tables); every value derived here is
 // written to the trace with its formula, the values put in and its clause.
 // Drifts and sliding snow are in snow_drift.cpp.
@@ -59,23 +59,18 @@ double on_curve(double knee, double zero, double slope) {
     return 1.0 - (slope - knee) / (zero - knee);
 }
 
-/// Clauses whose values were entered from memory (see stdlib/asce7_16.firn);
-/// the trace marks them so a reviewer verifies them against the printed standard.
-bool from_memory(std::string_view clause) {
-    for (std::string_view c :
-         {"Table 7.3-1", "Table 1.5-2", "Sec. 7.3.4", "Sec. 7.10", "Fig. 7.4-1a", "Fig. 7.4-1b",
-          "Fig. 7.4-1c", "Sec. 7.4.1", "Sec. 7.6.1", "Fig. 7.6-2", "Fig. 7.6-1", "Sec. 7.7.1",
-          "Sec. 7.8", "Sec. 7.7.2", "Sec. 7.4.5", "Sec. 7.9", "Sec. 7.5.1"}) {
-        if (clause.ends_with(c))
-            return true;
-    }
-    return false;
+/// Whether a citation is of a clause whose values were entered from memory (the
+/// library lists them); the trace marks them so a reviewer verifies them against
+/// the printed standard.
+bool from_memory(const SnowTables& t, std::string_view clause) {
+    return std::any_of(t.from_memory.begin(), t.from_memory.end(),
+                       [&](const std::string& c) { return clause.ends_with(c); });
 }
 
 }  // namespace
 
 void SnowDeriver::trace_site() {
-    heading("Snow data {}: {}, Chapter 7", {text(site_.name), text("ASCE 7-16")});
+    heading("Snow data {}: {}, {}", {text(site_.name), text(t_.edition), text(t_.chapter)});
     for (const Amendment& a : m_.amendments) {
         TraceValue value = a.dimension == dim::pressure ? pressure(a.value)
                            : a.dimension == dim::length ? length(a.value)
@@ -83,7 +78,7 @@ void SnowDeriver::trace_site() {
         line("amended: {} = {} because \"{}\"", {text(a.name), value, text(a.reason)});
         out_.snow_trace.back().provenance = Provenance::given;
     }
-    line("pg = {}, the ground snow load (given)", {pressure(site_.pg)}, "ASCE 7-16 Sec. 7.2");
+    line("pg = {}, the ground snow load (given)", {pressure(site_.pg)}, t_.clause.pg);
     name_last("pg", 0);
     trace_factor("Ce", site_.Ce,
                  fmt::format("terrain {}, {} exposed", site_.terrain, site_.exposure));
@@ -93,14 +88,14 @@ void SnowDeriver::trace_site() {
     line("pf = {} Ce Ct Is pg = {} x {} x {} x {} x {} = {}",
          {number(t_.pf_factor), number(t_.pf_factor), factor(site_.Ce.value),
           factor(site_.Ct.value), factor(site_.Is.value), pressure(site_.pg), pressure(pf_)},
-         "ASCE 7-16 Eq. 7.3-1");
+         t_.clause.pf);
     name_last("pf", 6);
 }
 
 void SnowDeriver::trace_factor(const char* symbol, const SnowFactor& f, const std::string& basis) {
     if (f.reason.empty()) {
         line("{} = {}, {}", {text(symbol), factor(f.value), text(basis)},
-             fmt::format("ASCE 7-16 {}", f.table));
+             fmt::format("{} {}", t_.edition, f.table));
         out_.snow_trace.back().provenance = Provenance::table;
     } else {
         line("{} = {}, given instead of {}: \"{}\"",
@@ -113,7 +108,6 @@ void SnowDeriver::trace_factor(const char* symbol, const SnowFactor& f, const st
 /// Cs from the curve of Fig. 7.4-1 that the thermal factor and surface select.
 double SnowDeriver::slope_factor(const Roof& roof, double slope, const std::string& members) {
     std::size_t curve = curve_of(site_.Ct.value);
-    static const char* const figures[] = {"Fig. 7.4-1a", "Fig. 7.4-1b", "Fig. 7.4-1c"};
     static const char* const roofs[] = {"warm roof", "cold ventilated roof", "cold roof"};
     bool slippery = roof.slippery;
     if (slippery && curve == 0) {
@@ -125,7 +119,7 @@ double SnowDeriver::slope_factor(const Roof& roof, double slope, const std::stri
                 "roof {} has R {}: the curve for other surfaces",
                 {number(needed), text(roof.ventilated ? "ventilated" : "unventilated"),
                  text(roof.name), number(roof.insulation_R)},
-                "ASCE 7-16 Sec. 7.4.1");
+                t_.clause.slippery);
             slippery = false;
         }
     }
@@ -133,7 +127,7 @@ double SnowDeriver::slope_factor(const Roof& roof, double slope, const std::stri
     double zero = t_.Cs_zero_slope;
     std::string which =
         fmt::format("{}, {} surface", roofs[curve], slippery ? "unobstructed slippery" : "other");
-    std::string clause = fmt::format("ASCE 7-16 {}", figures[curve]);
+    const std::string& clause = t_.clause.Cs[curve];
     if (slope <= knee) {
         line("Cs = 1.00 for {}: slope {} is not above the knee {} ({})",
              {text(members), degrees(slope), degrees(knee), text(which)}, clause);
@@ -154,7 +148,7 @@ double SnowDeriver::slope_factor(const Roof& roof, double slope, const std::stri
 
 /// The rain-on-snow surcharge for the balanced case (0 where it does not apply).
 double SnowDeriver::rain_on_snow(double slope, double W) {
-    const char* clause = "ASCE 7-16 Sec. 7.10";
+    const std::string& clause = t_.clause.rain;
     double limit_deg = W / t_.rain_W_per_degree;
     if (!(site_.pg > 0.0)) {
         line("rain-on-snow surcharge not required: pg is zero", clause);
@@ -187,7 +181,7 @@ double SnowDeriver::rain_on_snow(double slope, double W) {
 
 /// pm for a low-slope roof (0 where it does not apply): its own case, never a floor on pf.
 double SnowDeriver::minimum_load(double slope, const std::string& name) {
-    const char* clause = "ASCE 7-16 Sec. 7.3.4";
+    const std::string& clause = t_.clause.pm;
     if (!(slope < t_.pm_max_slope)) {
         line("minimum load pm not required: slope {} is not below {}",
              {degrees(slope), degrees(t_.pm_max_slope)}, clause);
@@ -262,11 +256,11 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
             ps_step[j] = out_.snow_trace.size();
         }
         line("ps = Cs pf = {} x {} = {}", {number(cs, 3), pressure(pf_), pressure(ps)},
-             "ASCE 7-16 Eq. 7.4-1");
+             t_.clause.ps);
         double p = ps + rain;
         if (rain > 0.0) {
             line("balanced load = ps + rain-on-snow = {} + {} = {}",
-                 {pressure(ps), pressure(rain), pressure(p)}, "ASCE 7-16 Sec. 7.10");
+                 {pressure(ps), pressure(rain), pressure(p)}, t_.clause.rain);
         }
         line("on the members: {} x {} = {} down, on the horizontal projection",
              {pressure(p), length(roof.tributary), line_load(p * roof.tributary)});
@@ -303,7 +297,7 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
 /// some spans of the roof and a fraction of it on the others, by the library's
 /// rule (or the roof's own); the other roofs keep their balanced load.
 void SnowDeriver::partial_loads(const Roof& roof) {
-    const char* clause = "ASCE 7-16 Sec. 7.5.1";
+    const std::string& clause = t_.clause.partial;
     std::string rule_name = roof.partial.empty() ? site_.standard + ".partial" : roof.partial;
     heading("Partial loads on roof {}", {text(roof.name)});
     if (rule_name == "none") {
@@ -349,7 +343,7 @@ void SnowDeriver::partial_loads(const Roof& roof) {
 
 /// Unbalanced loads on a gable (Sec. 7.6.1): one case for wind from each side.
 void SnowDeriver::unbalanced(const Roof& roof, const std::vector<double>& ps, double steepest) {
-    const char* clause = "ASCE 7-16 Sec. 7.6.1";
+    const std::string& clause = t_.clause.unbalanced;
     RoofShape shape = shape_of(m_, roof);
     if (!shape.ridge) {
         line(
@@ -377,7 +371,7 @@ void SnowDeriver::unbalanced(const Roof& roof, const std::vector<double>& ps, do
 void SnowDeriver::unbalanced_case(const Roof& roof, const std::vector<double>& ps,
                                   bool wind_from_left, const RoofShape& shape) {
     double ridge_x = *shape.ridge;
-    const char* clause = "ASCE 7-16 Sec. 7.6.1, Fig. 7.6-2";
+    const std::string& clause = t_.clause.unbalanced_load;
     LoadCase& lc =
         case_named(wind_from_left ? "unbalanced.wind_from_left" : "unbalanced.wind_from_right");
     // Members on the windward side lie upwind of the ridge.
@@ -477,7 +471,7 @@ std::vector<MemberId> SnowDeriver::overhangs(const Roof& roof) const {
 /// Ice dams along eaves (Sec. 7.4.5): 2 pf on the overhangs of a warm roof
 /// without enough insulation, a case combined with dead load only.
 void SnowDeriver::ice_dam(const Roof& roof) {
-    const char* clause = "ASCE 7-16 Sec. 7.4.5";
+    const std::string& clause = t_.clause.ice_dam;
     std::vector<MemberId> eaves = overhangs(roof);
     if (eaves.empty()) {
         line("ice dam load not required: roof {} has no eave overhang", {text(roof.name)}, clause);
@@ -542,7 +536,7 @@ void SnowDeriver::add_case(LoadCase lc) {
 void SnowDeriver::mark_unverified() {
     bool any = false;
     for (TraceStep& t : out_.snow_trace) {
-        if (from_memory(t.clause)) {
+        if (from_memory(t_, t.clause)) {
             t.provenance = Provenance::from_memory;
             any = true;
         }

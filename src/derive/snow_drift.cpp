@@ -1,5 +1,5 @@
 // snow_drift: drifts at roof steps, parapets, adjacent structures and roof
-// projections (ASCE 7-16 Sec. 7.7, 7.8) and sliding snow (Sec. 7.9), each a
+// projections (the standard's Sec. 7.7, 7.8) and sliding snow (Sec. 7.9), each a
 // snow case of its own riding on the balanced load.
 #include "derive/snow.hpp"
 
@@ -12,7 +12,7 @@ void SnowDeriver::trace_density(double gamma) {
          {number(t_.density_per_pg * kFoot), density(t_.density_base),
           number(t_.density_per_pg * kFoot), pressure(site_.pg), density(t_.density_base),
           density(gamma), density(t_.density_max)},
-         "ASCE 7-16 Eq. 7.7-1");
+         t_.clause.density);
 }
 
 /// The drift height line, with the formula in its own units (ft and psf).
@@ -27,7 +27,7 @@ void SnowDeriver::trace_drift(double lu, double hd, const char* lu_is) {
          number((site_.pg + t_.drift_pg_offset) / kPoundPerSquareFoot, 3),
          number(t_.drift_offset / kFoot), number(hd / kFoot, 3),
          TraceValue{TraceValue::Kind::length_unless, hd, dim::length, -1, "ft"}},
-        "ASCE 7-16 Fig. 7.6-1");
+        t_.clause.drift_height);
 }
 
 /// hb, the balanced snow's height, and hc, the clear height above it to the top
@@ -102,7 +102,7 @@ void SnowDeriver::drift_at(const Roof& roof, double ps, bool left_end) {
     const char* end = left_end ? "left" : "right";
     bool step = edge.step > 0.0;
     std::string where = fmt::format("{} at the {} end", step ? "roof step" : "parapet", end);
-    std::string clause = step ? "ASCE 7-16 Sec. 7.7.1" : "ASCE 7-16 Sec. 7.8";
+    std::string clause = step ? t_.clause.step : t_.clause.parapet;
     RoofShape shape = shape_of(m_, roof);
     double length_of_roof = shape.right - shape.left;
     double hc = 0.0;
@@ -138,7 +138,7 @@ void SnowDeriver::adjacent_drift(const Roof& roof, double ps, bool left_end) {
     const Roof::Edge& edge = left_end ? roof.left : roof.right;
     if (edge.adjacent == 0.0)
         return;
-    const char* clause = "ASCE 7-16 Sec. 7.7.2";
+    const std::string& clause = t_.clause.adjacent;
     const char* end = left_end ? "left" : "right";
     std::string where = fmt::format("adjacent structure at the {} end", end);
     double h = edge.adjacent, s = edge.adjacent_gap;
@@ -167,8 +167,8 @@ void SnowDeriver::adjacent_drift(const Roof& roof, double ps, bool left_end) {
     line(
         "windward: 0.75 hd = {}, as at a roof step (the truncation the clause permits is not "
         "taken)",
-        {length(windward_hd)}, "ASCE 7-16 Sec. 7.7.1");
-    Triangle windward = capped_triangle(windward_hd, hc, "ASCE 7-16 Sec. 7.7.1");
+        {length(windward_hd)}, t_.clause.step);
+    Triangle windward = capped_triangle(windward_hd, hc, t_.clause.step);
     bool leeward_governs = leeward.hd >= windward.hd;
     line("leeward drift {} high, windward {}: the {} governs",
          {length(leeward.hd), length(windward.hd), text(leeward_governs ? "leeward" : "windward")},
@@ -185,7 +185,7 @@ void SnowDeriver::adjacent_drift(const Roof& roof, double ps, bool left_end) {
 /// as the face (at most the tributary width).
 void SnowDeriver::projection_drifts(const Projection& p, const std::vector<double>& ps) {
     const Roof& roof = m_.roofs[p.roof];
-    const char* clause = "ASCE 7-16 Sec. 7.8";
+    const std::string& clause = t_.clause.parapet;
     RoofShape shape = shape_of(m_, roof);
     double left_face = shape.left + p.left_face, right_face = left_face + p.width;
     heading(
@@ -240,7 +240,7 @@ void SnowDeriver::sliding_onto(const Roof& roof, bool left_end) {
     const Roof::Edge& edge = left_end ? roof.left : roof.right;
     if (edge.sliding_from.empty())
         return;
-    const char* clause = "ASCE 7-16 Sec. 7.9";
+    const std::string& clause = t_.clause.sliding;
     const char* end = left_end ? "left" : "right";
     auto upper = std::find_if(m_.roofs.begin(), m_.roofs.end(),
                               [&](const Roof& u) { return u.name == edge.sliding_from; });

@@ -55,7 +55,7 @@ std::string json_report(const Model& model, const Results& results, const Report
 std::string show_bound(const Model& model, const Expectation& x);
 
 /// Where a finding is and what gives it: "eave.BC has 47.100 kip*ft at 12.000 ft under
-/// asce7_16.strength.3/2" ("the value is 30.8 psf" for a snow value).
+/// SET.3/2" ("the value is 30.8 psf" for a snow value).
 std::string describe_finding(const Model& model, const Expectation& x, const Finding& f);
 
 /// "2.100 kip*ft beyond the bound (4.7 %)" or "margin 1.200 kip*ft (2.6 %)", the percentage
