@@ -4,6 +4,8 @@
 #include <fmt/format.h>
 #include <catch2/catch.hpp>
 #include <cmath>
+#include <fstream>
+#include <iterator>
 #include <map>
 
 #include "derive/snow.hpp"
@@ -626,4 +628,42 @@ TEST_CASE("snow: sliding snow from an upper roof, and onto a narrow lower roof")
     const DistributedLoad& narrow = find_case(n.model, "S.sliding.lower.left")->distributed.back();
     CHECK(narrow.end / kFt == Approx(10).epsilon(1e-12));
     CHECK(narrow.w_start / (20 * kFt) == Approx(224.0 / 15 * kPsf).epsilon(1e-12));
+}
+
+TEST_CASE("snow: the edition and its clauses come from the library, not from the code") {
+    // The library module under another name and edition: the same numbers (so pf =
+    // 0.7 x 1.0 x 1.2 x 1.0 x 40 psf = 33.6 psf, ASCE 7-16 Eq. 7.3-1), cited by the
+    // names the module gives.
+    std::ifstream in(std::string(FIRN_SOURCE_DIR) + "/stdlib/asce7_16.firn", std::ios::binary);
+    std::string library((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+    auto renamed = [](std::string text) {
+        for (auto [from, to] : {std::pair<std::string, std::string>{"asce7_16", "county_rules"},
+                                {"\"ASCE 7-16\"", "\"County rules 2030\""},
+                                {"\"Eq. 7.3-1\"", "\"Rule 3.1\""}}) {
+            for (std::size_t at = text.find(from); at != std::string::npos;
+                 at = text.find(from, at + to.size()))
+                text.replace(at, from.size(), to);
+        }
+        return text;
+    };
+    ImportOptions options;
+    options.read = [&](const std::string& path, std::string& text, std::string& error) {
+        if (path != "county_rules.firn") {
+            error = "cannot read";
+            return false;
+        }
+        text = renamed(library);
+        return true;
+    };
+    std::string model = flat_frame(kSite);
+    model.replace(model.find("use asce7_16"), 12, "use \"county_rules.firn\"");
+    model.replace(model.find("standard = asce7_16"), 19, "standard = county_rules");
+    Analysis a = analysed(model, options);
+    CHECK(pressure_on(a.model, "S.balanced") == Approx(33.6 * kPsf).epsilon(1e-12));
+    CHECK(trace_text(a.derivation.snow_trace.front(), a.model.units) ==
+          "Snow data S: County rules 2030, Chapter 7");
+    bool cited = false;
+    for (const TraceStep& t : a.derivation.snow_trace)
+        cited = cited || t.clause == "County rules 2030 Rule 3.1";
+    CHECK(cited);
 }
