@@ -72,7 +72,9 @@ int run(const char* style, const std::string& text, std::size_t bays, std::size_
     }
     auto report_start = std::chrono::steady_clock::now();
     std::size_t report_bytes = 0;
-    firn::write_text_report(a.model, a.results, {}, [&report_bytes](std::string_view piece) {
+    firn::ReportOptions options;
+    options.derivation = &a.derivation;  // the snow trace, as `firn run` writes it
+    firn::write_text_report(a.model, a.results, options, [&report_bytes](std::string_view piece) {
         report_bytes += piece.size();
     });
     double report_time = seconds_since(report_start);

@@ -75,6 +75,7 @@ FIRN_ERROR(load_at, "expected a distance along the member such as 4 ft")
 FIRN_ERROR(kw_weight, "expected 'weight' after 'self'")
 
 FIRN_ERROR(let_name, "expected a name for the value, as in: let bay = 24 ft")
+FIRN_ERROR(let_value, "expected a value such as 12 ft")
 FIRN_ERROR(use_target, "expected a library module such as materials, or a file in double quotes such as \"site.firn\"")
 FIRN_ERROR(call_argument, "expected a value such as 12 ft")
 FIRN_ERROR(run_last, "expected the last grid line of the run, as in: A..F")

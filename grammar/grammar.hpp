@@ -226,10 +226,14 @@ struct title : if_must<one<'"'>, star<text_char>, one<'"'>> {};
 struct model_begin : kw_model {};
 struct model_stmt : if_must<model_begin, sp, title> {};
 
-// let_stmt    <- 'let' sp name sp '=' sp expr
+// let_stmt    <- 'let' sp name sp '=' sp (quoted / expr)
+//                a value, or a text in double quotes (library modules name their
+//                edition and clauses so)
 struct let_name : name {};
 struct let_begin : kw_let {};
-struct let_stmt : if_must<let_begin, sp, let_name, sp, equals, sp, expr> {};
+struct let_text : if_must<one<'"'>, star<text_char>, one<'"'>> {};
+struct let_value : sor<let_text, expr> {};
+struct let_stmt : if_must<let_begin, sp, let_name, sp, equals, sp, let_value> {};
 
 // use_stmt    <- 'use' sp ('outside' sp)? (path / name)
 struct path : if_must<one<'"'>, star<text_char>, one<'"'>> {};

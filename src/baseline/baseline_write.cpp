@@ -197,9 +197,9 @@ void add_deflections(Writer& w, const Analysis& a) {
 
 /// The derived snow values a model names (`pf`, `main.ps`, a drift's `hd`), as
 /// `snow SITE NAME`. A value of a kind with no display unit is left out.
-void add_snow_values(Writer& w, const Model& model) {
+void add_snow_values(Writer& w, const Model& model, const Derivation& derivation) {
     std::string site = model.snow ? model.snow->name : "snow";
-    for (const SnowValue& v : model.snow_values) {
+    for (const SnowValue& v : snow_values(derivation)) {
         const DisplayUnit* unit = v.dimension == dim::pressure ? &model.units.pressure
                                   : v.dimension == dim::length ? &model.units.length
                                   : v.dimension == dim::number ? &kRatio
@@ -232,7 +232,7 @@ Baseline make_baseline(const Analysis& a) {
         fmt::format("force {}, length {}, moment {}, displacement {}, rotation {}", u.force.name,
                     u.length.name, u.moment.name, u.displacement.name, u.rotation.name);
     Writer w{b};
-    add_snow_values(w, model);
+    add_snow_values(w, model, a.derivation);
     for (std::size_t c = 0; c < model.cases.size() && c < a.results.cases.size(); ++c)
         add_case(w, a, c);
     for (std::size_t s = 0; s < a.combinations.sets.size() && s < a.envelopes.size(); ++s) {

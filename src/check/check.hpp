@@ -9,6 +9,7 @@
 #include "base/diag.hpp"
 #include "ir/checks.hpp"
 #include "ir/combinations.hpp"
+#include "ir/derivation.hpp"
 #include "ir/load_set.hpp"
 #include "ir/model.hpp"
 #include "ir/results.hpp"
@@ -24,10 +25,19 @@ struct CheckInputs {
     const Results& results;
     const CombinationList& combinations;
     const std::vector<Envelopes>& envelopes;
+    const Derivation& derivation;  ///< the named snow values
 };
 
-/// Checks every expectation of the model in statement order. A source (`under`) or snow
-/// value that does not exist is reported to `diagnostics` and its outcome is unchecked.
-std::vector<ExpectationOutcome> check_expectations(const CheckInputs& in, Diagnostics& diagnostics);
+/// Before anything is solved: reports every name an expectation uses that the model
+/// and its derivation lack (an `under` source that is no case and no chosen set, a
+/// snow value, a reaction at a node without support) and a bound that does not fit its
+/// snow value. `model.cases` are the declared cases, `derivation.cases` the derived
+/// ones. True when every expectation can be checked.
+bool check_expectation_names(const Model& model, const Derivation& derivation,
+                             Diagnostics& diagnostics);
+
+/// Checks every expectation of the model in statement order, once
+/// `check_expectation_names` has passed and the derived cases are the model's.
+std::vector<ExpectationOutcome> check_expectations(const CheckInputs& in);
 
 }  // namespace firn

@@ -2,14 +2,13 @@
 // or every case alone), held to its bounds.
 #include "check/check.hpp"
 
-#include <fmt/format.h>
 #include <algorithm>
 #include <cmath>
 #include <map>
 #include <optional>
 
 #include "analyse/analyse.hpp"
-#include "ir/display.hpp"
+#include "check/check_internal.hpp"
 
 namespace firn {
 namespace {
@@ -89,7 +88,7 @@ std::string governing_name(const Source& s, const Governing& g) {
 
 class Checker {
   public:
-    Checker(const CheckInputs& in, Diagnostics& d) : in_(in), d_(d) {}
+    explicit Checker(const CheckInputs& in) : in_(in) {}
 
     ExpectationOutcome check(std::size_t index) {
         const Expectation& x = in_.model.expectations[index];
@@ -105,8 +104,8 @@ class Checker {
                 Range range = member_range(source->envelopes().members[at(m)], x.quantity);
                 record(out, judged(x, range, *source), in_.model.members[at(m)].name, true);
             }
-        } else if (!check_nodes(x, *source, out)) {
-            return out;
+        } else {
+            check_nodes(x, *source, out);
         }
         out.checked = true;
         return out;
@@ -114,7 +113,6 @@ class Checker {
 
   private:
     const CheckInputs& in_;
-    Diagnostics& d_;
     std::map<std::string, Source> sources_;
 
     Finding judged(const Expectation& x, const Range& range, const Source& s) {
@@ -133,7 +131,8 @@ class Checker {
             out.failures.push_back(std::move(f));
     }
 
-    bool check_nodes(const Expectation& x, const Source& s, ExpectationOutcome& out) {
+    /// Every node of a reaction has a support (check_expectation_names said so).
+    void check_nodes(const Expectation& x, const Source& s, ExpectationOutcome& out) {
         for (NodeId n : x.nodes) {
             const std::string& name = in_.model.nodes[at(n)].name;
             if (x.quantity != Q::reaction) {
@@ -142,80 +141,37 @@ class Checker {
                        name, false);
                 continue;
             }
-            auto support = support_at(n);
-            if (!support) {
-                d_.error(x.where, fmt::format("node '{}' has no support, so no reaction", name));
-                return false;
-            }
+            std::size_t support = support_at(in_.model, n).value();
             record(out,
-                   judged(x, component_range(s.envelopes().reactions[*support], x.component), s),
+                   judged(x, component_range(s.envelopes().reactions[support], x.component), s),
                    name, false);
         }
-        return true;
-    }
-
-    std::optional<std::size_t> support_at(NodeId n) const {
-        for (std::size_t i = 0; i < in_.model.supports.size(); ++i) {
-            if (in_.model.supports[i].node == n)
-                return i;
-        }
-        return std::nullopt;
     }
 
     ExpectationOutcome& check_snow(const Expectation& x, ExpectationOutcome& out) {
-        if (!x.source.empty()) {
-            d_.error(x.source_where,
-                     "a snow value is derived once, not under a load case or "
-                     "a set of combinations; leave 'under' out");
-            return out;
-        }
-        std::vector<std::string> names;
-        for (const SnowValue& v : in_.model.snow_values) {
-            if (v.name == x.snow_value)
-                return check_snow_value(x, v, out);
-            names.push_back(v.name);
-        }
-        d_.error(x.where, fmt::format("no derived snow value '{}'{}", x.snow_value,
-                                      names.empty() ? std::string("; the model has no snow data")
-                                                    : did_you_mean(x.snow_value, names)));
-        return out;
-    }
-
-    ExpectationOutcome& check_snow_value(const Expectation& x, const SnowValue& v,
-                                         ExpectationOutcome& out) {
-        if (v.dimension != x.dimension) {
-            d_.error(x.where, fmt::format("the bound's unit does not fit snow value '{}' ({})",
-                                          v.name, show_expected_value(in_.model, x, v.value)));
-            return out;
-        }
-        Governing g{v.value, 0.0, no_combination};
+        std::optional<SnowValue> v = find_snow_value(in_.derivation, x.snow_value);
+        if (!v || !x.source.empty() || v->dimension != x.dimension)
+            return out;  // reported by check_expectation_names
+        Governing g{v->value, 0.0, no_combination};
         record(out, judge(x, Range{g, g}), "", false);
         out.checked = true;
         return out;
     }
 
+    /// The source of `x`, or nullptr where check_expectation_names reported it.
     const Source* source_for(const Expectation& x) {
         std::string key = x.source;
         if (key.empty()) {
-            if (in_.envelopes.size() > 1) {
-                std::vector<std::string> sets;
-                for (const auto& set : in_.combinations.sets)
-                    sets.push_back(set.name);
-                d_.error(x.where, fmt::format("the model combines {} sets ({}); say which this "
-                                              "bound is for with 'under SET'",
-                                              sets.size(), fmt::join(sets, ", ")));
+            if (in_.envelopes.size() > 1)
                 return nullptr;
-            }
             if (in_.envelopes.size() == 1)
                 key = in_.combinations.sets.front().name;
         }
         if (auto it = sources_.find(key); it != sources_.end())
             return &it->second;
         auto source = make_source(key);
-        if (!source) {
-            report_unknown_source(x);
+        if (!source)
             return nullptr;
-        }
         return &sources_.emplace(key, std::move(*source)).first->second;
     }
 
@@ -247,27 +203,12 @@ class Checker {
             s.names.push_back(c.name);
         return s;
     }
-
-    void report_unknown_source(const Expectation& x) {
-        std::vector<std::string> names;
-        for (const auto& set : in_.combinations.sets)
-            names.push_back(set.name);
-        for (const LoadCase& c : in_.model.cases)
-            names.push_back(c.name);
-        if (x.source.empty()) {
-            d_.error(x.where, "the model has no load cases to check this against");
-            return;
-        }
-        d_.error(x.source_where, fmt::format("no load case or chosen set of combinations '{}'{}",
-                                             x.source, did_you_mean(x.source, names)));
-    }
 };
 
 }  // namespace
 
-std::vector<ExpectationOutcome> check_expectations(const CheckInputs& in,
-                                                   Diagnostics& diagnostics) {
-    Checker checker(in, diagnostics);
+std::vector<ExpectationOutcome> check_expectations(const CheckInputs& in) {
+    Checker checker(in);
     std::vector<ExpectationOutcome> outcomes;
     for (std::size_t i = 0; i < in.model.expectations.size(); ++i)
         outcomes.push_back(checker.check(i));

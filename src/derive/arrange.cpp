@@ -185,16 +185,17 @@ LoadCase arranged_case(const Model& model, const LoadCase& base, const std::vect
     return lc;
 }
 
-void arrange_cases(Model& model, Diagnostics& diagnostics) {
+void arrange_cases(const Model& model, Derivation& derivation, Diagnostics& diagnostics) {
     for (const ArrangeRequest& request : model.arrangements) {
         const PatternRule& rule = model.patterns[request.rule];
         std::vector<Span> spans = spans_of(model, request.members);
         LoadCase base = model.cases[at(request.load_case)];
-        model.arrangement_trace.push_back(TraceLine{
-            fmt::format(
-                "{} arranged by {} over the spans {}", base.name, rule.name,
-                span_list(spans, selections(PatternRule::Selector::all, spans.size()).front())),
-            "", true});
+        TraceStep heading;
+        heading.formula = fmt::format(
+            "{} arranged by {} over the spans {}", base.name, rule.name,
+            span_list(spans, selections(PatternRule::Selector::all, spans.size()).front()));
+        heading.heading = true;
+        derivation.arrangement_trace.push_back(std::move(heading));
         if (!base.self_weight.empty()) {
             diagnostics.warning(request.where,
                                 fmt::format("the self weight in case '{}' is not arranged: it "
@@ -203,9 +204,10 @@ void arrange_cases(Model& model, Diagnostics& diagnostics) {
         }
         for (const Arrangement& a : arrangements_of(rule, spans)) {
             std::string name = fmt::format("{}.{}", base.name, a.name);
-            model.arrangement_trace.push_back(
-                TraceLine{fmt::format("{}: {}", name, a.description), "", false});
-            model.cases.push_back(arranged_case(model, base, request.members, spans, a, name));
+            TraceStep step;
+            step.formula = fmt::format("{}: {}", name, a.description);
+            derivation.arrangement_trace.push_back(std::move(step));
+            derivation.cases.push_back(arranged_case(model, base, request.members, spans, a, name));
         }
     }
 }

@@ -1,7 +1,7 @@
 // arrange: load arrangements over the spans of a run of members. A pattern
 // rule (PatternRule, written in the language) gives each span a factor of a
 // load; this stage finds the spans and makes one load case per arrangement.
-// The snow stage uses it for partial loading (ASCE 7-16 Sec. 7.5.1); models
+// The snow stage uses it for partial loading (the standard's Sec. 7.5.1); models
 // use it through `arrange CASE on MEMBERS by RULE` (pattern live load, say).
 #pragma once
 

@@ -8,18 +8,19 @@
 
 #include "base/diag.hpp"
 #include "ir/combinations.hpp"
+#include "ir/derivation.hpp"
 #include "ir/load_set.hpp"
 #include "ir/model.hpp"
 
 namespace firn {
 
-/// Adds the snow cases (NAME.balanced, NAME.minimum where it applies) and the
-/// trace of every derived value to `model`. Does nothing without snow data.
-void derive_snow(Model& model, Diagnostics& diagnostics);
+/// The snow cases (NAME.balanced, NAME.minimum where it applies, ...), the trace of
+/// every derived value and the values by name. Empty without snow data.
+Derivation derive_snow(const Model& model, Diagnostics& diagnostics);
 
-/// Adds the cases of every `arrange` request to the model (after its base case's
-/// arrangements so far), with a trace of the spans and arrangements.
-void arrange_cases(Model& model, Diagnostics& diagnostics);
+/// Adds the cases of every `arrange` request to `derivation` (after the cases it
+/// holds), with a trace of the spans and arrangements.
+void arrange_cases(const Model& model, Derivation& derivation, Diagnostics& diagnostics);
 
 /// Every combination of the chosen sets, in set and rule order, each listed
 /// once per set (a repeat of an earlier one in its set is left out).

@@ -1,4 +1,4 @@
-// snow: ASCE 7-16 Chapter 7, the formulas. The standard's numbers come from
+// snow: the snow provisions' formulas. The standard's numbers and clauses come from
 // its library module (model.snow->tables); every value derived here is
 // written to the trace with its formula, the values put in and its clause.
 // Drifts and sliding snow are in snow_drift.cpp.
@@ -59,73 +59,67 @@ double on_curve(double knee, double zero, double slope) {
     return 1.0 - (slope - knee) / (zero - knee);
 }
 
-/// Clauses whose values were entered from memory (see stdlib/asce7_16.firn);
-/// the trace marks them so a reviewer verifies them against the printed standard.
-bool from_memory(std::string_view clause) {
-    for (std::string_view c :
-         {"Table 7.3-1", "Table 1.5-2", "Sec. 7.3.4", "Sec. 7.10", "Fig. 7.4-1a", "Fig. 7.4-1b",
-          "Fig. 7.4-1c", "Sec. 7.4.1", "Sec. 7.6.1", "Fig. 7.6-2", "Fig. 7.6-1", "Sec. 7.7.1",
-          "Sec. 7.8", "Sec. 7.7.2", "Sec. 7.4.5", "Sec. 7.9", "Sec. 7.5.1"}) {
-        if (clause.ends_with(c))
-            return true;
-    }
-    return false;
+/// Whether a citation is of a clause whose values were entered from memory (the
+/// library lists them); the trace marks them so a reviewer verifies them against
+/// the printed standard.
+bool from_memory(const SnowTables& t, std::string_view clause) {
+    return std::any_of(t.from_memory.begin(), t.from_memory.end(),
+                       [&](const std::string& c) { return clause.ends_with(c); });
 }
 
 }  // namespace
 
 void SnowDeriver::trace_site() {
-    heading(fmt::format("Snow data {}: {}, Chapter 7", site_.name, "ASCE 7-16"));
+    heading("Snow data {}: {}, {}", {text(site_.name), text(t_.edition), text(t_.chapter)});
     for (const Amendment& a : m_.amendments) {
-        std::string value = a.dimension == dim::pressure ? pressure(a.value)
-                            : a.dimension == dim::length ? length(a.value)
-                                                         : fmt::format("{:g}", a.value);
-        line(fmt::format("amended: {} = {} because \"{}\"", a.name, value, a.reason));
+        TraceValue value = a.dimension == dim::pressure ? pressure(a.value)
+                           : a.dimension == dim::length ? length(a.value)
+                                                        : number(a.value);
+        line("amended: {} = {} because \"{}\"", {text(a.name), value, text(a.reason)});
+        out_.snow_trace.back().provenance = Provenance::given;
     }
-    line(fmt::format("pg = {}, the ground snow load (given)", pressure(site_.pg)),
-         "ASCE 7-16 Sec. 7.2");
+    line("pg = {}, the ground snow load (given)", {pressure(site_.pg)}, t_.clause.pg);
+    name_last("pg", 0);
     trace_factor("Ce", site_.Ce,
                  fmt::format("terrain {}, {} exposed", site_.terrain, site_.exposure));
     trace_factor("Ct", site_.Ct, fmt::format("thermal condition {}", site_.thermal));
     trace_factor("Is", site_.Is, fmt::format("risk category {}", site_.risk));
     pf_ = t_.pf_factor * site_.Ce.value * site_.Ct.value * site_.Is.value * site_.pg;
-    line(fmt::format("pf = {:g} Ce Ct Is pg = {:g} x {} x {} x {} x {} = {}", t_.pf_factor,
-                     t_.pf_factor, factor(site_.Ce.value), factor(site_.Ct.value),
-                     factor(site_.Is.value), pressure(site_.pg), pressure(pf_)),
-         "ASCE 7-16 Eq. 7.3-1");
-    record("pg", site_.pg, dim::pressure);
-    record("Ce", site_.Ce.value, dim::number);
-    record("Ct", site_.Ct.value, dim::number);
-    record("Is", site_.Is.value, dim::number);
-    record("pf", pf_, dim::pressure);
+    line("pf = {} Ce Ct Is pg = {} x {} x {} x {} x {} = {}",
+         {number(t_.pf_factor), number(t_.pf_factor), factor(site_.Ce.value),
+          factor(site_.Ct.value), factor(site_.Is.value), pressure(site_.pg), pressure(pf_)},
+         t_.clause.pf);
+    name_last("pf", 6);
 }
 
 void SnowDeriver::trace_factor(const char* symbol, const SnowFactor& f, const std::string& basis) {
     if (f.reason.empty()) {
-        line(fmt::format("{} = {}, {}", symbol, factor(f.value), basis),
-             fmt::format("ASCE 7-16 {}", f.table));
+        line("{} = {}, {}", {text(symbol), factor(f.value), text(basis)},
+             fmt::format("{} {}", t_.edition, f.table));
+        out_.snow_trace.back().provenance = Provenance::table;
     } else {
-        line(fmt::format("{} = {}, given instead of {}: \"{}\"", symbol, factor(f.value), f.table,
-                         f.reason),
-             "override");
+        line("{} = {}, given instead of {}: \"{}\"",
+             {text(symbol), factor(f.value), text(f.table), text(f.reason)}, "override");
+        out_.snow_trace.back().provenance = Provenance::given;
     }
+    name_last(symbol, 1);
 }
 
 /// Cs from the curve of Fig. 7.4-1 that the thermal factor and surface select.
 double SnowDeriver::slope_factor(const Roof& roof, double slope, const std::string& members) {
     std::size_t curve = curve_of(site_.Ct.value);
-    static const char* const figures[] = {"Fig. 7.4-1a", "Fig. 7.4-1b", "Fig. 7.4-1c"};
     static const char* const roofs[] = {"warm roof", "cold ventilated roof", "cold roof"};
     bool slippery = roof.slippery;
     if (slippery && curve == 0) {
         double needed =
             roof.ventilated ? t_.warm_slippery_R_ventilated : t_.warm_slippery_R_unventilated;
         if (roof.insulation_R < needed) {
-            line(fmt::format("a warm slippery roof takes the slippery curve only with insulation "
-                             "R >= {:g} ({}); roof {} has R {:g}: the curve for other surfaces",
-                             needed, roof.ventilated ? "ventilated" : "unventilated", roof.name,
-                             roof.insulation_R),
-                 "ASCE 7-16 Sec. 7.4.1");
+            line(
+                "a warm slippery roof takes the slippery curve only with insulation R >= {} ({}); "
+                "roof {} has R {}: the curve for other surfaces",
+                {number(needed), text(roof.ventilated ? "ventilated" : "unventilated"),
+                 text(roof.name), number(roof.insulation_R)},
+                t_.clause.slippery);
             slippery = false;
         }
     }
@@ -133,80 +127,82 @@ double SnowDeriver::slope_factor(const Roof& roof, double slope, const std::stri
     double zero = t_.Cs_zero_slope;
     std::string which =
         fmt::format("{}, {} surface", roofs[curve], slippery ? "unobstructed slippery" : "other");
-    std::string clause = fmt::format("ASCE 7-16 {}", figures[curve]);
+    const std::string& clause = t_.clause.Cs[curve];
     if (slope <= knee) {
-        line(fmt::format("Cs = 1.00 for {}: slope {} is not above the knee {} ({})", members,
-                         degrees(slope), degrees(knee), which),
-             clause);
+        line("Cs = 1.00 for {}: slope {} is not above the knee {} ({})",
+             {text(members), degrees(slope), degrees(knee), text(which)}, clause);
         return 1.0;
     }
     if (slope >= zero) {
-        line(fmt::format("Cs = 0.00 for {}: slope {} is not below {} ({})", members, degrees(slope),
-                         degrees(zero), which),
-             clause);
+        line("Cs = 0.00 for {}: slope {} is not below {} ({})",
+             {text(members), degrees(slope), degrees(zero), text(which)}, clause);
         return 0.0;
     }
     double cs = 1.0 - (slope - knee) / (zero - knee);
-    line(fmt::format("Cs = 1 - (slope - knee)/({} - knee) = 1 - ({} - {})/({} - {}) = {:.3f} for "
-                     "{} ({})",
-                     degrees(zero), degrees(slope), degrees(knee), degrees(zero), degrees(knee), cs,
-                     members, which),
+    line("Cs = 1 - (slope - knee)/({} - knee) = 1 - ({} - {})/({} - {}) = {} for {} ({})",
+         {degrees(zero), degrees(slope), degrees(knee), degrees(zero), degrees(knee), number(cs, 3),
+          text(members), text(which)},
          clause);
     return cs;
 }
 
 /// The rain-on-snow surcharge for the balanced case (0 where it does not apply).
 double SnowDeriver::rain_on_snow(double slope, double W) {
-    const char* clause = "ASCE 7-16 Sec. 7.10";
+    const std::string& clause = t_.clause.rain;
     double limit_deg = W / t_.rain_W_per_degree;
     if (!(site_.pg > 0.0)) {
         line("rain-on-snow surcharge not required: pg is zero", clause);
         return 0.0;
     }
     if (site_.pg > t_.rain_pg_limit) {
-        line(fmt::format("rain-on-snow surcharge not required: pg = {} is above {}",
-                         pressure(site_.pg), pressure(t_.rain_pg_limit)),
-             clause);
+        line("rain-on-snow surcharge not required: pg = {} is above {}",
+             {pressure(site_.pg), pressure(t_.rain_pg_limit)}, clause);
         return 0.0;
     }
-    std::string limit = fmt::format("W/{} = {} / {} = {:.2f} deg", length(t_.rain_W_per_degree),
-                                    length(W), length(t_.rain_W_per_degree), limit_deg);
+    // The slope limit W/50 ft in degrees, as the end of both lines below.
+    std::string limit = "W/{} = {} / {} = {} deg";
+    std::vector<TraceValue> limit_values{length(t_.rain_W_per_degree), length(W),
+                                         length(t_.rain_W_per_degree), number(limit_deg, 2)};
     if (!(slope / kDegree < limit_deg)) {
-        line(fmt::format("rain-on-snow surcharge not required: slope {} is not below {}",
-                         degrees(slope), limit),
-             clause);
+        std::vector<TraceValue> values{degrees(slope)};
+        values.insert(values.end(), limit_values.begin(), limit_values.end());
+        line("rain-on-snow surcharge not required: slope {} is not below " + limit,
+             std::move(values), clause);
         return 0.0;
     }
-    line(fmt::format("rain-on-snow surcharge {} on the balanced load: 0 < pg = {} <= {} and "
-                     "slope {} < {}",
-                     pressure(t_.rain_surcharge), pressure(site_.pg), pressure(t_.rain_pg_limit),
-                     degrees(slope), limit),
-         clause);
+    std::vector<TraceValue> values{pressure(t_.rain_surcharge), pressure(site_.pg),
+                                   pressure(t_.rain_pg_limit), degrees(slope)};
+    values.insert(values.end(), limit_values.begin(), limit_values.end());
+    line(
+        "rain-on-snow surcharge {} on the balanced load: 0 < pg = {} <= {} and slope {} < " + limit,
+        std::move(values), clause);
     return t_.rain_surcharge;
 }
 
 /// pm for a low-slope roof (0 where it does not apply): its own case, never a floor on pf.
-double SnowDeriver::minimum_load(double slope) {
-    const char* clause = "ASCE 7-16 Sec. 7.3.4";
+double SnowDeriver::minimum_load(double slope, const std::string& name) {
+    const std::string& clause = t_.clause.pm;
     if (!(slope < t_.pm_max_slope)) {
-        line(fmt::format("minimum load pm not required: slope {} is not below {}", degrees(slope),
-                         degrees(t_.pm_max_slope)),
-             clause);
+        line("minimum load pm not required: slope {} is not below {}",
+             {degrees(slope), degrees(t_.pm_max_slope)}, clause);
         return 0.0;
     }
     double is = site_.Is.value;
     if (site_.pg <= t_.pm_pg_limit) {
         double pm = is * site_.pg;
-        line(fmt::format("pm = Is pg = {} x {} = {} (pg <= {}), a case of its own", factor(is),
-                         pressure(site_.pg), pressure(pm), pressure(t_.pm_pg_limit)),
-             clause);
+        line("pm = Is pg = {} x {} = {} (pg <= {}), a case of its own",
+             {factor(is), pressure(site_.pg), pressure(pm), pressure(t_.pm_pg_limit)}, clause);
+        if (pm > 0.0)
+            name_last(name, 2);
         return pm;
     }
     double pm = is * t_.pm_pg_limit;
-    line(fmt::format("pm = Is x {} = {} x {} = {} (pg > {}), a case of its own",
-                     pressure(t_.pm_pg_limit), factor(is), pressure(t_.pm_pg_limit), pressure(pm),
-                     pressure(t_.pm_pg_limit)),
+    line("pm = Is x {} = {} x {} = {} (pg > {}), a case of its own",
+         {pressure(t_.pm_pg_limit), factor(is), pressure(t_.pm_pg_limit), pressure(pm),
+          pressure(t_.pm_pg_limit)},
          clause);
+    if (pm > 0.0)
+        name_last(name, 3);
     return pm;
 }
 
@@ -217,24 +213,27 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
         names.push_back(m_.members[at(id)].name);
         steepest = std::max(steepest, geometry_of(m_, id).slope);
     }
-    heading(fmt::format("Roof {}: members {}; tributary width {}; {} surface", roof.name,
-                        fmt::join(names, ", "), length(roof.tributary),
-                        roof.slippery ? "unobstructed slippery" : "other"));
+    heading("Roof {}: members {}; tributary width {}; {} surface",
+            {text(roof.name), text(fmt::format("{}", fmt::join(names, ", "))),
+             length(roof.tributary), text(roof.slippery ? "unobstructed slippery" : "other")});
     const Roof::Tributary& t = roof.tributary_from;
     if (!t.frame.empty()) {
-        line(fmt::format("tributary width of the frame on plan line {} = half of each bay beside "
-                         "it{} = ({} + {}) / 2{} = {}",
-                         t.frame, t.overhang > 0.0 ? ", plus the overhang" : "", length(t.left_bay),
-                         length(t.right_bay),
-                         t.overhang > 0.0 ? fmt::format(" + {}", length(t.overhang)) : "",
-                         length(roof.tributary)),
-             "common practice");
+        bool overhang = t.overhang > 0.0;
+        std::vector<TraceValue> values{text(t.frame), length(t.left_bay), length(t.right_bay)};
+        if (overhang)
+            values.push_back(length(t.overhang));
+        values.push_back(length(roof.tributary));
+        line(fmt::format("tributary width of the frame on plan line {{}} = half of each bay beside "
+                         "it{} = ({{}} + {{}}) / 2{} = {{}}",
+                         overhang ? ", plus the overhang" : "", overhang ? " + {}" : ""),
+             std::move(values), "common practice");
     }
     double W = eave_to_ridge(shape_of(m_, roof));
     double rain = rain_on_snow(steepest, W);
     // One Cs per roof plane: members of equal slope share it.
     std::vector<char> done(roof.members.size(), 0);
     std::vector<double> ps_of(roof.members.size(), 0.0);
+    std::vector<std::size_t> ps_step(roof.members.size(), 0);  // the trace step of each ps
     for (std::size_t i = 0; i < roof.members.size(); ++i) {
         if (done[i])
             continue;
@@ -252,22 +251,26 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
         }
         double cs = slope_factor(roof, slope, fmt::format("{}", fmt::join(plane_names, ", ")));
         double ps = cs * pf_;
-        for (std::size_t j : same_plane)
+        for (std::size_t j : same_plane) {
             ps_of[j] = ps;
-        line(fmt::format("ps = Cs pf = {:.3f} x {} = {}", cs, pressure(pf_), pressure(ps)),
-             "ASCE 7-16 Eq. 7.4-1");
+            ps_step[j] = out_.snow_trace.size();
+        }
+        line("ps = Cs pf = {} x {} = {}", {number(cs, 3), pressure(pf_), pressure(ps)},
+             t_.clause.ps);
         double p = ps + rain;
         if (rain > 0.0) {
-            line(fmt::format("balanced load = ps + rain-on-snow = {} + {} = {}", pressure(ps),
-                             pressure(rain), pressure(p)),
-                 "ASCE 7-16 Sec. 7.10");
+            line("balanced load = ps + rain-on-snow = {} + {} = {}",
+                 {pressure(ps), pressure(rain), pressure(p)}, t_.clause.rain);
         }
-        line(fmt::format("on the members: {} x {} = {} down, on the horizontal projection",
-                         pressure(p), length(roof.tributary), line_load(p * roof.tributary)));
+        line("on the members: {} x {} = {} down, on the horizontal projection",
+             {pressure(p), length(roof.tributary), line_load(p * roof.tributary)});
         load_members(roof, plane, p, balanced);
         load_members(roof, plane, ps, plain_balanced_);
     }
-    record(roof.name + ".ps", *std::max_element(ps_of.begin(), ps_of.end()), dim::pressure);
+    // The roof's ps is the largest of its planes'.
+    std::size_t largest =
+        static_cast<std::size_t>(std::max_element(ps_of.begin(), ps_of.end()) - ps_of.begin());
+    out_.snow_trace[ps_step[largest]].names.push_back({roof.name + ".ps", 2});
     unbalanced(roof, ps_of, steepest);
     drift_at(roof, ps_of.front(), true);
     drift_at(roof, ps_of.back(), false);
@@ -276,13 +279,11 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
     sliding_onto(roof, true);
     sliding_onto(roof, false);
     ice_dam(roof);
-    double pm = minimum_load(steepest);
+    double pm = minimum_load(steepest, roof.name + ".pm");
     if (pm > 0.0) {
-        record(roof.name + ".pm", pm, dim::pressure);
-        line(fmt::format(
-            "on the members (case {}.minimum): {} x {} = {} down, on the horizontal "
-            "projection",
-            site_.name, pressure(pm), length(roof.tributary), line_load(pm * roof.tributary)));
+        line("on the members (case {}.minimum): {} x {} = {} down, on the horizontal projection",
+             {text(site_.name), pressure(pm), length(roof.tributary),
+              line_load(pm * roof.tributary)});
         load_members(roof, roof.members, pm, minimum);
     }
     // Last: each projection opens a part of the trace of its own.
@@ -296,29 +297,28 @@ void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& mi
 /// some spans of the roof and a fraction of it on the others, by the library's
 /// rule (or the roof's own); the other roofs keep their balanced load.
 void SnowDeriver::partial_loads(const Roof& roof) {
-    const char* clause = "ASCE 7-16 Sec. 7.5.1";
+    const std::string& clause = t_.clause.partial;
     std::string rule_name = roof.partial.empty() ? site_.standard + ".partial" : roof.partial;
-    heading(fmt::format("Partial loads on roof {}", roof.name));
+    heading("Partial loads on roof {}", {text(roof.name)});
     if (rule_name == "none") {
-        line(fmt::format("partial loading not applied: the roof says partial = none"), clause);
+        line("partial loading not applied: the roof says partial = none", {}, clause);
         return;
     }
     auto rule = std::find_if(m_.patterns.begin(), m_.patterns.end(),
                              [&](const PatternRule& p) { return p.name == rule_name; });
     if (rule == m_.patterns.end()) {
-        line(fmt::format("partial loading not applied: no pattern rule {} (is 'use {}' missing?)",
-                         rule_name, site_.standard),
-             clause);
+        line("partial loading not applied: no pattern rule {} (is 'use {}' missing?)",
+             {text(rule_name), text(site_.standard)}, clause);
         return;
     }
     double steepest = 0.0;
     for (MemberId id : roof.members)
         steepest = std::max(steepest, geometry_of(m_, id).slope);
     if (shape_of(m_, roof).ridge && std::tan(steepest) >= t_.partial_gable_exempt_rise - 1e-12) {
-        line(fmt::format("partial loading not required: the members span perpendicular to the "
-                         "ridge of a gable roof sloped {}, not below {}",
-                         degrees(steepest), degrees(std::atan(t_.partial_gable_exempt_rise))),
-             clause);
+        line(
+            "partial loading not required: the members span perpendicular to the ridge of a gable "
+            "roof sloped {}, not below {}",
+            {degrees(steepest), degrees(std::atan(t_.partial_gable_exempt_rise))}, clause);
         return;
     }
     std::vector<Span> spans = spans_of(m_, roof.members);
@@ -326,45 +326,43 @@ void SnowDeriver::partial_loads(const Roof& roof) {
     for (const Span& span : spans)
         names.push_back(span.cantilever ? span.name + " (cantilever)" : span.name);
     if (spans.size() < 2) {
-        line(fmt::format("partial loading not required: roof {} has one span, {}", roof.name,
-                         fmt::join(names, ", ")),
-             clause);
+        line("partial loading not required: roof {} has one span, {}",
+             {text(roof.name), text(fmt::format("{}", fmt::join(names, ", ")))}, clause);
         return;
     }
-    line(fmt::format("spans {}, arranged by rule {}; the other roofs carry their balanced load",
-                     fmt::join(names, ", "), rule->name),
-         clause);
+    line("spans {}, arranged by rule {}; the other roofs carry their balanced load",
+         {text(fmt::format("{}", fmt::join(names, ", "))), text(rule->name)}, clause);
     for (const Arrangement& a : arrangements_of(*rule, spans)) {
         LoadCase lc = arranged_case(m_, plain_balanced_, roof.members, spans, a,
                                     fmt::format("{}.partial.{}.{}", site_.name, roof.name, a.name));
         lc.arrangement_of.clear();
-        line(fmt::format("case {}: ps x {}", lc.name, a.description), clause);
+        line("case {}: ps x {}", {text(lc.name), text(a.description)}, clause);
         add_case(std::move(lc));
     }
 }
 
 /// Unbalanced loads on a gable (Sec. 7.6.1): one case for wind from each side.
 void SnowDeriver::unbalanced(const Roof& roof, const std::vector<double>& ps, double steepest) {
-    const char* clause = "ASCE 7-16 Sec. 7.6.1";
+    const std::string& clause = t_.clause.unbalanced;
     RoofShape shape = shape_of(m_, roof);
     if (!shape.ridge) {
-        line(fmt::format("unbalanced load not required: roof {} is not a hip or gable roof (no "
-                         "ridge between its eaves)",
-                         roof.name),
-             clause);
+        line(
+            "unbalanced load not required: roof {} is not a hip or gable roof (no ridge between "
+            "its eaves)",
+            {text(roof.name)}, clause);
         return;
     }
     double rise = std::tan(steepest);
     if (rise < t_.unbalanced_min_rise - 1e-12 || rise > t_.unbalanced_max_rise + 1e-12) {
-        line(fmt::format("unbalanced load not required: slope {} is outside {} to {}",
-                         degrees(steepest), degrees(std::atan(t_.unbalanced_min_rise)),
-                         degrees(std::atan(t_.unbalanced_max_rise))),
+        line("unbalanced load not required: slope {} is outside {} to {}",
+             {degrees(steepest), degrees(std::atan(t_.unbalanced_min_rise)),
+              degrees(std::atan(t_.unbalanced_max_rise))},
              clause);
         return;
     }
-    line(fmt::format("unbalanced loads, wind from each side: slope {} is within {} to {}",
-                     degrees(steepest), degrees(std::atan(t_.unbalanced_min_rise)),
-                     degrees(std::atan(t_.unbalanced_max_rise))),
+    line("unbalanced loads, wind from each side: slope {} is within {} to {}",
+         {degrees(steepest), degrees(std::atan(t_.unbalanced_min_rise)),
+          degrees(std::atan(t_.unbalanced_max_rise))},
          clause);
     unbalanced_case(roof, ps, true, shape);
     unbalanced_case(roof, ps, false, shape);
@@ -373,7 +371,7 @@ void SnowDeriver::unbalanced(const Roof& roof, const std::vector<double>& ps, do
 void SnowDeriver::unbalanced_case(const Roof& roof, const std::vector<double>& ps,
                                   bool wind_from_left, const RoofShape& shape) {
     double ridge_x = *shape.ridge;
-    const char* clause = "ASCE 7-16 Sec. 7.6.1, Fig. 7.6-2";
+    const std::string& clause = t_.clause.unbalanced_load;
     LoadCase& lc =
         case_named(wind_from_left ? "unbalanced.wind_from_left" : "unbalanced.wind_from_right");
     // Members on the windward side lie upwind of the ridge.
@@ -391,11 +389,12 @@ void SnowDeriver::unbalanced_case(const Roof& roof, const std::vector<double>& p
     std::string side = wind_from_left ? "wind from the left" : "wind from the right";
     if (roof.simple_rafters && W <= t_.unbalanced_narrow_W) {
         double p = site_.Is.value * site_.pg;
-        line(fmt::format("{}: W = {} <= {} with simply supported rafters: windward 0, leeward "
-                         "Is pg = {} x {} = {}",
-                         side, length(W), length(t_.unbalanced_narrow_W), factor(site_.Is.value),
-                         pressure(site_.pg), pressure(p)),
-             clause);
+        line(
+            "{}: W = {} <= {} with simply supported rafters: windward 0, leeward Is pg = {} x {} = "
+            "{}",
+            {text(side), length(W), length(t_.unbalanced_narrow_W), factor(site_.Is.value),
+             pressure(site_.pg), pressure(p)},
+            clause);
         for (std::size_t i = 0; i < roof.members.size(); ++i) {
             if (!windward(roof.members[i]))
                 load_member(roof, roof.members[i], p, lc);
@@ -407,14 +406,15 @@ void SnowDeriver::unbalanced_case(const Roof& roof, const std::vector<double>& p
     double S = 1.0 / std::tan(leeward_slope);
     double surcharge = hd * gamma / std::sqrt(S);
     double extent = 8.0 * hd * std::sqrt(S) / 3.0;
-    line(fmt::format("{}: W = {}; S = 1/tan(slope) = {:.2f}", side, length(W), S), clause);
+    line("{}: W = {}; S = 1/tan(slope) = {}", {text(side), length(W), number(S, 2)}, clause);
     trace_density(gamma);
     trace_drift(W, hd, "W");
-    line(fmt::format("windward: {:g} ps; leeward: ps + hd gamma / sqrt(S) = ps + {} x {} / "
-                     "sqrt({:.2f}) = ps + {} over 8 hd sqrt(S) / 3 = {} from the ridge",
-                     t_.unbalanced_windward, length(hd), density(gamma), S, pressure(surcharge),
-                     length(extent)),
-         clause);
+    line(
+        "windward: {} ps; leeward: ps + hd gamma / sqrt(S) = ps + {} x {} / sqrt({}) = ps + {} "
+        "over 8 hd sqrt(S) / 3 = {} from the ridge",
+        {number(t_.unbalanced_windward), length(hd), density(gamma), number(S, 2),
+         pressure(surcharge), length(extent)},
+        clause);
     double from = wind_from_left ? ridge_x : ridge_x - extent;
     double to = wind_from_left ? ridge_x + extent : ridge_x;
     for (std::size_t i = 0; i < roof.members.size(); ++i) {
@@ -471,36 +471,36 @@ std::vector<MemberId> SnowDeriver::overhangs(const Roof& roof) const {
 /// Ice dams along eaves (Sec. 7.4.5): 2 pf on the overhangs of a warm roof
 /// without enough insulation, a case combined with dead load only.
 void SnowDeriver::ice_dam(const Roof& roof) {
-    const char* clause = "ASCE 7-16 Sec. 7.4.5";
+    const std::string& clause = t_.clause.ice_dam;
     std::vector<MemberId> eaves = overhangs(roof);
     if (eaves.empty()) {
-        line(fmt::format("ice dam load not required: roof {} has no eave overhang", roof.name),
-             clause);
+        line("ice dam load not required: roof {} has no eave overhang", {text(roof.name)}, clause);
         return;
     }
     if (curve_of(site_.Ct.value) != 0) {
-        line(fmt::format("ice dam load not required: not a warm roof (Ct = {})",
-                         factor(site_.Ct.value)),
+        line("ice dam load not required: not a warm roof (Ct = {})", {factor(site_.Ct.value)},
              clause);
         return;
     }
     double needed = roof.ventilated ? t_.ice_dam_R_ventilated : t_.ice_dam_R_unventilated;
     if (roof.insulation_R >= needed) {
-        line(
-            fmt::format("ice dam load not required: insulation R {:g} is at least {:g} ({})",
-                        roof.insulation_R, needed, roof.ventilated ? "ventilated" : "unventilated"),
-            clause);
+        line("ice dam load not required: insulation R {} is at least {} ({})",
+             {number(roof.insulation_R), number(needed),
+              text(roof.ventilated ? "ventilated" : "unventilated")},
+             clause);
         return;
     }
     double p = t_.ice_dam_factor * pf_;
     std::vector<std::string> names;
     for (MemberId id : eaves)
         names.push_back(m_.members[at(id)].name);
-    line(fmt::format("ice dam load {:g} pf = {:g} x {} = {} on the eave overhangs {} (insulation "
-                     "R {:g} below {:g}); case {}.ice_dam, combined with dead load only",
-                     t_.ice_dam_factor, t_.ice_dam_factor, pressure(pf_), pressure(p),
-                     fmt::join(names, ", "), roof.insulation_R, needed, site_.name),
-         clause);
+    line(
+        "ice dam load {} pf = {} x {} = {} on the eave overhangs {} (insulation R {} below {}); "
+        "case {}.ice_dam, combined with dead load only",
+        {number(t_.ice_dam_factor), number(t_.ice_dam_factor), pressure(pf_), pressure(p),
+         text(fmt::format("{}", fmt::join(names, ", "))), number(roof.insulation_R), number(needed),
+         text(site_.name)},
+        clause);
     if (ice_dam_.name.empty()) {
         ice_dam_ = new_case("ice_dam");
         ice_dam_.with_dead_only = true;
@@ -517,24 +517,27 @@ LoadCase SnowDeriver::new_case(const char* what) const {
 }
 
 void SnowDeriver::add_case(LoadCase lc) {
-    for (const LoadCase& other : m_.cases) {
-        if (other.name == lc.name) {
-            Diagnostic& d =
-                d_.error(other.where, fmt::format("load case '{}' has the name of a snow case "
-                                                  "that snow data {} make",
-                                                  lc.name, site_.name));
-            d.note(site_.where, "the snow data are here");
-            return;
+    const std::vector<LoadCase>& derived = out_.cases;
+    for (const std::vector<LoadCase>* cases : {&m_.cases, &derived}) {
+        for (const LoadCase& other : *cases) {
+            if (other.name == lc.name) {
+                Diagnostic& d =
+                    d_.error(other.where, fmt::format("load case '{}' has the name of a snow case "
+                                                      "that snow data {} make",
+                                                      lc.name, site_.name));
+                d.note(site_.where, "the snow data are here");
+                return;
+            }
         }
     }
-    m_.cases.push_back(std::move(lc));
+    out_.cases.push_back(std::move(lc));
 }
 
 void SnowDeriver::mark_unverified() {
     bool any = false;
-    for (TraceLine& t : m_.snow_trace) {
-        if (from_memory(t.clause)) {
-            t.clause += " *";
+    for (TraceStep& t : out_.snow_trace) {
+        if (from_memory(t_, t.clause)) {
+            t.provenance = Provenance::from_memory;
             any = true;
         }
     }
@@ -565,10 +568,11 @@ double roof_slope_factor(const SnowTables& tables, double Ct, bool slippery, dou
     return on_curve(tables.Cs_knee[curve_of(Ct)][slippery ? 0 : 1], tables.Cs_zero_slope, slope);
 }
 
-void derive_snow(Model& model, Diagnostics& diagnostics) {
-    if (!model.snow)
-        return;
-    SnowDeriver(model, diagnostics).run();
+Derivation derive_snow(const Model& model, Diagnostics& diagnostics) {
+    Derivation out;
+    if (model.snow)
+        SnowDeriver(model, out, diagnostics).run();
+    return out;
 }
 
 }  // namespace firn

@@ -7,15 +7,15 @@
 
 namespace firn {
 
-/// Cs of ASCE 7-16 Fig. 7.4-1 for a roof sloping `slope` (rad) on the curve
+/// Cs of the standard's Fig. 7.4-1 for a roof sloping `slope` (rad) on the curve
 /// that the thermal factor `Ct` and the surface select (`slippery`: an
 /// unobstructed slippery surface that qualifies for that curve).
 double roof_slope_factor(const SnowTables& tables, double Ct, bool slippery, double slope);
 
-/// Snow density for drifts, ASCE 7-16 Eq. 7.7-1 (N/m^3), for ground snow load `pg` (Pa).
+/// Snow density for drifts, the standard's Eq. 7.7-1 (N/m^3), for ground snow load `pg` (Pa).
 double snow_density(const SnowTables& tables, double pg);
 
-/// Drift height of ASCE 7-16 Fig. 7.6-1 (m) for an upwind length `lu` (m) and
+/// Drift height of the standard's Fig. 7.6-1 (m) for an upwind length `lu` (m) and
 /// ground snow load `pg` (Pa), evaluated in the formula's own units (ft, psf)
 /// with exact conversions; never negative.
 double drift_height(const SnowTables& tables, double pg, double lu);

@@ -1,5 +1,5 @@
 // snow_drift: drifts at roof steps, parapets, adjacent structures and roof
-// projections (ASCE 7-16 Sec. 7.7, 7.8) and sliding snow (Sec. 7.9), each a
+// projections (the standard's Sec. 7.7, 7.8) and sliding snow (Sec. 7.9), each a
 // snow case of its own riding on the balanced load.
 #include "derive/snow.hpp"
 
@@ -8,24 +8,26 @@
 namespace firn::snow_detail {
 
 void SnowDeriver::trace_density(double gamma) {
-    line(fmt::format("gamma = {:g} pg + {} = {:g} x {} + {} = {} (at most {})",
-                     t_.density_per_pg * kFoot, density(t_.density_base), t_.density_per_pg * kFoot,
-                     pressure(site_.pg), density(t_.density_base), density(gamma),
-                     density(t_.density_max)),
-         "ASCE 7-16 Eq. 7.7-1");
+    line("gamma = {} pg + {} = {} x {} + {} = {} (at most {})",
+         {number(t_.density_per_pg * kFoot), density(t_.density_base),
+          number(t_.density_per_pg * kFoot), pressure(site_.pg), density(t_.density_base),
+          density(gamma), density(t_.density_max)},
+         t_.clause.density);
 }
 
 /// The drift height line, with the formula in its own units (ft and psf).
 void SnowDeriver::trace_drift(double lu, double hd, const char* lu_is) {
     double used = std::max(lu, t_.drift_min_lu);
-    line(fmt::format("hd = {:g} lu^(1/3) (pg + {:g})^(1/4) - {:g} (ft, psf) with lu = {} = {} "
-                     "(at least {:g} ft): {:g} x {:.3f}^(1/3) x {:.3f}^(1/4) - {:g} = {:.3f} ft{}",
-                     t_.drift_coefficient, t_.drift_pg_offset / kPoundPerSquareFoot,
-                     t_.drift_offset / kFoot, lu_is, length(lu), t_.drift_min_lu / kFoot,
-                     t_.drift_coefficient, used / kFoot,
-                     (site_.pg + t_.drift_pg_offset) / kPoundPerSquareFoot, t_.drift_offset / kFoot,
-                     hd / kFoot, u_.length.name == "ft" ? "" : fmt::format(" = {}", length(hd))),
-         "ASCE 7-16 Fig. 7.6-1");
+    line(
+        "hd = {} lu^(1/3) (pg + {})^(1/4) - {} (ft, psf) with lu = {} = {} (at least {} ft): {} x "
+        "{}^(1/3) x {}^(1/4) - {} = {} ft{}",
+        {number(t_.drift_coefficient), number(t_.drift_pg_offset / kPoundPerSquareFoot),
+         number(t_.drift_offset / kFoot), text(lu_is), length(lu), number(t_.drift_min_lu / kFoot),
+         number(t_.drift_coefficient), number(used / kFoot, 3),
+         number((site_.pg + t_.drift_pg_offset) / kPoundPerSquareFoot, 3),
+         number(t_.drift_offset / kFoot), number(hd / kFoot, 3),
+         TraceValue{TraceValue::Kind::length_unless, hd, dim::length, -1, "ft"}},
+        t_.clause.drift_height);
 }
 
 /// hb, the balanced snow's height, and hc, the clear height above it to the top
@@ -35,13 +37,11 @@ bool SnowDeriver::clear_height(const std::string& where, double ps, double wall,
     double gamma = snow_density(t_, site_.pg);
     double hb = ps / gamma;
     hc = wall - hb;
-    line(fmt::format("{}: hb = ps / gamma = {} / {} = {}; hc = {} - hb = {}", where, pressure(ps),
-                     density(gamma), length(hb), length(wall), length(hc)),
-         clause);
+    line("{}: hb = ps / gamma = {} / {} = {}; hc = {} - hb = {}",
+         {text(where), pressure(ps), density(gamma), length(hb), length(wall), length(hc)}, clause);
     if (hb > 0.0 && hc < 0.2 * hb) {
-        line(fmt::format("drift not required at the {}: hc / hb = {:.2f} is below 0.2", where,
-                         hc / hb),
-             clause);
+        line("drift not required at the {}: hc / hb = {} is below 0.2",
+             {text(where), number(hc / hb, 2)}, clause);
         return false;
     }
     return true;
@@ -54,16 +54,14 @@ SnowDeriver::Triangle SnowDeriver::capped_triangle(double hd, double hc,
     double w = 4.0 * hd;
     if (hd > hc) {
         w = 4.0 * hd * hd / hc;
-        line(fmt::format("hd = {} > hc = {}: w = 4 hd^2 / hc = {}, height cut to hc", length(hd),
-                         length(hc), length(w)),
-             clause);
+        line("hd = {} > hc = {}: w = 4 hd^2 / hc = {}, height cut to hc",
+             {length(hd), length(hc), length(w)}, clause);
         hd = hc;
     } else {
-        line(fmt::format("hd = {} <= hc = {}: w = 4 hd = {}", length(hd), length(hc), length(w)),
-             clause);
+        line("hd = {} <= hc = {}: w = 4 hd = {}", {length(hd), length(hc), length(w)}, clause);
     }
     if (w > 8.0 * hc) {
-        line(fmt::format("w is at most 8 hc = {}", length(8.0 * hc)), clause);
+        line("w is at most 8 hc = {}", {length(8.0 * hc)}, clause);
         w = 8.0 * hc;
     }
     return Triangle{hd, w};
@@ -78,18 +76,17 @@ void SnowDeriver::place_drift(const Roof& roof, const std::string& case_name, do
                               const std::string& clause) {
     double gamma = snow_density(t_, site_.pg);
     double pd = drift.hd * gamma;
-    line(fmt::format("pd = hd gamma = {} x {} = {}, a triangle from the wall over w = {}",
-                     length(drift.hd), density(gamma), pressure(pd), length(drift.w)),
-         clause);
+    line("pd = hd gamma = {} x {} = {}, a triangle from the wall over w = {}",
+         {length(drift.hd), density(gamma), pressure(pd), length(drift.w)}, clause);
+    name_last(case_name + ".hd", 0);
+    name_last(case_name + ".w", 3);
+    name_last(case_name + ".pd", 2);
     if (drift.w > room + 1e-9) {
-        line(fmt::format("the drift is cut at the roof's end: w = {} is wider than the {} of roof "
-                         "beside the wall; the triangle is not rescaled",
-                         length(drift.w), length(room)),
-             clause);
+        line(
+            "the drift is cut at the roof's end: w = {} is wider than the {} of roof beside the "
+            "wall; the triangle is not rescaled",
+            {length(drift.w), length(room)}, clause);
     }
-    record(case_name + ".hd", drift.hd, dim::length);
-    record(case_name + ".w", drift.w, dim::length);
-    record(case_name + ".pd", pd, dim::pressure);
     drift_cases_.push_back(new_case(case_name.c_str()));
     // load_between spreads over the roof's tributary width; a shorter drift is scaled to it.
     drift_load(roof, wall_x, toward, drift.w, pd * breadth / roof.tributary, drift_cases_.back());
@@ -105,7 +102,7 @@ void SnowDeriver::drift_at(const Roof& roof, double ps, bool left_end) {
     const char* end = left_end ? "left" : "right";
     bool step = edge.step > 0.0;
     std::string where = fmt::format("{} at the {} end", step ? "roof step" : "parapet", end);
-    std::string clause = step ? "ASCE 7-16 Sec. 7.7.1" : "ASCE 7-16 Sec. 7.8";
+    std::string clause = step ? t_.clause.step : t_.clause.parapet;
     RoofShape shape = shape_of(m_, roof);
     double length_of_roof = shape.right - shape.left;
     double hc = 0.0;
@@ -118,13 +115,14 @@ void SnowDeriver::drift_at(const Roof& roof, double ps, bool left_end) {
         trace_drift(edge.upper_length, leeward, "the upper roof's length");
         trace_drift(length_of_roof, windward / 0.75, "this roof's length");
         hd = std::max(leeward, windward);
-        line(fmt::format("leeward hd = {}, windward 0.75 hd = {}: the {} governs", length(leeward),
-                         length(windward), leeward >= windward ? "leeward" : "windward"),
-             clause);
+        line(
+            "leeward hd = {}, windward 0.75 hd = {}: the {} governs",
+            {length(leeward), length(windward), text(leeward >= windward ? "leeward" : "windward")},
+            clause);
     } else {
         hd = 0.75 * drift_height(t_, site_.pg, length_of_roof);
         trace_drift(length_of_roof, hd / 0.75, "this roof's length");
-        line(fmt::format("parapet drift: 0.75 hd = {}", length(hd)), clause);
+        line("parapet drift: 0.75 hd = {}", {length(hd)}, clause);
     }
     Triangle drift = capped_triangle(hd, hc, clause);
     place_drift(roof, fmt::format("drift.{}.{}_{}", roof.name, step ? "step" : "parapet", end),
@@ -140,15 +138,13 @@ void SnowDeriver::adjacent_drift(const Roof& roof, double ps, bool left_end) {
     const Roof::Edge& edge = left_end ? roof.left : roof.right;
     if (edge.adjacent == 0.0)
         return;
-    const char* clause = "ASCE 7-16 Sec. 7.7.2";
+    const std::string& clause = t_.clause.adjacent;
     const char* end = left_end ? "left" : "right";
     std::string where = fmt::format("adjacent structure at the {} end", end);
     double h = edge.adjacent, s = edge.adjacent_gap;
     if (!(s < t_.adjacent_max_gap && s < 6.0 * h)) {
-        line(fmt::format("drift from the {} not required: the gap s = {} is not below both {} "
-                         "and 6h = {}",
-                         where, length(s), length(t_.adjacent_max_gap), length(6.0 * h)),
-             clause);
+        line("drift from the {} not required: the gap s = {} is not below both {} and 6h = {}",
+             {text(where), length(s), length(t_.adjacent_max_gap), length(6.0 * h)}, clause);
         return;
     }
     double hc = 0.0;
@@ -160,21 +156,22 @@ void SnowDeriver::adjacent_drift(const Roof& roof, double ps, bool left_end) {
     trace_drift(edge.adjacent_length, hd_upper, "the higher roof's length");
     Triangle leeward{std::min(hd_upper, (6.0 * h - s) / 6.0),
                      std::min(6.0 * hd_upper, 6.0 * h - s)};
-    line(fmt::format("leeward: height min(hd, (6h - s)/6) = min({}, {}) = {}; width min(6 hd, 6h - "
-                     "s) = min({}, {}) = {}",
-                     length(hd_upper), length((6.0 * h - s) / 6.0), length(leeward.hd),
-                     length(6.0 * hd_upper), length(6.0 * h - s), length(leeward.w)),
-         clause);
+    line(
+        "leeward: height min(hd, (6h - s)/6) = min({}, {}) = {}; width min(6 hd, 6h - s) = min({}, "
+        "{}) = {}",
+        {length(hd_upper), length((6.0 * h - s) / 6.0), length(leeward.hd), length(6.0 * hd_upper),
+         length(6.0 * h - s), length(leeward.w)},
+        clause);
     double windward_hd = 0.75 * drift_height(t_, site_.pg, length_of_roof);
     trace_drift(length_of_roof, windward_hd / 0.75, "this roof's length");
-    line(fmt::format("windward: 0.75 hd = {}, as at a roof step (the truncation the clause permits "
-                     "is not taken)",
-                     length(windward_hd)),
-         "ASCE 7-16 Sec. 7.7.1");
-    Triangle windward = capped_triangle(windward_hd, hc, "ASCE 7-16 Sec. 7.7.1");
+    line(
+        "windward: 0.75 hd = {}, as at a roof step (the truncation the clause permits is not "
+        "taken)",
+        {length(windward_hd)}, t_.clause.step);
+    Triangle windward = capped_triangle(windward_hd, hc, t_.clause.step);
     bool leeward_governs = leeward.hd >= windward.hd;
-    line(fmt::format("leeward drift {} high, windward {}: the {} governs", length(leeward.hd),
-                     length(windward.hd), leeward_governs ? "leeward" : "windward"),
+    line("leeward drift {} high, windward {}: the {} governs",
+         {length(leeward.hd), length(windward.hd), text(leeward_governs ? "leeward" : "windward")},
          clause);
     Triangle drift = leeward_governs ? leeward : windward;
     place_drift(roof, fmt::format("drift.{}.adjacent_{}", roof.name, end),
@@ -188,29 +185,27 @@ void SnowDeriver::adjacent_drift(const Roof& roof, double ps, bool left_end) {
 /// as the face (at most the tributary width).
 void SnowDeriver::projection_drifts(const Projection& p, const std::vector<double>& ps) {
     const Roof& roof = m_.roofs[p.roof];
-    const char* clause = "ASCE 7-16 Sec. 7.8";
+    const std::string& clause = t_.clause.parapet;
     RoofShape shape = shape_of(m_, roof);
     double left_face = shape.left + p.left_face, right_face = left_face + p.width;
     heading(
-        fmt::format("Projection {} on roof {}: faces at {} and {} from the roof's left end, "
-                    "{} high, {} long across the frame",
-                    p.name, roof.name, length(p.left_face), length(p.left_face + p.width),
-                    length(p.height), length(p.face_length)));
+        "Projection {} on roof {}: faces at {} and {} from the roof's left end, {} high, {} long "
+        "across the frame",
+        {text(p.name), text(roof.name), length(p.left_face), length(p.left_face + p.width),
+         length(p.height), length(p.face_length)});
     if (p.face_length < t_.projection_min_face - 1e-9) {
-        line(fmt::format("drift not required at projection {}: its faces are {} long, shorter "
-                         "than {}",
-                         p.name, length(p.face_length), length(t_.projection_min_face)),
-             clause);
+        line("drift not required at projection {}: its faces are {} long, shorter than {}",
+             {text(p.name), length(p.face_length), length(t_.projection_min_face)}, clause);
         return;
     }
     double lu = std::max(left_face - shape.left, shape.right - right_face);
     double hd = 0.75 * drift_height(t_, site_.pg, lu);
     trace_drift(lu, hd / 0.75, "the longer roof length beside the projection");
     double breadth = std::min(p.face_length, roof.tributary);
-    line(fmt::format("0.75 hd = {}, on each face; across the frame the drift is min(face length, "
-                     "tributary width) = {} long, taken by this frame",
-                     length(hd), length(breadth)),
-         clause);
+    line(
+        "0.75 hd = {}, on each face; across the frame the drift is min(face length, tributary "
+        "width) = {} long, taken by this frame",
+        {length(hd), length(breadth)}, clause);
     for (bool left : {true, false}) {
         double x = left ? left_face : right_face;
         std::string where =
@@ -245,7 +240,7 @@ void SnowDeriver::sliding_onto(const Roof& roof, bool left_end) {
     const Roof::Edge& edge = left_end ? roof.left : roof.right;
     if (edge.sliding_from.empty())
         return;
-    const char* clause = "ASCE 7-16 Sec. 7.9";
+    const std::string& clause = t_.clause.sliding;
     const char* end = left_end ? "left" : "right";
     auto upper = std::find_if(m_.roofs.begin(), m_.roofs.end(),
                               [&](const Roof& u) { return u.name == edge.sliding_from; });
@@ -256,11 +251,12 @@ void SnowDeriver::sliding_onto(const Roof& roof, bool left_end) {
         slope = std::max(slope, geometry_of(m_, id).slope);
     double needed = upper->slippery ? t_.sliding_min_rise_slippery : t_.sliding_min_rise_other;
     if (!(std::tan(slope) > needed + 1e-12)) {
-        line(fmt::format("sliding snow from roof {} onto the {} end not required: its slope {} "
-                         "is not above {} ({} surface)",
-                         upper->name, end, degrees(slope), degrees(std::atan(needed)),
-                         upper->slippery ? "slippery" : "other"),
-             clause);
+        line(
+            "sliding snow from roof {} onto the {} end not required: its slope {} is not above {} "
+            "({} surface)",
+            {text(upper->name), text(end), degrees(slope), degrees(std::atan(needed)),
+             text(upper->slippery ? "slippery" : "other")},
+            clause);
         return;
     }
     RoofShape up = shape_of(m_, *upper), low = shape_of(m_, roof);
@@ -268,13 +264,14 @@ void SnowDeriver::sliding_onto(const Roof& roof, bool left_end) {
     double total = t_.sliding_factor * pf_ * W;  // N/m of eave
     double q = total / t_.sliding_width;
     double width = std::min(t_.sliding_width, low.right - low.left);
-    line(fmt::format(
-             "sliding snow from roof {} onto the {} end: {:g} pf W = {:g} x {} x {} = {} "
-             "per length of eave, over {}: {} on {}{}",
-             upper->name, end, t_.sliding_factor, t_.sliding_factor, pressure(pf_), length(W),
-             line_load(total), length(t_.sliding_width), pressure(q), length(width),
-             width < t_.sliding_width ? " (the lower roof is narrower: cut, not raised)" : ""),
-         clause);
+    line(
+        "sliding snow from roof {} onto the {} end: {} pf W = {} x {} x {} = {} per length of "
+        "eave, over {}: {} on {}{}",
+        {text(upper->name), text(end), number(t_.sliding_factor), number(t_.sliding_factor),
+         pressure(pf_), length(W), line_load(total), length(t_.sliding_width), pressure(q),
+         length(width),
+         text(width < t_.sliding_width ? " (the lower roof is narrower: cut, not raised)" : "")},
+        clause);
     drift_cases_.push_back(new_case(fmt::format("sliding.{}.{}", roof.name, end).c_str()));
     double from = left_end ? low.left : low.right - width;
     double to = left_end ? low.left + width : low.right;

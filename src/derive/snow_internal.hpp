@@ -6,19 +6,22 @@
 #include <fmt/format.h>
 #include <algorithm>
 #include <cmath>
-#include <numbers>
 #include <optional>
 #include <string>
 #include <vector>
 
 #include "base/diag.hpp"
+#include "base/units.hpp"
+#include "ir/derivation.hpp"
 #include "ir/model.hpp"
 
 namespace firn::snow_detail {
 
-constexpr double kDegree = std::numbers::pi / 180.0;
-constexpr double kFoot = 0.3048;                                           // m, exact
-constexpr double kPoundPerSquareFoot = 4.4482216152605 / (kFoot * kFoot);  // Pa, exact
+/// The units the standard's formulas and the trace's angles are written in, from
+/// the unit table (exact definitions).
+inline const double kDegree = find_unit("deg")->to_si;
+inline const double kFoot = find_unit("ft")->to_si;
+inline const double kPoundPerSquareFoot = find_unit("psf")->to_si;
 /// Slopes closer than this are one slope (rad): members of one roof plane.
 constexpr double kSameSlope = 1e-6;
 
@@ -46,8 +49,8 @@ double eave_to_ridge(const RoofShape& shape);
 
 class SnowDeriver {
   public:
-    SnowDeriver(Model& m, Diagnostics& d)
-        : m_(m), d_(d), site_(*m.snow), t_(m.snow->tables), u_(m.units) {}
+    SnowDeriver(const Model& m, Derivation& out, Diagnostics& d)
+        : m_(m), out_(out), d_(d), site_(*m.snow), t_(m.snow->tables) {}
 
     void run() {
         trace_site();
@@ -75,36 +78,47 @@ class SnowDeriver {
     }
 
   private:
-    Model& m_;
+    const Model& m_;
+    Derivation& out_;
     Diagnostics& d_;
     const SnowSite& site_;
     const SnowTables& t_;
-    const DisplayUnits& u_;
     double pf_ = 0.0;
 
-    std::string pressure(double pa) const {
-        return fmt::format("{:.{}f} {}", u_.pressure.from_si(pa), u_.pressure.decimals,
-                           u_.pressure.name);
+    static TraceValue quantity(double si, Dimension dimension) {
+        return TraceValue{TraceValue::Kind::quantity, si, dimension, -1, {}};
     }
-    std::string length(double m) const {
-        return fmt::format("{:.{}f} {}", u_.length.from_si(m), u_.length.decimals, u_.length.name);
+    static TraceValue pressure(double pa) { return quantity(pa, dim::pressure); }
+    static TraceValue length(double m) { return quantity(m, dim::length); }
+    static TraceValue line_load(double n_per_m) { return quantity(n_per_m, dim::force_per_length); }
+    static TraceValue density(double n_per_m3) { return quantity(n_per_m3, dim::unit_weight); }
+    static TraceValue degrees(double rad) {
+        return TraceValue{TraceValue::Kind::angle, rad, dim::number, 2, {}};
     }
-    std::string line_load(double n_per_m) const {
-        return fmt::format("{:.{}f} {}", u_.force_per_length.from_si(n_per_m),
-                           u_.force_per_length.decimals, u_.force_per_length.name);
+    /// A plain number with `decimals`, or in its shortest form (-1).
+    static TraceValue number(double v, int decimals = -1) {
+        return TraceValue{TraceValue::Kind::number, v, dim::number, decimals, {}};
     }
-    static std::string degrees(double rad) { return fmt::format("{:.2f} deg", rad / kDegree); }
-    static std::string factor(double v) { return fmt::format("{:.2f}", v); }
+    static TraceValue factor(double v) { return number(v, 2); }
+    static TraceValue text(std::string words) {
+        return TraceValue{TraceValue::Kind::text, 0.0, dim::number, -1, std::move(words)};
+    }
 
-    void line(std::string text, std::string clause = "") {
-        m_.snow_trace.push_back(TraceLine{std::move(text), std::move(clause), false});
+    /// A step of the trace: its formula with a `{}` for each value, and its clause.
+    void line(std::string formula, std::vector<TraceValue> values = {}, std::string clause = "") {
+        out_.snow_trace.push_back(
+            TraceStep{std::move(formula), std::move(values), {}, std::move(clause), {}, false});
     }
-    /// Names a derived value for expectations (`expect snow NAME ...`).
-    void record(std::string name, double value, Dimension dimension) {
-        m_.snow_values.push_back(SnowValue{std::move(name), value, dimension});
+    void line(std::string formula, std::string_view clause) {
+        line(std::move(formula), {}, std::string(clause));
     }
-    void heading(std::string text) {
-        m_.snow_trace.push_back(TraceLine{std::move(text), "", true});
+    /// Names value `index` of the last step for expectations (`expect snow NAME ...`).
+    void name_last(std::string name, std::size_t index) {
+        out_.snow_trace.back().names.push_back(TraceStep::Name{std::move(name), index});
+    }
+    void heading(std::string formula, std::vector<TraceValue> values = {}) {
+        out_.snow_trace.push_back(
+            TraceStep{std::move(formula), std::move(values), {}, "", {}, true});
     }
 
     void trace_site();
@@ -139,7 +153,8 @@ class SnowDeriver {
                     LoadCase& lc) const;
     double slope_factor(const Roof& roof, double slope, const std::string& members);
     double rain_on_snow(double slope, double W);
-    double minimum_load(double slope);
+    /// pm, naming it `name` where it applies.
+    double minimum_load(double slope, const std::string& name);
     LoadCase new_case(const char* what) const;
     void add_case(LoadCase lc);
     void load_members(const Roof& roof, const std::vector<MemberId>& members, double pressure,
@@ -178,10 +193,6 @@ class SnowDeriver {
     LoadCase& case_named(const char* what);
     void trace_density(double gamma);
     void trace_drift(double lu, double hd, const char* lu_is);
-    std::string density(double n_per_m3) const {
-        return fmt::format("{:.{}f} {}", u_.unit_weight.from_si(n_per_m3), u_.unit_weight.decimals,
-                           u_.unit_weight.name);
-    }
     void mark_unverified();
 };
 

@@ -4,10 +4,13 @@
 #include <fmt/format.h>
 #include <catch2/catch.hpp>
 #include <cmath>
+#include <fstream>
+#include <iterator>
 #include <map>
 
 #include "derive/snow.hpp"
 #include "driver/driver.hpp"
+#include "report/report.hpp"
 #include "testing/test_text.hpp"
 
 using namespace firn;
@@ -61,9 +64,9 @@ double pressure_on(const Model& m, const std::string& c, std::size_t load = 0) {
     return lc->distributed[load].w_start / (20 * kFt);
 }
 
-bool trace_has(const Model& m, const std::string& text) {
-    for (const TraceLine& t : m.snow_trace) {
-        if (t.text.find(text) != std::string::npos)
+bool trace_has(const Analysis& a, const std::string& text) {
+    for (const TraceStep& t : a.derivation.snow_trace) {
+        if (trace_text(t, a.model.units).find(text) != std::string::npos)
             return true;
     }
     return false;
@@ -78,7 +81,7 @@ TEST_CASE("snow: pf = 0.7 Ce Ct Is pg") {
     // (Sec. 7.4), so the balanced load is ps = pf.
     Analysis a = analysed(flat_frame(kSite));
     CHECK(pressure_on(a.model, "S.balanced") == Approx(33.6 * kPsf).epsilon(1e-12));
-    CHECK(trace_has(a.model,
+    CHECK(trace_has(a,
                     "pf = 0.7 Ce Ct Is pg = 0.7 x 1.00 x 1.20 x 1.00 x 40.0 psf = "
                     "33.6 psf"));
     // Every member of the roof takes it, on its horizontal projection.
@@ -100,7 +103,7 @@ TEST_CASE("snow: a factor given instead of its table carries its reason into the
     Analysis a = analysed(
         flat_frame(std::string(kSite) + "  Ct = 1.1 because \"kept just above freezing\"\n"));
     CHECK(pressure_on(a.model, "S.balanced") == Approx(30.8 * kPsf).epsilon(1e-12));
-    CHECK(trace_has(a.model,
+    CHECK(trace_has(a,
                     "Ct = 1.10, given instead of Table 7.3-2: \"kept just above "
                     "freezing\""));
 }
@@ -133,7 +136,7 @@ TEST_CASE("snow: rain-on-snow applies for 0 < pg <= 20 psf on roofs flatter than
     Analysis b = analysed(flat_frame(
         "  pg = 25 psf\n  terrain = C\n  exposure = partially\n  thermal = heated\n  risk = II\n"));
     CHECK(pressure_on(b.model, "S.balanced") == Approx(17.5 * kPsf).epsilon(1e-12));
-    CHECK(trace_has(b.model,
+    CHECK(trace_has(b,
                     "rain-on-snow surcharge not required: pg = 25.0 psf is above "
                     "20.0 psf"));
 }
@@ -149,7 +152,7 @@ TEST_CASE("snow: rain-on-snow does not apply to a roof steeper than W/50") {
         "snow S {\n  standard = asce7_16\n  pg = 15 psf\n  terrain = C\n  exposure = partially\n"
         "  thermal = heated\n  risk = II\n}\nroof main on gable.* {\n  tributary = 20 ft\n}\n";
     Analysis a = analysed(text);
-    CHECK(trace_has(a.model,
+    CHECK(trace_has(a,
                     "rain-on-snow surcharge not required: slope 18.43 deg is not below "
                     "W/50.000 ft = 24.000 ft / 50.000 ft = 0.48 deg"));
     // Warm roof, other surface: Cs = 1 up to 30 deg (Fig. 7.4-1a, from memory), so
@@ -233,7 +236,7 @@ TEST_CASE("snow: an amendment file changes a library value without a rebuild") {
     CHECK(pressure_on(plain.model, "S.minimum") == Approx(20 * kPsf).epsilon(1e-12));
     Analysis amended = analysed("use \"county.firn\"\n" + flat_frame(site), options);
     CHECK(pressure_on(amended.model, "S.minimum") == Approx(25 * kPsf).epsilon(1e-12));
-    CHECK(trace_has(amended.model,
+    CHECK(trace_has(amended,
                     "amended: asce7_16.pm.pg_limit = 30.0 psf because \"county "
                     "amendment 7\""));
 }
@@ -373,7 +376,7 @@ TEST_CASE("snow: unbalanced gable load with W <= 20 ft and simply supported raft
 TEST_CASE("snow: no unbalanced load on a flat roof or below 1/2 on 12") {
     Analysis a = analysed(flat_frame(kSite));
     CHECK(find_case(a.model, "S.unbalanced.wind_from_left") == nullptr);
-    CHECK(trace_has(a.model, "unbalanced load not required: roof main is not a hip or gable roof"));
+    CHECK(trace_has(a, "unbalanced load not required: roof main is not a hip or gable roof"));
 }
 
 namespace {
@@ -435,7 +438,7 @@ TEST_CASE("snow: the windward drift governs below a short upper roof") {
     // 50^(1/4) - 1.5 = 1.6040 ft; windward 0.75 x 3.2571 = 2.4428 ft governs. The drift
     // at the right end runs leftwards from x = 72 ft over w = 9.771 ft on eave.C.D.
     Analysis a = analysed(stepped("  step_right = 10 ft\n  step_right_upper_length = 20 ft\n"));
-    CHECK(trace_has(a.model, "the windward governs"));
+    CHECK(trace_has(a, "the windward governs"));
     auto drift = drift_part(a.model, "S.drift.main.step_right");
     REQUIRE(drift.size() == 1);
     CHECK(a.model.members[at(drift[0].member)].name == "eave.C.D");
@@ -469,7 +472,7 @@ TEST_CASE("snow: a leeward drift from an adjacent higher structure beyond a gap"
     // Windward 0.75 hd (lu = 72 ft) = 2.4427 ft (Sec. 7.7.1) is lower: leeward governs.
     Analysis a = analysed(stepped(
         "  adjacent_left = 10 ft\n  adjacent_left_gap = 6 ft\n  adjacent_left_length = 60 ft\n"));
-    CHECK(trace_has(a.model, "the leeward governs"));
+    CHECK(trace_has(a, "the leeward governs"));
     auto drift = drift_part(a.model, "S.drift.main.adjacent_left");
     REQUIRE(drift.size() == 1);
     CHECK(a.model.members[at(drift[0].member)].name == "eave.A.B");
@@ -494,7 +497,7 @@ TEST_CASE("snow: a drift from an adjacent structure limited by the gap, and none
         analysed(stepped("  adjacent_right = 30 ft\n  adjacent_right_gap = 25 ft\n  "
                          "adjacent_right_length = 60 ft\n"));
     CHECK(find_case(far.model, "S.drift.main.adjacent_right") == nullptr);
-    CHECK(trace_has(far.model, "is not below both"));
+    CHECK(trace_has(far, "is not below both"));
 }
 
 TEST_CASE("snow: drifts at both faces of a roof projection, and none on a face under 15 ft") {
@@ -528,7 +531,7 @@ TEST_CASE("snow: drifts at both faces of a roof projection, and none on a face u
                              "  face_length = 12 ft\n  height = 5 ft\n}\n";
     Analysis b = analysed(short_face);
     CHECK(find_case(b.model, "S.drift.unit.left") == nullptr);
-    CHECK(trace_has(b.model, "shorter than 15.000 ft"));
+    CHECK(trace_has(b, "shorter than 15.000 ft"));
 }
 
 TEST_CASE("snow: the tributary width from the plan grid") {
@@ -545,7 +548,7 @@ TEST_CASE("snow: the tributary width from the plan grid") {
     const LoadCase* lc = find_case(interior.model, "S.balanced");
     REQUIRE(lc != nullptr);
     CHECK(lc->distributed[0].w_start == Approx(pf * 25 * kFt).epsilon(1e-12));
-    CHECK(trace_has(interior.model,
+    CHECK(trace_has(interior,
                     "tributary width of the frame on plan line 2 = half of each "
                     "bay beside it = (20.000 ft + 30.000 ft) / 2 = 25.000 ft"));
     Analysis end = analysed(frame("  frame = 5\n  overhang = 1.5 ft\n"));
@@ -605,7 +608,7 @@ TEST_CASE("snow: an ice dam load on the eave overhang of a poorly insulated warm
     CHECK(ice->distributed[0].w_start / (20 * kFt) == Approx(56 * kPsf).epsilon(1e-12));
     Analysis b = analysed(overhanging("  insulation = 30\n"));
     CHECK(find_case(b.model, "S.ice_dam") == nullptr);
-    CHECK(trace_has(b.model, "ice dam load not required: insulation R 30 is at least 30"));
+    CHECK(trace_has(b, "ice dam load not required: insulation R 30 is at least 30"));
 }
 
 TEST_CASE("snow: sliding snow from an upper roof, and onto a narrow lower roof") {
@@ -625,4 +628,42 @@ TEST_CASE("snow: sliding snow from an upper roof, and onto a narrow lower roof")
     const DistributedLoad& narrow = find_case(n.model, "S.sliding.lower.left")->distributed.back();
     CHECK(narrow.end / kFt == Approx(10).epsilon(1e-12));
     CHECK(narrow.w_start / (20 * kFt) == Approx(224.0 / 15 * kPsf).epsilon(1e-12));
+}
+
+TEST_CASE("snow: the edition and its clauses come from the library, not from the code") {
+    // The library module under another name and edition: the same numbers (so pf =
+    // 0.7 x 1.0 x 1.2 x 1.0 x 40 psf = 33.6 psf, ASCE 7-16 Eq. 7.3-1), cited by the
+    // names the module gives.
+    std::ifstream in(std::string(FIRN_SOURCE_DIR) + "/stdlib/asce7_16.firn", std::ios::binary);
+    std::string library((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+    auto renamed = [](std::string text) {
+        for (auto [from, to] : {std::pair<std::string, std::string>{"asce7_16", "county_rules"},
+                                {"\"ASCE 7-16\"", "\"County rules 2030\""},
+                                {"\"Eq. 7.3-1\"", "\"Rule 3.1\""}}) {
+            for (std::size_t at = text.find(from); at != std::string::npos;
+                 at = text.find(from, at + to.size()))
+                text.replace(at, from.size(), to);
+        }
+        return text;
+    };
+    ImportOptions options;
+    options.read = [&](const std::string& path, std::string& text, std::string& error) {
+        if (path != "county_rules.firn") {
+            error = "cannot read";
+            return false;
+        }
+        text = renamed(library);
+        return true;
+    };
+    std::string model = flat_frame(kSite);
+    model.replace(model.find("use asce7_16"), 12, "use \"county_rules.firn\"");
+    model.replace(model.find("standard = asce7_16"), 19, "standard = county_rules");
+    Analysis a = analysed(model, options);
+    CHECK(pressure_on(a.model, "S.balanced") == Approx(33.6 * kPsf).epsilon(1e-12));
+    CHECK(trace_text(a.derivation.snow_trace.front(), a.model.units) ==
+          "Snow data S: County rules 2030, Chapter 7");
+    bool cited = false;
+    for (const TraceStep& t : a.derivation.snow_trace)
+        cited = cited || t.clause == "County rules 2030 Rule 3.1";
+    CHECK(cited);
 }

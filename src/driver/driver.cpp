@@ -1,7 +1,9 @@
-// driver: parse -> resolve -> loads -> solve -> results.
+// driver: parse -> resolve -> derive -> names -> loads -> solve -> results -> checks.
 #include "driver/driver.hpp"
 
+#include <algorithm>
 #include <chrono>
+#include <iterator>
 
 #include "analyse/analyse.hpp"
 #include "base/file_io.hpp"
@@ -12,6 +14,13 @@
 
 namespace firn {
 namespace {
+
+/// The cases that get solved: the model's own, then the derived ones in the order
+/// the derive stage made them. The derivation keeps its traces and values.
+void join_derived_cases(Model& model, Derivation& derivation) {
+    std::move(derivation.cases.begin(), derivation.cases.end(), std::back_inserter(model.cases));
+    derivation.cases.clear();
+}
 
 class Stopwatch {
   public:
@@ -48,10 +57,15 @@ Analysis analyse_text(std::string name, std::string text, PhaseTimes* times,
     if (a.diagnostics.has_errors())
         return a;
 
-    derive_snow(a.model, a.diagnostics);
-    arrange_cases(a.model, a.diagnostics);
+    a.derivation = derive_snow(a.model, a.diagnostics);
+    arrange_cases(a.model, a.derivation, a.diagnostics);
     if (a.diagnostics.has_errors())
         return a;
+    // Every case and value exists now: a name an expectation misspells stops the run
+    // before anything is solved.
+    if (!check_expectation_names(a.model, a.derivation, a.diagnostics))
+        return a;
+    join_derived_cases(a.model, a.derivation);
     a.loads = derive_loads(a.model, a.diagnostics);
     a.mirror = find_mirror(a.model, a.loads);
     t.loads = clock.lap();
@@ -78,7 +92,7 @@ Analysis analyse_text(std::string name, std::string text, PhaseTimes* times,
     a.deflections = check_deflections(a.model, a.loads, a.solution, a.results);
     t.combinations = clock.lap();
     a.expectations = check_expectations(
-        {a.model, a.loads, a.solution, a.results, a.combinations, a.envelopes}, a.diagnostics);
+        {a.model, a.loads, a.solution, a.results, a.combinations, a.envelopes, a.derivation});
     a.ok = !a.diagnostics.has_errors();
     return a;
 }

@@ -61,7 +61,13 @@ void Printer::print(const syntax::LetDecl& l) {
     word("let");
     name(l.name);
     word("=");
-    value(l.value);
+    if (!l.text) {
+        value(l.value);
+        return;
+    }
+    signature_ += " text";
+    const SourceRange& t = l.text_where;  // as written, escapes and all
+    token(std::string(text_of(t.begin.offset, t.end.offset)), t.begin.offset, t.end.offset);
 }
 
 void Printer::print(const syntax::UseDecl& u) {

@@ -354,3 +354,8 @@ TEST_CASE("fmt: formatting does not change the results of any example") {
               text_report(after.model, after.results, {}));
     }
 }
+
+TEST_CASE("fmt: a text value keeps its quotes and escapes as written") {
+    CHECK(formatted("let  site.edition=\"Rules \\\"B\\\", 2024\"\n") ==
+          "let site.edition = \"Rules \\\"B\\\", 2024\"\n");
+}

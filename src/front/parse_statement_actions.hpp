@@ -49,7 +49,24 @@ struct action<g::title> {
 
 FIRN_ACTION(g::let_begin, begin_statement<syntax::LetDecl>);
 FIRN_ACTION(g::let_name, store_name<&syntax::LetDecl::name>);
-FIRN_ACTION(g::let_stmt, store_expr<&syntax::LetDecl::value>);
+
+template <>
+struct action<g::let_text> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::LetDecl>().text = unquote(in.string_view());
+        b.current<syntax::LetDecl>().text_where = b.range(in);
+    }
+};
+
+template <>
+struct action<g::let_stmt> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        if (!b.current<syntax::LetDecl>().text)
+            b.current<syntax::LetDecl>().value = b.pop_expr();
+    }
+};
 
 FIRN_ACTION(g::use_begin, begin_statement<syntax::UseDecl>);
 FIRN_ACTION(g::use_outside, store_value<&syntax::UseDecl::outside, true>);

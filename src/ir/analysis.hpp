@@ -7,6 +7,7 @@
 #include "base/diag.hpp"
 #include "ir/checks.hpp"
 #include "ir/combinations.hpp"
+#include "ir/derivation.hpp"
 #include "ir/load_set.hpp"
 #include "ir/mirror.hpp"
 #include "ir/model.hpp"
@@ -28,7 +29,8 @@ struct PhaseTimes {
 struct Analysis {
     SourceMap sources;
     Diagnostics diagnostics;
-    Model model;
+    Model model;            ///< as resolved; the driver adds the derived cases before solving
+    Derivation derivation;  ///< its traces and snow values (its cases are in `model`)
     LoadSet loads;
     Mirror mirror;
     Solution solution;

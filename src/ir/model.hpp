@@ -160,8 +160,8 @@ struct LoadCase {
     SourceRange where;
 };
 
-/// The values of a snow standard that its library module gives (for ASCE 7-16,
-/// stdlib/asce7_16.firn), in SI; angles in radians. C++ holds the formulas.
+/// The values of a snow standard that its library module gives (stdlib/NAME.firn), in
+/// SI, angles in radians, and the texts its trace cites. C++ holds the formulas.
 struct SnowTables {
     double pf_factor = 0.0;                     ///< 0.7 of Eq. 7.3-1
     double pm_pg_limit = 0.0;                   ///< pg up to which pm = Is pg
@@ -195,20 +195,30 @@ struct SnowTables {
     double sliding_width = 0.0;   ///< m, over which it spreads on the lower roof
     double sliding_min_rise_slippery = 0.0;
     double sliding_min_rise_other = 0.0;
+    /// The edition's name and chapter, as the trace cites them ("Snow data S: EDITION, CHAPTER").
+    std::string edition, chapter;
+    /// The clauses the trace cites, each with the edition's name before it.
+    struct Clauses {
+        std::string pg, pf, pm, Cs[3], slippery, ps, rain, ice_dam, partial, unbalanced,
+            unbalanced_load, drift_height, density, step, adjacent, parapet, sliding;
+    } clause;
+    /// Clauses whose values were entered from memory: a citation that ends with one is
+    /// marked for verification.
+    std::vector<std::string> from_memory;
 };
 
 /// A factor of the snow provisions: its value and, when the user gave it
 /// instead of the table, the reason they stated.
 struct SnowFactor {
     double value = 0.0;
-    std::string table;   ///< where the value comes from: "Table 7.3-1"
+    std::string table;   ///< where the value comes from, as the library names it
     std::string reason;  ///< non-empty when overridden
 };
 
 /// The site's snow data (a `snow` statement): its cases are named NAME.balanced, ...
 struct SnowSite {
     std::string name;
-    std::string standard;  ///< the library module, e.g. asce7_16
+    std::string standard;  ///< the library module that gives the standard's tables
     double pg = 0.0;       ///< ground snow load, Pa
     std::string terrain, exposure, thermal, risk;
     SnowFactor Ce, Ct, Is;
@@ -344,14 +354,6 @@ struct Amendment {
     SourceRange where;
 };
 
-/// A derived snow value by name (`pf`, `main.ps`, `drift.main.step_left.hd`), SI, for
-/// the expectations a model states about them.
-struct SnowValue {
-    std::string name;
-    double value = 0.0;
-    Dimension dimension;
-};
-
 /// A bound on a result (`expect`), checked by `firn check`.
 struct Expectation {
     enum class Quantity {
@@ -383,14 +385,6 @@ struct Expectation {
     SourceRange where;  ///< the statement
 };
 
-/// One line of the snow trace: a derived value with its formula, the values put
-/// in, the result and the clause; or a sentence saying why a provision does not apply.
-struct TraceLine {
-    std::string text;
-    std::string clause;
-    bool heading = false;  ///< starts a part: the site's data, or a roof
-};
-
 /// The whole resolved model. Vectors keep declaration order.
 struct Model {
     std::string title;
@@ -410,15 +404,12 @@ struct Model {
     std::vector<Roof> roofs;
     std::vector<Projection> projections;
     std::vector<Amendment> amendments;
-    std::vector<TraceLine> snow_trace;   ///< filled by derive_snow
-    std::vector<SnowValue> snow_values;  ///< filled by derive_snow
     std::vector<Expectation> expectations;
     std::vector<CombinationSet> combination_sets;
     std::optional<CombineChoice> combine;
     std::vector<PatternRule> patterns;
     std::vector<ArrangeRequest> arrangements;
     std::vector<DeflectionLimits> deflection_limits;
-    std::vector<TraceLine> arrangement_trace;  ///< filled by arrange_cases
 };
 
 /// Length and direction cosines of a member (local x from start to end node).

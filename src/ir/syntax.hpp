@@ -100,10 +100,12 @@ struct Grid {
     std::optional<Run> run;
 };
 
-/// `let bay = 24 ft`
+/// `let bay = 24 ft`, or a text: `let NAME.edition = "..."`
 struct LetDecl {
     Name name;
-    Expr value;
+    Expr value;                       ///< unless the value is a text
+    std::optional<std::string> text;  ///< the text, unquoted
+    SourceRange text_where;           ///< the text as written, quotes included
 };
 
 /// `use materials` (a module of the standard library) or `use "site.firn"`
@@ -263,7 +265,7 @@ struct RoofDecl {
     std::vector<Setting> settings;
 };
 
-/// `amend asce7_16.pm.cap = 30 psf because "county amendment 4"`
+/// `amend lib.pm.cap = 30 psf because "county amendment 4"`
 struct AmendDecl {
     Name name;
     Expr value;
@@ -294,7 +296,7 @@ struct CombinationLine {
     SourceRange where;
 };
 
-/// `combinations asce7_16.strength { ... }`: a set of load combinations.
+/// `combinations lib.strength { ... }`: a set of load combinations.
 struct CombinationsDecl {
     Name name;
     std::vector<CombinationLine> lines;
@@ -302,7 +304,7 @@ struct CombinationsDecl {
     std::vector<SourceRange> line_where;  ///< every line of the block, for the formatter
 };
 
-/// `combine asce7_16.strength { half_live = yes because "..." }`
+/// `combine lib.strength { half_live = yes because "..." }`
 struct CombineDecl {
     std::vector<Name> sets;
     std::vector<Setting> settings;
@@ -336,7 +338,7 @@ struct DeflectionDecl {
     Name row;
 };
 
-/// `expect moment of eave.BC under asce7_16.strength between -60 kip*ft and 45 kip*ft`:
+/// `expect moment of eave.BC under lib.strength between -60 kip*ft and 45 kip*ft`:
 /// a bound on a result, checked by `firn check`.
 struct ExpectDecl {
     Name quantity;               ///< moment, shear, axial, deflection, reaction, displacement,

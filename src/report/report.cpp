@@ -176,32 +176,29 @@ void write_sections(std::string& out, const Model& model) {
 }
 
 /// The snow trace: each derived value with its formula and clause.
-void write_trace(std::string& out, const std::vector<TraceLine>& trace) {
-    for (const TraceLine& t : trace) {
+void write_trace(std::string& out, const std::vector<TraceStep>& trace, const DisplayUnits& units) {
+    for (const TraceStep& t : trace) {
         if (t.heading) {
-            out += fmt::format("\n{}\n", t.text);
+            out += fmt::format("\n{}\n", trace_text(t, units));
             continue;
         }
-        out += fmt::format("  {}", t.text);
+        out += fmt::format("  {}", trace_text(t, units));
         if (!t.clause.empty())
-            out += fmt::format("   [{}]", t.clause);
+            out += fmt::format("   [{}]", trace_clause(t));
         out += '\n';
     }
     out += '\n';
 }
 
-void write_snow(std::string& out, const Model& model) {
-    if (model.snow_trace.empty())
-        return;
-    out += "== Snow loads ==\n";
-    write_trace(out, model.snow_trace);
-}
-
-void write_arrangements(std::string& out, const Model& model) {
-    if (model.arrangement_trace.empty())
-        return;
-    out += "== Load arrangements ==\n";
-    write_trace(out, model.arrangement_trace);
+void write_traces(std::string& out, const Derivation& derivation, const DisplayUnits& units) {
+    if (!derivation.snow_trace.empty()) {
+        out += "== Snow loads ==\n";
+        write_trace(out, derivation.snow_trace, units);
+    }
+    if (!derivation.arrangement_trace.empty()) {
+        out += "== Load arrangements ==\n";
+        write_trace(out, derivation.arrangement_trace, units);
+    }
 }
 
 void write_case_list(std::string& out, const Model& model) {
@@ -428,8 +425,8 @@ void write_text_report(const Model& model, const Results& results, const ReportO
     write_members(out, model);
     write_sections(out, model);
     write_case_list(out, model);
-    write_snow(out, model);
-    write_arrangements(out, model);
+    if (options.derivation != nullptr)
+        write_traces(out, *options.derivation, model.units);
     if (options.mirror != nullptr)
         write_mirror(out, model, *options.mirror);
     if (options.combinations != nullptr)
@@ -461,6 +458,7 @@ ReportOptions report_options(const Analysis& a) {
     options.deflections = &a.deflections;
     options.mirror = &a.mirror;
     options.expectations = &a.expectations;
+    options.derivation = &a.derivation;
     return options;
 }
 

@@ -9,6 +9,7 @@
 #include "ir/analysis.hpp"
 #include "ir/checks.hpp"
 #include "ir/combinations.hpp"
+#include "ir/derivation.hpp"
 #include "ir/display.hpp"
 #include "ir/mirror.hpp"
 #include "ir/model.hpp"
@@ -32,6 +33,7 @@ struct ReportOptions {
     /// double, so other tools can check firn to round-off (the default rounds two
     /// decimals finer than the text report).
     bool exact_numbers = false;
+    const Derivation* derivation = nullptr;  ///< the snow and arrangement traces
 };
 
 /// Receives a report piece by piece (a piece per load case at most), so a
@@ -57,12 +59,19 @@ std::string json_report(const Model& model, const Results& results, const Report
 std::string show_bound(const Model& model, const Expectation& x);
 
 /// Where a finding is and what gives it: "eave.BC has 47.100 kip*ft at 12.000 ft under
-/// asce7_16.strength.3/2" ("the value is 30.8 psf" for a snow value).
+/// SET.3/2" ("the value is 30.8 psf" for a snow value).
 std::string describe_finding(const Model& model, const Expectation& x, const Finding& f);
 
 /// "2.100 kip*ft beyond the bound (4.7 %)" or "margin 1.200 kip*ft (2.6 %)", the percentage
 /// of the bound.
 std::string describe_margin(const Model& model, const Expectation& x, const Finding& f);
+
+/// A step of a trace in words, its values in the model's display units.
+std::string trace_text(const TraceStep& step, const DisplayUnits& units);
+
+/// A step's clause as the report writes it: marked " *" when its values were
+/// entered from memory.
+std::string trace_clause(const TraceStep& step);
 
 /// Report options with every section the analysis holds (no stations).
 ReportOptions report_options(const Analysis& a);

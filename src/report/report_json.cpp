@@ -160,12 +160,12 @@ Json case_json(const Model& model, const Results& results, std::size_t c,
 }
 
 /// The snow trace: each line's text, its clause and whether it starts a part.
-Json snow_trace_json(const Model& model) {
+Json snow_trace_json(const Derivation& derivation, const DisplayUnits& units) {
     Json lines = Json::array();
-    for (const TraceLine& t : model.snow_trace) {
-        Json line{{"text", t.text}};
+    for (const TraceStep& t : derivation.snow_trace) {
+        Json line{{"text", trace_text(t, units)}};
         if (!t.clause.empty())
-            line["clause"] = t.clause;
+            line["clause"] = trace_clause(t);
         if (t.heading)
             line["heading"] = true;
         lines.push_back(std::move(line));
@@ -353,8 +353,8 @@ void write_json_report(const Model& model, const Results& results, const ReportO
               {"model", model_json(model)}};
     if (options.exact_numbers)
         head["numbers"] = "exact: unrounded, the shortest text that reads back to the same double";
-    if (!model.snow_trace.empty())
-        head["snow_trace"] = snow_trace_json(model);
+    if (options.derivation != nullptr && !options.derivation->snow_trace.empty())
+        head["snow_trace"] = snow_trace_json(*options.derivation, model.units);
     std::string text = head.dump(1, ' ', false, Json::error_handler_t::replace);
     text.resize(text.size() - 2);  // the final "\n}": the cases follow
     text += ",\n \"cases\": [";

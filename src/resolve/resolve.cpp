@@ -72,6 +72,10 @@ std::optional<Quantity> Constants::constant(const syntax::Expr& ref, Diagnostics
         return std::nullopt;
     }
     Entry& entry = entries_[*i];
+    if (entry.decl->text) {
+        diagnostics.error(ref.where, fmt::format("'{}' is a text, not a number", ref.literal));
+        return std::nullopt;
+    }
     if (entry.state == Entry::State::evaluating) {
         auto first = std::find(evaluating_.begin(), evaluating_.end(), ref.literal);
         std::vector<std::string> chain(first, evaluating_.end());
@@ -106,6 +110,12 @@ void Constants::amend(const syntax::AmendDecl& decl, Diagnostics& diagnostics) {
         return;
     }
     Entry& entry = entries_[*i];
+    if (entry.decl->text) {
+        diagnostics.error(
+            decl.name.where,
+            fmt::format("'{}' is a text; 'amend' replaces numbers only", decl.name.text));
+        return;
+    }
     if (entry.amended != nullptr) {
         Diagnostic& d = diagnostics.error(
             decl.name.where, fmt::format("value '{}' is already amended", decl.name.text));
@@ -135,7 +145,44 @@ std::optional<Quantity> Constants::lookup(const std::string& name, Diagnostics& 
     auto i = names_.find_quietly(name);
     if (!i)
         return std::nullopt;
+    if (entries_[*i].decl->text) {
+        diagnostics.error(entries_[*i].decl->text_where,
+                          fmt::format("'{}' is a text, not a number", name));
+        return std::nullopt;
+    }
     return value_of(entries_[*i], diagnostics);
+}
+
+std::vector<std::string> Constants::texts_ending(std::string_view suffix) const {
+    std::vector<std::string> out;
+    for (const Entry& entry : entries_) {
+        if (entry.decl->text && entry.decl->name.text.ends_with(suffix))
+            out.push_back(entry.decl->name.text);
+    }
+    return out;
+}
+
+std::optional<std::string> Constants::text(const std::string& name) const {
+    auto i = names_.find_quietly(name);
+    if (!i)
+        return std::nullopt;
+    return entries_[*i].decl->text;
+}
+
+/// The library modules in use that give snow provisions: those that name their
+/// snow chapter (`let NAME.snow_chapter = "..."`), in the order they were declared.
+std::vector<std::string> loaded_standards(const Resolver& r) {
+    static constexpr std::string_view kMark = ".snow_chapter";
+    std::vector<std::string> out;
+    for (const std::string& name : r.constants.texts_ending(kMark))
+        out.push_back(name.substr(0, name.size() - kMark.size()));
+    return out;
+}
+
+/// A standard's name for the examples in messages: the first in use, or a placeholder.
+std::string example_standard(const Resolver& r) {
+    std::vector<std::string> standards = loaded_standards(r);
+    return standards.empty() ? std::string("MODULE") : standards.front();
 }
 
 std::optional<Quantity> Constants::value_of(Entry& entry, Diagnostics& diagnostics) {
@@ -152,8 +199,10 @@ std::optional<Quantity> Constants::value_of(Entry& entry, Diagnostics& diagnosti
 }
 
 void Constants::evaluate_all(Diagnostics& diagnostics) {
-    for (Entry& entry : entries_)
-        value_of(entry, diagnostics);
+    for (Entry& entry : entries_) {
+        if (!entry.decl->text)
+            value_of(entry, diagnostics);
+    }
 }
 
 namespace {

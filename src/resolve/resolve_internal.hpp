@@ -56,8 +56,13 @@ class Constants : public Scope {
         return i && entries_[*i].amended == &decl;
     }
     bool has(const std::string& name) const { return names_.find_quietly(name).has_value(); }
-    /// The value named `name`, or nullopt if there is none (or it has an error).
+    /// The value named `name`, or nullopt if there is none (or it has an error, or
+    /// it is a text, which is reported).
     std::optional<Quantity> lookup(const std::string& name, Diagnostics& diagnostics);
+    /// The names of the texts whose name ends with `suffix`, in declaration order.
+    std::vector<std::string> texts_ending(std::string_view suffix) const;
+    /// The text a `let` gives `name` (`let NAME.edition = "..."`), if it is one.
+    std::optional<std::string> text(const std::string& name) const;
     /// Evaluates every value, so an unused value's error is reported too.
     void evaluate_all(Diagnostics& diagnostics);
 
@@ -224,6 +229,13 @@ void resolve_amendments(Resolver& r, const std::vector<const syntax::AmendDecl*>
 
 /// Resolves the `case` statements of the trees into model.cases.
 void resolve_cases(Resolver& r, const std::vector<const syntax::CaseDecl*>& cases);
+
+/// The library modules in use that give snow provisions: those that name their
+/// snow chapter (`let NAME.snow_chapter = "..."`), in the order they were declared.
+std::vector<std::string> loaded_standards(const Resolver& r);
+
+/// A standard's name for the examples in messages: the first in use, or a placeholder.
+std::string example_standard(const Resolver& r);
 
 /// "12 ft" style text of a length in the model's display units, for messages.
 std::string show_length(const Model& model, double metres);

@@ -1,6 +1,6 @@
 // resolve_snow: the site's snow data (`snow`), roof surfaces (`roof`) and
 // amendments of library values (`amend`). The standard's numbers are read from
-// its library module's values (stdlib/asce7_16.firn); the formulas that use
+// its library module's values (stdlib/NAME.firn); the formulas that use
 // them are in snow.cpp.
 #include <fmt/format.h>
 #include <algorithm>
@@ -123,6 +123,21 @@ class Library {
     double need(const std::string& name, Dimension dimension) {
         return get(name, dimension).value_or(0.0);
     }
+    /// A text of the standard: its edition, a clause.
+    std::string text(const std::string& name) {
+        std::string full = fmt::format("{}.{}", standard_, name);
+        if (auto t = r_.constants.text(full))
+            return *t;
+        r_.diagnostics.error(where_, r_.constants.has(full)
+                                         ? fmt::format("the library value '{}' should be a text "
+                                                       "in double quotes",
+                                                       full)
+                                         : fmt::format("the library lacks the text '{}' (is "
+                                                       "'use {}' missing?)",
+                                                       full, standard_));
+        ok_ = false;
+        return {};
+    }
     bool has(const std::string& name) {
         return r_.constants.lookup(fmt::format("{}.{}", standard_, name), r_.diagnostics)
             .has_value();
@@ -135,6 +150,50 @@ class Library {
     SourceRange where_;
     bool ok_ = true;
 };
+
+/// `items` split at each "; ".
+std::vector<std::string> split_list(const std::string& items) {
+    std::vector<std::string> out;
+    for (std::size_t from = 0; from < items.size();) {
+        std::size_t end = std::min(items.find("; ", from), items.size());
+        out.push_back(items.substr(from, end - from));
+        from = end + 2;
+    }
+    return out;
+}
+
+/// The edition's name and the clauses the trace cites, from the library's texts.
+void read_citations(Library& lib, SnowTables& t) {
+    t.edition = lib.text("edition");
+    t.chapter = lib.text("snow_chapter");
+    using C = SnowTables::Clauses;
+    static const std::array<std::pair<std::string C::*, const char*>, 16> kClauses{
+        {{&C::pg, "pg"},
+         {&C::pf, "pf"},
+         {&C::pm, "pm"},
+         {&C::slippery, "slippery"},
+         {&C::ps, "ps"},
+         {&C::rain, "rain"},
+         {&C::ice_dam, "ice_dam"},
+         {&C::partial, "partial"},
+         {&C::unbalanced, "unbalanced"},
+         {&C::unbalanced_load, "unbalanced_load"},
+         {&C::drift_height, "drift_height"},
+         {&C::density, "density"},
+         {&C::step, "step"},
+         {&C::adjacent, "adjacent"},
+         {&C::parapet, "parapet"},
+         {&C::sliding, "sliding"}}};
+    auto cite = [&](const std::string& name) {
+        return fmt::format("{} {}", t.edition, lib.text("clause." + name));
+    };
+    for (const auto& [field, name] : kClauses)
+        t.clause.*field = cite(name);
+    static const std::array<const char*, 3> curves{"warm", "cold_ventilated", "cold"};
+    for (std::size_t k = 0; k < curves.size(); ++k)
+        t.clause.Cs[k] = cite(fmt::format("Cs_{}", curves[k]));
+    t.from_memory = split_list(lib.text("from_memory"));
+}
 
 SnowTables read_tables(Library& lib) {
     SnowTables t;
@@ -173,6 +232,7 @@ SnowTables read_tables(Library& lib) {
     t.sliding_width = lib.need("sliding.width", dim::length);
     t.sliding_min_rise_slippery = lib.need("sliding.min_rise_slippery", dim::number);
     t.sliding_min_rise_other = lib.need("sliding.min_rise_other", dim::number);
+    read_citations(lib, t);
     return t;
 }
 
@@ -220,7 +280,18 @@ const std::vector<std::string> kExposures{"fully", "partially", "sheltered"};
 const std::vector<std::string> kThermal{"heated", "cold_ventilated", "unheated", "freezer",
                                         "greenhouse"};
 const std::vector<std::string> kRisk{"I", "II", "III", "IV"};
-const std::vector<std::string> kStandards{"asce7_16"};
+/// The standard the snow data name, which must be a library module in use.
+std::optional<std::string> standard_of(Resolver& r, Settings& s) {
+    std::vector<std::string> standards = loaded_standards(r);
+    const syntax::Setting* setting = s.find("standard");
+    if (setting != nullptr && standards.empty()) {
+        r.diagnostics.error(setting->value.where,
+                            "no library module in use gives snow provisions (is the 'use' of "
+                            "the standard's module missing?)");
+        return std::nullopt;
+    }
+    return s.word("standard", standards);
+}
 
 /// Ce by terrain and exposure; a combination the table leaves out is an error.
 std::optional<SnowFactor> exposure_factor(Resolver& r, Settings& s, Library& lib,
@@ -231,12 +302,13 @@ std::optional<SnowFactor> exposure_factor(Resolver& r, Settings& s, Library& lib
         if (s.find("Ce") == nullptr && !lib.has(fmt::format("Ce.{}", entry))) {
             r.diagnostics.error(s.find("exposure")->value.where,
                                 fmt::format("exposure '{}' is not allowed for terrain '{}' "
-                                            "(ASCE 7-16 Table 7.3-1)",
-                                            site.exposure, site.terrain));
+                                            "({} {})",
+                                            site.exposure, site.terrain, site.tables.edition,
+                                            lib.text("clause.Ce")));
             return std::nullopt;
         }
     }
-    return factor(r, s, lib, "Ce", "Table 7.3-1",
+    return factor(r, s, lib, "Ce", lib.text("clause.Ce"),
                   {{"terrain", "B, C, D, above_tree_line or alaska_treeless"},
                    {"exposure", "fully, partially or sheltered"}},
                   entry, owner);
@@ -249,10 +321,11 @@ void resolve_site(Resolver& r, const syntax::SnowDecl& decl) {
     SnowSite site;
     site.name = decl.name.text;
     site.where = decl.name.where;
-    auto standard = s.word("standard", kStandards);
+    auto standard = standard_of(r, s);
     if (s.find("standard") == nullptr) {
         r.diagnostics.error(decl.name.where,
-                            "the snow data need their standard, as in: standard = asce7_16");
+                            fmt::format("the snow data need their standard, as in: standard = {}",
+                                        example_standard(r)));
     }
     double pg = 0.0;
     bool pg_ok = s.value("pg", kPressure, pg);
@@ -276,11 +349,11 @@ void resolve_site(Resolver& r, const syntax::SnowDecl& decl) {
     Library lib(r, site.standard, lib_where);
     site.tables = read_tables(lib);
     auto Ce = exposure_factor(r, s, lib, site, decl.name.where);
-    auto Ct = factor(r, s, lib, "Ct", "Table 7.3-2",
+    auto Ct = factor(r, s, lib, "Ct", lib.text("clause.Ct"),
                      {{"thermal", "heated, cold_ventilated, unheated, freezer or greenhouse"}},
                      site.thermal, decl.name.where);
-    auto Is = factor(r, s, lib, "Is", "Table 1.5-2", {{"risk", "I, II, III or IV"}}, site.risk,
-                     decl.name.where);
+    auto Is = factor(r, s, lib, "Is", lib.text("clause.Is"), {{"risk", "I, II, III or IV"}},
+                     site.risk, decl.name.where);
     if (!Ce || !Ct || !Is || !lib.ok())
         return;
     site.Ce = *Ce;
@@ -569,8 +642,9 @@ void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
             roof.partial_where = partial->value.where;
         } else
             r.diagnostics.error(partial->value.where,
-                                "partial names a pattern rule, or none, as in: partial = "
-                                "asce7_16.partial");
+                                fmt::format("partial names a pattern rule, or none, as in: "
+                                            "partial = {}.partial",
+                                            example_standard(r)));
     }
     bool edges_ok = read_edge(r, s, "left", roof.left) & read_edge(r, s, "right", roof.right);
     if (!names.add(decl.name, r.diagnostics) || !found || !tributary_ok || !edges_ok)
@@ -708,8 +782,8 @@ void resolve_snow(Resolver& r, const std::vector<const syntax::SnowDecl*>& snow,
         if (snow.empty()) {
             r.diagnostics.error(decl->name.where,
                                 fmt::format("roof '{}' needs the site's snow data: add a snow "
-                                            "block such as  snow S {{ standard = asce7_16 ... }}",
-                                            decl->name.text));
+                                            "block such as  snow S {{ standard = {} ... }}",
+                                            decl->name.text, example_standard(r)));
         }
     }
     check_sliding_sources(r, names);

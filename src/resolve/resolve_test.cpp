@@ -187,3 +187,11 @@ TEST_CASE("report units left out follow the family of those given") {
     CHECK(units_of("report units kN, m, kN*mm\n") == "kN m kN*mm mm");
     CHECK(units_of("") == "kN m kN*m mm");
 }
+
+TEST_CASE("a text value is a name for the library; it is no number") {
+    // A text that nothing uses is fine; used in an expression, it is an error there.
+    CHECK(messages_for(std::string(kBaseModel) + "let site.edition = \"Local rules\"\n").empty());
+    CHECK(first_message(std::string(kBaseModel) +
+                        "let site.edition = \"Local rules\"\nlet bay = 2 * site.edition\n") ==
+          "input:10:15: error: 'site.edition' is a text, not a number");
+}

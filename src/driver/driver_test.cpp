@@ -1,0 +1,78 @@
+// Tests of the driver's order: the names expectations use are checked against the
+// declared and derived cases and values before anything is solved.
+#include <catch2/catch.hpp>
+#include <string>
+
+#include "driver/driver.hpp"
+#include "testing/test_text.hpp"
+
+using namespace firn;
+
+namespace {
+
+/// The base frame with a dead load case D (lines 9-11) and `expectation` on line 12.
+std::string with_expectation(const std::string& expectation) {
+    return std::string(testing::kBaseModel) + "case D dead {\n  uniform 1 kip/ft down on B1\n}\n" +
+           expectation + "\n";
+}
+
+/// A one-bay frame under snow data S (its cases S.balanced, ...) and `expectation`.
+std::string snow_frame(const std::string& expectation) {
+    return "model \"snow\"\nuse materials\nuse asce7_16\nreport units kip, ft\n"
+           "grid x A..B spacing 24 ft\ngrid y base = 0 ft, eave = 16 ft\n"
+           "section post structural_steel, A = 9.12 in2, I = 110 in4\n"
+           "columns on A..B from base to eave section post\n"
+           "beams along eave from A to B section post\nsupport fixed at base\n"
+           "snow S {\n  standard = asce7_16\n  pg = 40 psf\n  terrain = C\n"
+           "  exposure = partially\n  thermal = unheated\n  risk = II\n}\n"
+           "roof main on eave.* {\n  tributary = 20 ft\n}\n" +
+           expectation + "\n";
+}
+
+/// The diagnostics as `line:col: message`, one a line.
+std::string located(const Analysis& a) {
+    std::string out;
+    for (const Diagnostic& d : a.diagnostics.all()) {
+        out += std::to_string(d.where.begin.line) + ":" + std::to_string(d.where.begin.column) +
+               ": " + d.message + "\n";
+    }
+    return out;
+}
+
+}  // namespace
+
+TEST_CASE("driver: an unknown source of an expectation stops the run before the solve",
+          "[driver][expect]") {
+    Analysis a = analyse_text("input", with_expectation("expect moment of B1 under Dead <= 50 "
+                                                        "kip*ft"));
+    CHECK_FALSE(a.ok);
+    CHECK(located(a) == "12:27: no load case or chosen set of combinations 'Dead'\n");
+    // Nothing was solved, no results were made, and nothing was checked.
+    CHECK_FALSE(a.solution.ok);
+    CHECK(a.results.cases.empty());
+    CHECK(a.loads.cases.empty());
+    CHECK(a.expectations.empty());
+}
+
+TEST_CASE("driver: an unknown snow value stops the run before the solve", "[driver][expect]") {
+    Analysis a = analyse_text("input", snow_frame("expect snow main.psx <= 40 psf"));
+    CHECK(located(a) == "22:1: no derived snow value 'main.psx'; did you mean 'main.ps'?\n");
+    CHECK(a.results.cases.empty());
+}
+
+TEST_CASE("driver: expectations may name the derived cases and values", "[driver][expect]") {
+    // pf = 0.7 Ce Ct Is pg = 0.7 x 1.0 x 1.2 x 1.0 x 40 psf = 33.6 psf (ASCE 7-16 Eq. 7.3-1,
+    // Ce from Table 7.3-1 and Is from Table 1.5-2 from memory, Ct from Table 7.3-2).
+    Analysis a =
+        testing::analysed(snow_frame("expect snow pf = 33.6 psf\n"
+                                     "expect moment of eave.* under S.balanced <= 1000 "
+                                     "kip*ft"));
+    REQUIRE(a.expectations.size() == 2);
+    CHECK(a.expectations[0].checked);
+    CHECK(a.expectations[1].checked);
+    // The derived cases follow the declared ones (here none) in the model that was solved.
+    REQUIRE_FALSE(a.model.cases.empty());
+    CHECK(a.model.cases.front().name == "S.balanced");
+    CHECK(a.derivation.cases.empty());
+    CHECK(a.results.cases.size() == a.model.cases.size());
+}
