@@ -338,6 +338,7 @@ struct MemberGroup {
 /// of the limits l/n a row gives for each kind of load; 0 where it gives none.
 struct DeflectionLimits {
     std::string row;
+    std::string source;  ///< where its numbers come from: the library's table, or the model
     std::vector<MemberId> members;
     double live = 0.0;       ///< L or Lr, each case alone
     double snow_wind = 0.0;  ///< S or W, each case alone

@@ -235,13 +235,6 @@ void write_envelopes(std::string& out, const Model& model, const CombinationList
 
 namespace {
 
-/// Where a row's numbers come from, for the line under its heading.
-std::string limit_source(const std::string& row) {
-    if (row.rfind("ibc2018.", 0) == 0)
-        return "IBC 2018 Table 1604.3 (library module ibc2018)";
-    return fmt::format("the model's row {}", row);
-}
-
 void write_deflection_row(Table& t, const Model& model, const DeflectionCheck& c) {
     const DisplayUnits& u = model.units;
     std::array<char, kNumberBuffer> buffer;
@@ -266,7 +259,7 @@ void write_deflections(std::string& out, const Model& model,
         "with l twice its length. A span of several members is checked member by member.\n\n";
     for (std::size_t i = 0; i < model.deflection_limits.size(); ++i) {
         const DeflectionLimits& limits = model.deflection_limits[i];
-        out += fmt::format("Row {}   [{}]\n", limits.row, limit_source(limits.row));
+        out += fmt::format("Row {}   [{}]\n", limits.row, limits.source);
         std::size_t member_w = std::string_view("member").size(), case_w = 10;
         for (const DeflectionCheck& c : checks) {
             member_w = std::max(member_w, model.members[at(c.member)].name.size());

@@ -43,8 +43,9 @@ bool known_symbol(Resolver& r, const syntax::Name& symbol) {
     return false;
 }
 
-/// The standards' load factors stay below 2 (ASCE 7-16 Sec. 2.3.1 and 2.4.1: 1.6 at
-/// most); one past this is a slip, and one near the largest double would overflow.
+/// The standards' load factors stay below 2 (1.6 at most in the strength and allowable
+/// stress combinations); one past this is a slip, and one near the largest double would
+/// overflow.
 constexpr double kLargestLoadFactor = 100.0;
 
 /// A factor must be a plain positive number, and not an absurd one.
@@ -260,6 +261,11 @@ void resolve_deflection_limits(Resolver& r,
         DeflectionLimits limits;
         limits.row = decl->row.text;
         limits.where = decl->row.where;
+        // A library module names the table its rows come from (`let MODULE.table = "..."`).
+        std::string module = decl->row.text.substr(0, decl->row.text.find('.'));
+        std::optional<std::string> table = r.constants.text(module + ".table");
+        limits.source = table ? fmt::format("{} (library module {})", *table, module)
+                              : fmt::format("the model's row {}", decl->row.text);
         bool any = false;
         for (auto [column, out] :
              {std::pair{"live", &limits.live}, std::pair{"snow_wind", &limits.snow_wind},
@@ -281,8 +287,9 @@ void resolve_deflection_limits(Resolver& r,
             r.diagnostics.error(
                 decl->row.where,
                 fmt::format("no row of deflection limits '{}' (its values {}.live, "
-                            "{}.snow_wind or {}.total); is 'use ibc2018' missing?",
-                            decl->row.text, decl->row.text, decl->row.text, decl->row.text));
+                            "{}.snow_wind or {}.total); is 'use {}' missing?",
+                            decl->row.text, decl->row.text, decl->row.text, decl->row.text,
+                            module));
             continue;
         }
         if (!members)
