@@ -332,7 +332,7 @@ struct ArrangeDecl {
     Name rule;
 };
 
-/// `deflection eave.* limit ibc2018.roof_no_ceiling`
+/// `deflection eave.* limit MODULE.ROW` (a row of l/n ratios from a library module)
 struct DeflectionDecl {
     std::vector<Name> members;
     Name row;
