@@ -25,7 +25,7 @@ Geometry geometry_of(const Model& m, MemberId id) {
 
 RoofShape shape_of(const Model& m, const Roof& roof) {
     RoofShape shape;
-    double top = -INFINITY, top_x = 0.0;
+    double top = -std::numeric_limits<double>::infinity(), top_x = 0.0;
     for (MemberId id : roof.members) {
         for (NodeId n : {m.members[at(id)].start, m.members[at(id)].end}) {
             const Node& node = m.nodes[at(n)];
@@ -323,6 +323,7 @@ void SnowDeriver::partial_loads(const Roof& roof) {
     }
     std::vector<Span> spans = spans_of(m_, roof.members);
     std::vector<std::string> names;
+    names.reserve(spans.size());
     for (const Span& span : spans)
         names.push_back(span.cantilever ? span.name + " (cantilever)" : span.name);
     if (spans.size() < 2) {
@@ -436,7 +437,8 @@ void SnowDeriver::load_members(const Roof& roof, const std::vector<MemberId>& me
 
 void SnowDeriver::load_member(const Roof& roof, MemberId id, double p, LoadCase& lc) const {
     load_between(
-        roof, id, -INFINITY, INFINITY, [p](double) { return p; }, lc);
+        roof, id, -std::numeric_limits<double>::infinity(), std::numeric_limits<double>::infinity(),
+        [p](double) { return p; }, lc);
 }
 
 void SnowDeriver::load_part(const Roof& roof, MemberId id, double x_from, double x_to, double p,
@@ -492,6 +494,7 @@ void SnowDeriver::ice_dam(const Roof& roof) {
     }
     double p = t_.ice_dam_factor * pf_;
     std::vector<std::string> names;
+    names.reserve(eaves.size());
     for (MemberId id : eaves)
         names.push_back(m_.members[at(id)].name);
     line(

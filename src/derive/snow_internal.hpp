@@ -6,6 +6,7 @@
 #include <fmt/format.h>
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <optional>
 #include <string>
 #include <vector>
@@ -38,7 +39,8 @@ Geometry geometry_of(const Model& m, MemberId id);
 /// A roof's horizontal extent and its ridge (its highest node strictly between
 /// its ends), if it has one.
 struct RoofShape {
-    double left = INFINITY, right = -INFINITY;
+    double left = std::numeric_limits<double>::infinity(),
+           right = -std::numeric_limits<double>::infinity();
     std::optional<double> ridge;
 };
 RoofShape shape_of(const Model& m, const Roof& roof);

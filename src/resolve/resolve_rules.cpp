@@ -284,12 +284,11 @@ void resolve_deflection_limits(Resolver& r,
                                                 name));
         }
         if (!any) {
-            r.diagnostics.error(
-                decl->row.where,
-                fmt::format("no row of deflection limits '{}' (its values {}.live, "
-                            "{}.snow_wind or {}.total); is 'use {}' missing?",
-                            decl->row.text, decl->row.text, decl->row.text, decl->row.text,
-                            module));
+            r.diagnostics.error(decl->row.where,
+                                fmt::format("no row of deflection limits '{}' (its values {}.live, "
+                                            "{}.snow_wind or {}.total); is 'use {}' missing?",
+                                            decl->row.text, decl->row.text, decl->row.text,
+                                            decl->row.text, module));
             continue;
         }
         if (!members)

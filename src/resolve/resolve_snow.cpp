@@ -6,6 +6,7 @@
 #include <algorithm>
 #include <array>
 #include <cmath>
+#include <limits>
 #include <map>
 
 #include "resolve/resolve_internal.hpp"
@@ -440,6 +441,7 @@ bool plan_bays(Resolver& r, const syntax::Setting& frame, Roof::Tributary& t) {
                            [&](const GridLine& g) { return named && g.name == e.literal; });
     if (it == lines.end()) {
         std::vector<std::string> names;
+        names.reserve(lines.size());
         for (const GridLine& g : lines)
             names.push_back(g.name);
         r.diagnostics.error(e.where, lines.empty()
@@ -665,7 +667,8 @@ namespace {
 
 /// The horizontal extent of a resolved roof (m).
 std::pair<double, double> roof_extent(const Model& m, const Roof& roof) {
-    double lo = INFINITY, hi = -INFINITY;
+    double lo = std::numeric_limits<double>::infinity(),
+           hi = -std::numeric_limits<double>::infinity();
     for (MemberId id : roof.members) {
         for (NodeId n : {m.members[at(id)].start, m.members[at(id)].end}) {
             lo = std::min(lo, m.nodes[at(n)].x);
