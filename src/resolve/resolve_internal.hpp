@@ -225,6 +225,13 @@ void resolve_amendments(Resolver& r, const std::vector<const syntax::AmendDecl*>
 /// Resolves the `case` statements of the trees into model.cases.
 void resolve_cases(Resolver& r, const std::vector<const syntax::CaseDecl*>& cases);
 
+/// The geometry checks, once every member and support exists: the tolerance
+/// (`geometry tolerance`, or the default), nodes on members' lengths (unless
+/// `unjoined`), repeated and overlapping members, near nodes, members within the
+/// tolerance, and parts of the frame that share no node (resolve_geometry.cpp).
+void check_geometry(Resolver& r, const syntax::GeometryTolerance* tolerance,
+                    const std::vector<const syntax::UnjoinedDecl*>& unjoined);
+
 /// "12 ft" style text of a length in the model's display units, for messages.
 std::string show_length(const Model& model, double metres);
 
