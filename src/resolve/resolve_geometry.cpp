@@ -460,19 +460,18 @@ void check_parts(Frame& f) {
             continue;
         const Member& m = f.member(it->first);
         std::string who = fmt::format(
-            "the members around node '{}' ({} of them, '{}' first) share no node "
-            "with the rest of the frame",
-            f.node_name(m.start), it->members, m.name);
+            "the part of the frame around node '{}' ({} member{}, '{}' first) shares no node "
+            "with the rest",
+            f.node_name(m.start), it->members, it->members == 1 ? "" : "s", m.name);
         if (it->supported) {
             r.diagnostics.warning(m.where, who +
-                                               " and stand on supports of their own, so they "
-                                               "are analysed as a frame apart; if they should "
-                                               "be joined to it, give them a node in common");
+                                               " and stands on supports of its own, so it is "
+                                               "analysed as a frame apart; if it should be "
+                                               "joined to the rest, give them a node in common");
         } else {
             r.diagnostics.error(m.where, who +
-                                             " and have no support, so nothing holds them up; "
-                                             "join them to the frame at a node in common, or "
-                                             "support them");
+                                             " and has no support, so nothing holds it up; join "
+                                             "it to the rest at a node in common, or support it");
         }
     }
 }

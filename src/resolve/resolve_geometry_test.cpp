@@ -95,12 +95,11 @@ TEST_CASE("geometry: parts of the frame that share no node") {
         "node N3 at x = 20 ft, y = 0 ft\nnode N4 at x = 30 ft, y = 0 ft\n"
         "member B2 from N3 to N4 section beam\n";
     CHECK(heads(with(part)) ==
-          "input:11:8: error: the members around node 'N3' (1 of them, 'B2' first) share no "
-          "node with the rest of the frame and have no support, so nothing holds them up; join "
-          "them to the frame at a node in common, or support them\n");
+          "input:11:8: error: the part of the frame around node 'N3' (1 member, 'B2' first) "
+          "shares no node with the rest and has no support, so nothing holds it up; join it to "
+          "the rest at a node in common, or support it\n");
     CHECK(heads(with(part + "support fixed at N3\n")) ==
-          "input:11:8: warning: the members around node 'N3' (1 of them, 'B2' first) share no "
-          "node with the rest of the frame and stand on supports of their own, so they are "
-          "analysed as a frame apart; if they should be joined to it, give them a node in "
-          "common\n");
+          "input:11:8: warning: the part of the frame around node 'N3' (1 member, 'B2' first) "
+          "shares no node with the rest and stands on supports of its own, so it is analysed as "
+          "a frame apart; if it should be joined to the rest, give them a node in common\n");
 }
