@@ -93,6 +93,9 @@ struct kw_under : TAO_PEGTL_KEYWORD("under") {};
 struct kw_between : TAO_PEGTL_KEYWORD("between") {};
 struct kw_and : TAO_PEGTL_KEYWORD("and") {};
 struct kw_within : TAO_PEGTL_KEYWORD("within") {};
+struct kw_geometry : TAO_PEGTL_KEYWORD("geometry") {};
+struct kw_tolerance : TAO_PEGTL_KEYWORD("tolerance") {};
+struct kw_unjoined : TAO_PEGTL_KEYWORD("unjoined") {};
 struct kw_rotation : TAO_PEGTL_KEYWORD("rotation") {};
 struct kw_section : TAO_PEGTL_KEYWORD("section") {};
 struct kw_self : TAO_PEGTL_KEYWORD("self") {};
@@ -689,6 +692,24 @@ struct expect_begin : kw_expect {};
 struct expect_stmt : if_must<expect_begin, sp, expect_subject, sp, opt<expect_under, sp>,
                              expect_bound, opt<sp, expect_within>, opt<sp, because>> {};
 
+// ---------------------------------------------------------------- geometry
+
+// geometry_stmt <- 'geometry' sp 'tolerance' sp expr
+//                the length within which places count as one (nodes on members, near nodes)
+struct geometry_tolerance_value : expr {};
+struct geometry_begin : kw_geometry {};
+struct geometry_stmt : if_must<geometry_begin, sp, kw_tolerance, sp, geometry_tolerance_value> {};
+
+// unjoined_stmt <- 'unjoined' sp name (list_sep name)* sp 'on' sp member_ref (list_sep member_ref)*
+//                nodes that lie on the members' length but pass them without a connection
+struct unjoined_node : name {};
+struct unjoined_on : kw_on {};
+struct unjoined_member : member_ref {};
+struct unjoined_begin : kw_unjoined {};
+struct unjoined_stmt : if_must<unjoined_begin, sp, unjoined_node,
+                               star<if_must<list_sep, unjoined_node>>, sp, unjoined_on, sp,
+                               unjoined_member, star<if_must<list_sep, unjoined_member>>> {};
+
 // amend_stmt  <- 'amend' sp name sp '=' sp expr sp 'because' sp quoted
 //                replaces a value of the library, with the reason
 struct amend_name : name {};
@@ -701,7 +722,7 @@ struct statement : sor<model_stmt, use_stmt, let_stmt, report_stmt, grid_stmt, n
                        rafters_stmt, group_stmt, support_stmt, case_stmt, snow_stmt, roof_stmt,
                        projection_stmt, amend_stmt, combinations_stmt, combine_stmt,
                        pattern_stmt, arrange_stmt, deflection_stmt, expect_stmt,
-                       raise<unknown_statement>> {};
+                       geometry_stmt, unjoined_stmt, raise<unknown_statement>> {};
 // statement_start <- the keyword any statement of `statement` begins with
 //                taken from the rule itself, so that error recovery's question "does this
 //                line open a new statement?" cannot drift from the statements there are

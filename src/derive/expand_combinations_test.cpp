@@ -351,8 +351,9 @@ TEST_CASE("deflection: a member past its limit fails, and an unknown row is an e
     CHECK(a.deflections[0].ratio() == Approx(8 * 0.157728).epsilon(1e-5));
     std::string bad = deflection_model("");
     bad.replace(bad.find("roof_no_ceiling"), 15, "roof_no_ceilng");
-    CHECK(firn::testing::first_message(bad).find("no row of deflection limits "
-                                                 "'ibc2018.roof_no_ceilng'") != std::string::npos);
+    // The beam and the arm are two frames on their own supports: a warning comes first.
+    CHECK(firn::testing::messages_for(bad).find("no row of deflection limits "
+                                                "'ibc2018.roof_no_ceilng'") != std::string::npos);
 }
 
 TEST_CASE("envelopes: in the shelter example a partial snow arrangement governs a beam") {

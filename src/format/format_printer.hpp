@@ -131,6 +131,8 @@ class Printer {
     void print(const syntax::ArrangeDecl& a);
     void print(const syntax::DeflectionDecl& d);
     void print(const syntax::ExpectDecl& e);
+    void print(const syntax::GeometryTolerance& g);
+    void print(const syntax::UnjoinedDecl& u);
     void expect_bound(const syntax::ExpectDecl& e);
     void because(const SourceRange& reason);
     void properties(const std::vector<syntax::Property>& props, bool started);

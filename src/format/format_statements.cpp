@@ -335,6 +335,19 @@ void Printer::print(const syntax::AmendDecl& a) {
     because(a.reason_where);
 }
 
+void Printer::print(const syntax::GeometryTolerance& g) {
+    word("geometry");
+    word("tolerance");
+    value(g.value);
+}
+
+void Printer::print(const syntax::UnjoinedDecl& u) {
+    word("unjoined");
+    names(u.nodes);
+    word("on");
+    names(u.members);
+}
+
 void Printer::print_load(const syntax::LoadDecl& load, const SourceRange& where) {
     using F = syntax::LoadDecl::Form;
     where_ = where;

@@ -499,6 +499,14 @@ FIRN_ACTION(g::deflection_begin, begin_statement<syntax::DeflectionDecl>);
 FIRN_ACTION(g::deflection_row, store_name<&syntax::DeflectionDecl::row>);
 FIRN_ACTION(g::deflection_member, append_name<&syntax::DeflectionDecl::members>);
 
+// ---------------------------------------------------------------- geometry
+
+FIRN_ACTION(g::geometry_begin, begin_statement<syntax::GeometryTolerance>);
+FIRN_ACTION(g::geometry_tolerance_value, store_expr<&syntax::GeometryTolerance::value>);
+FIRN_ACTION(g::unjoined_begin, begin_statement<syntax::UnjoinedDecl>);
+FIRN_ACTION(g::unjoined_node, append_name<&syntax::UnjoinedDecl::nodes>);
+FIRN_ACTION(g::unjoined_member, append_name<&syntax::UnjoinedDecl::members>);
+
 // ---------------------------------------------------------------- expectations
 
 using syntax::ExpectDecl;

@@ -388,6 +388,14 @@ struct Expectation {
 };
 
 /// The whole resolved model. Vectors keep declaration order.
+/// A node that lies on a member's length and passes it without a connection
+/// (`unjoined N5 on C1`), so the geometry checks let it be.
+struct Unjoined {
+    NodeId node{};
+    MemberId member{};
+    SourceRange where;  ///< the node's name in the statement
+};
+
 struct Model {
     std::string title;
     std::string source_name;  ///< the model file as named on the command line
@@ -400,6 +408,10 @@ struct Model {
     std::vector<Section> sections;
     std::vector<Member> members;
     std::vector<Support> supports;
+    /// m: places closer than this are one place to the geometry checks (a node on a
+    /// member, two nodes, a member's length); `geometry tolerance` or the default.
+    double geometry_tolerance = 0.0;
+    std::vector<Unjoined> unjoined;
     std::vector<MemberGroup> groups;
     std::vector<LoadCase> cases;
     std::optional<SnowSite> snow;

@@ -356,12 +356,26 @@ struct ExpectDecl {
     SourceRange reason_where;
 };
 
+/// `geometry tolerance 2 mm`: how close two places must be to count as one
+/// (a node on a member, two nodes, a member's length).
+struct GeometryTolerance {
+    Expr value;
+};
+
+/// `unjoined N5 on C1, C2`: nodes that lie on the members' length but pass
+/// them without a connection (a brace crossing a column in another plane).
+struct UnjoinedDecl {
+    std::vector<Name> nodes;
+    std::vector<Name> members;  ///< names, group names and patterns with '*'
+};
+
 /// One statement of a model file and the source range it covers.
 struct Statement {
     std::variant<ModelTitle, ReportUnits, Grid, LetDecl, UseDecl, NodeDecl, MaterialDecl,
                  SectionDecl, MemberDecl, ColumnsDecl, BeamsDecl, RaftersDecl, GroupDecl,
                  SupportDecl, CaseDecl, SnowDecl, RoofDecl, AmendDecl, CombinationsDecl,
-                 CombineDecl, PatternDecl, ArrangeDecl, DeflectionDecl, ExpectDecl>
+                 CombineDecl, PatternDecl, ArrangeDecl, DeflectionDecl, ExpectDecl,
+                 GeometryTolerance, UnjoinedDecl>
         node;
     SourceRange where;
 };

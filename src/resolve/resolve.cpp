@@ -231,6 +231,8 @@ struct Collected {
     std::vector<const syntax::Statement*> snow_statements;
     std::vector<const syntax::SupportDecl*> supports;
     std::vector<const syntax::CaseDecl*> cases;
+    std::vector<const syntax::Statement*> tolerances;
+    std::vector<const syntax::UnjoinedDecl*> unjoined;
     SourceRange file_start;
 };
 
@@ -288,6 +290,10 @@ Collected collect(std::span<const syntax::Tree> trees) {
                         c.supports.push_back(&node);
                     if constexpr (std::is_same_v<T, syntax::CaseDecl>)
                         c.cases.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::GeometryTolerance>)
+                        c.tolerances.push_back(&s);
+                    if constexpr (std::is_same_v<T, syntax::UnjoinedDecl>)
+                        c.unjoined.push_back(&node);
                 },
                 s.node);
         }
@@ -724,6 +730,14 @@ void resolve_supports(Resolver& r, const Collected& c) {
     }
 }
 
+void resolve_geometry(Resolver& r, const Collected& c) {
+    only_once(r, c.tolerances, "the geometry tolerance");
+    const syntax::GeometryTolerance* tolerance = nullptr;
+    if (!c.tolerances.empty())
+        tolerance = &std::get<syntax::GeometryTolerance>(c.tolerances[0]->node);
+    check_geometry(r, tolerance, c.unjoined);
+}
+
 void check_whole_model(Resolver& r, const Collected& c) {
     if (r.diagnostics.has_errors())
         return;  // the checks below would only echo earlier errors
@@ -757,6 +771,7 @@ Model resolve(std::span<const syntax::Tree> trees, Diagnostics& diagnostics) {
     resolve_member_statements(r, c.members);
     resolve_groups(r, c.groups);
     resolve_supports(r, c);
+    resolve_geometry(r, c);
     resolve_cases(r, c.cases);
     resolve_snow(r, c.snow, c.roofs, c.projections, c.amends, c.snow_statements);
     resolve_combinations(r, c.combination_sets, c.combine, c.patterns, c.arrangements);

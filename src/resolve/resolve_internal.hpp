@@ -237,6 +237,13 @@ std::vector<std::string> loaded_standards(const Resolver& r);
 /// A standard's name for the examples in messages: the first in use, or a placeholder.
 std::string example_standard(const Resolver& r);
 
+/// The geometry checks, once every member and support exists: the tolerance
+/// (`geometry tolerance`, or the default), nodes on members' lengths (unless
+/// `unjoined`), repeated and overlapping members, near nodes, members within the
+/// tolerance, and parts of the frame that share no node (resolve_geometry.cpp).
+void check_geometry(Resolver& r, const syntax::GeometryTolerance* tolerance,
+                    const std::vector<const syntax::UnjoinedDecl*>& unjoined);
+
 /// "12 ft" style text of a length in the model's display units, for messages.
 std::string show_length(const Model& model, double metres);
 

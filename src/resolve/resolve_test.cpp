@@ -152,9 +152,9 @@ TEST_CASE("load errors: exact message, line and column") {
     CHECK(first_message(
               with("case D dead {\n  uniform 1 kip/ft down on B1\n}\ncase D live {\n}\n")) ==
           "input:12:6: error: load case 'D' is already defined");
-    CHECK(first_message(
-              with("material wood E = 1600 ksi\nsection j wood, A = 1 in2, I = 1 in4\n"
-                   "member B2 from N2 to N1 section j\ncase D dead {\n  self weight\n}\n")) ==
+    CHECK(first_message(with("material wood E = 1600 ksi\nsection j wood, A = 1 in2, I = 1 in4\n"
+                             "node N3 at x = 10 ft, y = 5 ft; member B2 from N2 to N3 section j\n"
+                             "case D dead {\n  self weight\n}\n")) ==
           "input:13:3: error: self weight needs the density of material 'wood'");
 }
 
