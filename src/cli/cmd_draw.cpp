@@ -70,6 +70,13 @@ int run(const DrawArgs& args) {
             files.push_back({s.path, s.svg});
     }
     files.push_back({"report.html", html_report(a.model, text_report_of(a), sheets)});
+    if (args.folder == "-") {
+        // A folder cannot go down a pipe; the one file that stands alone (every drawing
+        // inline) can, so `-o -` prints report.html. A failed write is reported by main.
+        write_stdout(files.back().content);
+        std::fputs(messages.c_str(), stderr);
+        return exit_ok;
+    }
     std::string error;
     if (!write_drawings(args.folder, files, args.force, error)) {
         std::fprintf(stderr, "firn: error: %s\n", error.c_str());
@@ -90,7 +97,7 @@ void add_draw_command(CLI::App& app, int& status) {
     cmd->add_option("model", args->model, "The model file (.firn)")->required();
     cmd->add_option("-o,--output", args->folder,
                     "The folder to write into (created if missing): frame.svg, loads/, "
-                    "diagrams/, report.html")
+                    "diagrams/, report.html; '-' prints report.html alone to standard output")
         ->required();
     cmd->add_option("--case", args->cases,
                     "Also draw the diagrams of these load cases (a name or a pattern with *; "

@@ -68,8 +68,9 @@ int run(const RunArgs& args) {
         }
     };
     int status = exit_ok;
-    if (args.output.empty()) {
-        // A failed write to standard output is reported once, by main.
+    if (args.output.empty() || args.output == "-") {
+        // `-o -` is standard output, as for most tools; a failed write there is reported
+        // once, by main.
         write_report(write_stdout);
     } else {
         AtomicFile file;
@@ -104,7 +105,8 @@ void add_run_command(CLI::App& app, int& status) {
                   "JSON: write every number unrounded, as the shortest text that reads back to "
                   "the same double (for checking firn with other tools)");
     cmd->add_option("-o,--output", args->output,
-                    "Write the report to this file (atomically) instead of standard output");
+                    "Write the report to this file (atomically) instead of standard output; "
+                    "'-' is standard output");
     add_stdlib_option(cmd, args->stdlib);
     add_strict_option(cmd, args->strict);
     cmd->callback([args, &status] { status = run(*args); });
