@@ -199,8 +199,8 @@ struct SnowTables {
     std::string edition, chapter;
     /// The clauses the trace cites, each with the edition's name before it.
     struct Clauses {
-        std::string pg, pf, pm, slippery, ps, rain, ice_dam, partial, unbalanced,
-            unbalanced_load, drift_height, density, step, adjacent, parapet, sliding;
+        std::string pg, pf, pm, slippery, ps, rain, ice_dam, partial, unbalanced, unbalanced_load,
+            drift_height, density, step, adjacent, parapet, sliding;
         std::array<std::string, 3> Cs;  ///< per curve of the slope factor
     } clause;
     /// Clauses whose values were entered from memory: a citation that ends with one is
