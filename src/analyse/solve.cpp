@@ -423,13 +423,13 @@ StiffnessRange stiffness_range(const SolveInputs& in) {
                  bar ? e.axial_rigidity / l : std::max(e.axial_rigidity / l, bend),
                  in.model.members[i].where);
     }
+    double l = typical_member_length(in.members);
     for (const Support& sp : in.model.supports) {
         for (std::size_t d = 0; d < 3; ++d) {
             const Restraint& r = sp.restraint[d];
             if (r.kind == Restraint::Kind::spring && r.stiffness > 0.0) {
                 // A rotational spring compares with members as the force it gives at a
                 // typical member length.
-                double l = typical_member_length(in.members);
                 consider(fmt::format("the spring at node '{}'", in.model.nodes[at(sp.node)].name),
                          d == dof_rotation ? r.stiffness / (l * l) : r.stiffness, sp.where);
             }
@@ -438,10 +438,9 @@ StiffnessRange stiffness_range(const SolveInputs& in) {
     return range;
 }
 
-std::string conditioning_words(const SolveInputs& in, double least_ratio) {
+std::string conditioning_words(const StiffnessRange& range, double least_ratio) {
     double estimate =
         least_ratio > 0.0 ? 1.0 / least_ratio : std::numeric_limits<double>::infinity();
-    StiffnessRange range = stiffness_range(in);
     std::string text =
         std::isfinite(estimate)
             ? fmt::format(
@@ -475,15 +474,16 @@ bool factor_stiffness(const SolveInputs& in, const Stiffness& k, Factor& factor,
         return false;
     }
     // Point at the softest part: usually the one to look at (a spring, a slender member).
-    SourceRange where = stiffness_range(in).soft_where;
+    StiffnessRange range = stiffness_range(in);
+    SourceRange where = range.soft_where;
     if (!scan.usable || scan.least_ratio < 1.0 / kUnsolvableCondition) {
-        diagnostics.error(where, conditioning_words(in, scan.least_ratio) +
+        diagnostics.error(where, conditioning_words(range, scan.least_ratio) +
                                      "; the frame is stable but cannot be solved in double "
                                      "precision: make the stiffnesses less far apart");
         return false;
     }
     ill_conditioned = true;
-    diagnostics.warning(where, conditioning_words(in, scan.least_ratio) +
+    diagnostics.warning(where, conditioning_words(range, scan.least_ratio) +
                                    "; the frame is stable and was solved; the results keep fewer "
                                    "digits than usual");
     return true;
