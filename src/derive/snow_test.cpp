@@ -667,3 +667,25 @@ TEST_CASE("snow: the edition and its clauses come from the library, not from the
         cited = cited || t.clause == "County rules 2030 Rule 3.1";
     CHECK(cited);
 }
+
+TEST_CASE("snow: a roof member at or above the slope of Cs = 0 is a wall, not a roof") {
+    // ASCE 7-16 Fig. 7.4-1: every Cs curve reaches 0 at 70 degrees; a surface that steep
+    // holds no roof snow, so listing it in a roof is a modelling slip.
+    auto rafter = [](const char* rise) {
+        return fmt::format(
+            "model \"snow\"\nuse materials\nuse asce7_16\nreport units kip, ft\n"
+            "node base at x = 0 ft, y = 0 ft\nnode ridge at x = 10 ft, y = {}\n"
+            "section girder structural_steel, A = 11.8 in2, I = 510 in4\n"
+            "member R1 from base to ridge section girder\nsupport fixed at base\n"
+            "snow S {{\n  standard = asce7_16\n{}}}\nroof main on R1 {{\n  tributary = 20 ft\n}}\n",
+            rise, kSite);
+    };
+    // atan(27/10) = 69.68 deg: a very steep roof, still on the curve (Cs = 0.009).
+    Analysis steep = analysed(rafter("27 ft"));
+    CHECK(trace_has(steep, "Cs = 1 - (slope - knee)"));
+    // atan(28/10) = 70.35 deg, and a vertical member.
+    CHECK(first_message(rafter("28 ft")) ==
+          "input:18:14: error: member 'R1' of roof 'main' slopes 70.3 deg: from 70 deg on a "
+          "surface holds no snow (ASCE 7-16 Fig. 7.4-1a: Cs = 0), so it is a wall, not a roof; "
+          "list only the roof's sloped and flat members");
+}

@@ -224,6 +224,12 @@ void resolve_snow(Resolver& r, const std::vector<const syntax::SnowDecl*>& snow,
                   const std::vector<const syntax::AmendDecl*>& amends,
                   const std::vector<const syntax::Statement*>& snow_statements);
 
+/// Warns of a ground snow load (Pa) beyond any site's: a unit slip (resolve_snow_checks.cpp).
+void warn_implausible_ground_snow(Resolver& r, const SourceRange& where, double pg);
+
+/// Refuses a roof member so steep that the roof rules give it no snow: a wall.
+void check_roof_slopes(Resolver& r, const syntax::RoofDecl& decl, const Roof& roof);
+
 /// Registers the `amend` statements with the values they replace.
 void resolve_amendments(Resolver& r, const std::vector<const syntax::AmendDecl*>& amends);
 

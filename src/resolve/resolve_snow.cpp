@@ -337,6 +337,8 @@ void resolve_site(Resolver& r, const syntax::SnowDecl& decl) {
         r.diagnostics.error(s.find("pg")->value.where,
                             "the ground snow load pg cannot be negative");
         pg_ok = false;
+    } else if (pg_ok) {
+        warn_implausible_ground_snow(r, s.find("pg")->value.where, pg);
     }
     site.terrain = s.word("terrain", kTerrains).value_or("");
     site.exposure = s.word("exposure", kExposures).value_or("");
@@ -658,6 +660,7 @@ void resolve_roof(Resolver& r, const syntax::RoofDecl& decl, NameTable& names) {
         return;
     roof.members = std::move(*chain);
     roof.tributary = tributary;
+    check_roof_slopes(r, decl, roof);
     r.model.roofs.push_back(std::move(roof));
 }
 
