@@ -18,10 +18,10 @@ _firn() {
     draw) opts="$common -o --output --case --combination --diagrams --no-loads --no-envelopes --html-only --force --warnings-as-errors" ;;
     baseline)
         case $sub in
-        check) opts="$batch --rel --abs" ;;
+        check) opts="$batch --rel --abs --top --noise" ;;
         update) opts="$batch" ;;
         show) opts="$common" ;;
-        diff) opts="$common --as --rel --abs" ;;
+        diff) opts="$common --as --rel --abs --top --noise" ;;
         *)
             [ "$cword" -eq 2 ] && COMPREPLY=($(compgen -W "check update show diff -h --help" -- "$cur"))
             return
@@ -41,7 +41,7 @@ _firn() {
         if [ "$cmd" = draw ]; then COMPREPLY=($(compgen -d -- "$cur")); else COMPREPLY=($(compgen -f -- "$cur")); fi
         return
         ;;
-    --shard | -j | --jobs | --rel | --abs | --case | --combination) return ;;
+    --shard | -j | --jobs | --rel | --abs | --top | --noise | --case | --combination) return ;;
     esac
     if [[ $cur == -* ]]; then
         COMPREPLY=($(compgen -W "$opts" -- "$cur"))

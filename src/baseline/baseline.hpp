@@ -97,22 +97,42 @@ struct ValueChange {
     /// (new - old) / old x 100: positive when the value grew in its own direction
     /// (-50 -> -62 is +24 %), negative when it shrank or changed sign; infinite when old is 0.
     double percent = 0.0;
+    /// What the value is compared with: "moment", "force", "displacement", "rotation"...
+    std::string quantity_kind;
+    /// |new - old| over the largest |value| of its kind in either baseline: how much the
+    /// change matters to a design (a moment against the largest moment), 0 to 2.
+    double significance = 0.0;
 };
 
+/// A change that moves a value by more than this share of its kind's largest is
+/// significant (chosen here: about the precision a design reads forces to).
+inline constexpr double kSignificantShare = 0.01;
+
 struct Comparison {
-    std::size_t compared = 0;  ///< values in both
+    std::size_t compared = 0;     ///< values in both
+    std::size_t significant = 0;  ///< moved values with significance > kSignificantShare
     std::vector<ValueChange> changes;
     bool moved() const { return !changes.empty(); }
 };
 
-/// Compares a fresh baseline with a stored one: moved values sorted by the size
-/// of their change in percent (largest first; ties in the fresh baseline's order),
-/// then the values added, then the values removed.
+/// Compares a fresh baseline with a stored one: the moved values first, grouped by
+/// what they belong to (a member, a node, a support) and the groups ordered by their
+/// most significant change; in a group its moments and forces first, then the other
+/// values, each by significance (ties in the fresh baseline's order); then the values
+/// added, then the values removed.
 Comparison compare_baselines(const Baseline& old, const Baseline& fresh,
                              const Tolerances& tolerances);
 
+/// How many of the moved values a listing shows.
+struct Listing {
+    std::size_t top = 20;  ///< at most this many moved values (0: all)
+    double noise = 0.001;  ///< moved values below this share of their kind's largest are
+                           ///< counted but not listed (0: list them all)
+};
+
 /// The changes as aligned lines, two spaces in:
-/// `member AB  moment_min  case D  -50.0000 -> -62.0000 kip*ft  +24.00 %`.
-std::string describe_changes(const Comparison& comparison);
+/// `member AB  moment_min  case D  -50.0000 -> -62.0000 kip*ft  +24.00 %  24.0 % of largest
+/// moment`, then a line for the moved values left out by `listing`, if any.
+std::string describe_changes(const Comparison& comparison, const Listing& listing = {});
 
 }  // namespace firn

@@ -8,9 +8,10 @@
 #include <charconv>
 #include <cmath>
 #include <limits>
+#include <map>
 #include <unordered_map>
 
-#include "base/number_format.hpp"
+#include "baseline/baseline_key.hpp"
 
 namespace firn {
 namespace {
@@ -41,7 +42,7 @@ std::optional<ValueChange> change_of(const BaselineValue& old, const BaselineVal
     double old_si = old.value * unit_size(old, old_dim);
     double new_size = unit_size(now, new_dim);
     double new_si = now.value * new_size;
-    ValueChange c{ValueChange::Kind::moved, now.key, old, now, old_si / new_size, 0.0};
+    ValueChange c{ValueChange::Kind::moved, now.key, old, now, old_si / new_size, 0.0, "", 0.0};
     c.percent = old_si == 0.0 ? std::numeric_limits<double>::infinity()
                               : (new_si - old_si) / old_si * 100.0;
     if (old_dim == new_dim) {
@@ -53,58 +54,94 @@ std::optional<ValueChange> change_of(const BaselineValue& old, const BaselineVal
     return c;
 }
 
-std::string percent_text(const ValueChange& c) {
-    if (c.kind != ValueChange::Kind::moved)
-        return c.kind == ValueChange::Kind::added ? "added" : "removed";
-    if (std::isinf(c.percent))
-        return "from 0";
-    return fmt::format("{:+.2f} %", c.percent);
+/// What a value is measured against: values of one dimension (every moment, every
+/// force: shears, axial forces and reactions), and plain numbers by their quantity
+/// (rotations apart from ratios and snow factors).
+std::string kind_of(const BaselineValue& v) {
+    Dimension d;
+    unit_size(v, d);
+    if (d == dim::moment)
+        return "moment";
+    if (d == dim::force)
+        return "force";
+    if (d == dim::length)
+        return "displacement";
+    if (d == dim::pressure)
+        return "pressure";
+    if (d == dim::force_per_length)
+        return "line load";
+    if (d == dim::number) {
+        std::string quantity = baseline_detail::split_key(v.key).quantity;
+        return quantity.empty() ? "factor" : quantity;
+    }
+    return describe(d);
 }
 
-/// `member AB`, `moment_min`, `case D`: the key's parts in reading order.
-struct KeyParts {
-    std::string entity, quantity, scope;
-};
-
-KeyParts split_key(std::string_view key) {
-    // Keys are `SCOPE NAME KIND NAME QUANTITY...`, or `snow SITE NAME` (see baseline_write.cpp).
-    std::vector<std::size_t> spaces;
-    for (std::size_t i = 0; i < key.size() && spaces.size() < 4; ++i) {
-        if (key[i] == ' ')
-            spaces.push_back(i);
+/// The largest |value| in SI of each kind, over both baselines (so that a value that
+/// went away still sets the scale its kind had).
+std::map<std::string, double> largest_by_kind(const Baseline& old, const Baseline& fresh) {
+    std::map<std::string, double> largest;
+    for (const Baseline* b : {&old, &fresh}) {
+        for (const BaselineValue& v : b->values) {
+            Dimension d;
+            double& top = largest[kind_of(v)];
+            top = std::max(top, std::fabs(v.value * unit_size(v, d)));
+        }
     }
-    if (spaces.size() < 2)
-        return {std::string(key), "", ""};
-    std::string scope(key.substr(0, spaces[1]));
-    if (spaces.size() < 4)
-        return {std::string(key.substr(spaces[1] + 1)), "", scope};
-    return {std::string(key.substr(spaces[1] + 1, spaces[3] - spaces[1] - 1)),
-            std::string(key.substr(spaces[3] + 1)), scope};
+    return largest;
 }
 
-std::string shown_number(double v) {
-    std::array<char, kNumberBuffer> buffer;
-    double magnitude = v == 0.0 ? 0.0 : std::floor(std::log10(std::fabs(v)));
-    int decimals = std::clamp(5 - static_cast<int>(magnitude), 0, 9);
-    return std::string(format_fixed(buffer.data(), v, decimals));
+/// Sets each change's kind and significance against its kind's largest value.
+void weigh(std::vector<ValueChange>& moved, const std::map<std::string, double>& largest) {
+    for (ValueChange& c : moved) {
+        c.quantity_kind = kind_of(*c.new_value);
+        Dimension d;
+        double now = c.new_value->value * unit_size(*c.new_value, d);
+        double was = c.old_value->value * unit_size(*c.old_value, d);
+        double scale = largest.at(c.quantity_kind);
+        c.significance = scale > 0.0 ? std::fabs(now - was) / scale : 0.0;
+    }
 }
 
-/// The cells of one line: entity, quantity, scope, old, new with unit, change.
-std::array<std::string, 6> cells(const ValueChange& c) {
-    KeyParts parts = split_key(c.key);
-    std::string old_text = "-", new_text = "-";
-    if (c.new_value) {
-        new_text = c.new_value->text;
-        if (!c.new_value->unit.empty())
-            new_text += " " + c.new_value->unit;
+/// 0 for the values members and footings are sized from (moments and forces), 1 for
+/// the rest (displacements, rotations, snow values), which a group lists after them.
+int design_rank(const ValueChange& c) {
+    return c.quantity_kind == "moment" || c.quantity_kind == "force" ? 0 : 1;
+}
+
+/// Groups the moved values by what they belong to, the group with the most significant
+/// change first; in a group, moments and forces first, each part by significance; ties
+/// keep the fresh baseline's order.
+void order_by_significance(std::vector<ValueChange>& moved) {
+    struct Place {
+        std::size_t group = 0, index = 0;
+    };
+    std::unordered_map<std::string, std::size_t> group_of;  // numbered as first seen
+    std::vector<double> weight;                             // per group: its largest change
+    std::vector<Place> places;
+    for (std::size_t i = 0; i < moved.size(); ++i) {
+        auto [it, fresh] =
+            group_of.emplace(baseline_detail::split_key(moved[i].key).entity, group_of.size());
+        if (fresh)
+            weight.push_back(0.0);
+        weight[it->second] = std::max(weight[it->second], moved[i].significance);
+        places.push_back({it->second, i});
     }
-    if (c.old_value) {
-        bool same_unit = !c.new_value || c.old_value->unit == c.new_value->unit;
-        old_text = same_unit ? c.old_value->text : shown_number(c.old_in_new_unit);
-        if (!c.new_value && !c.old_value->unit.empty())
-            old_text += " " + c.old_value->unit;
-    }
-    return {parts.entity, parts.quantity, parts.scope, old_text, "-> " + new_text, percent_text(c)};
+    std::sort(places.begin(), places.end(), [&](const Place& a, const Place& b) {
+        if (a.group != b.group)
+            return weight[a.group] != weight[b.group] ? weight[a.group] > weight[b.group]
+                                                      : a.group < b.group;
+        int pa = design_rank(moved[a.index]), pb = design_rank(moved[b.index]);
+        if (pa != pb)
+            return pa < pb;
+        double sa = moved[a.index].significance, sb = moved[b.index].significance;
+        return sa != sb ? sa > sb : a.index < b.index;
+    });
+    std::vector<ValueChange> ordered;
+    ordered.reserve(moved.size());
+    for (const Place& p : places)
+        ordered.push_back(std::move(moved[p.index]));
+    moved = std::move(ordered);
 }
 
 }  // namespace
@@ -164,7 +201,7 @@ Comparison compare_baselines(const Baseline& old, const Baseline& fresh,
     for (const BaselineValue& v : fresh.values) {
         auto it = old_by_key.find(v.key);
         if (it == old_by_key.end()) {
-            added.push_back({ValueChange::Kind::added, v.key, std::nullopt, v, 0.0, 0.0});
+            added.push_back({ValueChange::Kind::added, v.key, std::nullopt, v, 0.0, 0.0, "", 0.0});
             continue;
         }
         ++out.compared;
@@ -173,43 +210,17 @@ Comparison compare_baselines(const Baseline& old, const Baseline& fresh,
     }
     for (const BaselineValue& v : old.values) {
         if (!new_by_key.contains(v.key))
-            removed.push_back({ValueChange::Kind::removed, v.key, v, std::nullopt, 0.0, 0.0});
+            removed.push_back(
+                {ValueChange::Kind::removed, v.key, v, std::nullopt, 0.0, 0.0, "", 0.0});
     }
-    std::stable_sort(moved.begin(), moved.end(), [](const ValueChange& a, const ValueChange& b) {
-        return std::fabs(a.percent) > std::fabs(b.percent);
-    });
+    weigh(moved, largest_by_kind(old, fresh));
+    order_by_significance(moved);
+    out.significant = static_cast<std::size_t>(
+        std::count_if(moved.begin(), moved.end(),
+                      [](const ValueChange& c) { return c.significance > kSignificantShare; }));
     out.changes = std::move(moved);
     out.changes.insert(out.changes.end(), added.begin(), added.end());
     out.changes.insert(out.changes.end(), removed.begin(), removed.end());
-    return out;
-}
-
-std::string describe_changes(const Comparison& comparison) {
-    std::vector<std::array<std::string, 6>> rows;
-    std::array<std::size_t, 6> widths{};
-    for (const ValueChange& c : comparison.changes) {
-        rows.push_back(cells(c));
-        for (std::size_t i = 0; i < widths.size(); ++i)
-            widths[i] = std::max(widths[i], rows.back()[i].size());
-    }
-    std::string out;
-    for (const auto& row : rows) {
-        out += "  ";
-        append_left(out, row[0], widths[0]);
-        out += "  ";
-        append_left(out, row[1], widths[1]);
-        out += "  ";
-        append_left(out, row[2], widths[2]);
-        out += "  ";
-        append_right(out, row[3], widths[3]);
-        out += " ";
-        append_left(out, row[4], widths[4]);
-        out += "  ";
-        append_right(out, row[5], widths[5]);
-        while (!out.empty() && out.back() == ' ')
-            out.pop_back();
-        out += '\n';
-    }
     return out;
 }
 

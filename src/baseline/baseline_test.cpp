@@ -96,11 +96,21 @@ TEST_CASE("lengthening one span moves both members' support moments by the three
     CHECK(find(c, "case D member roof.A.B moment_max")->new_value->value == Approx(23.805));
     CHECK(find(c, "case D member roof.B.C moment_max")->new_value->value ==
           Approx(44.3368).epsilon(1e-5));
-    // Sorted by the size of the change: B's rotation (0 before, by symmetry) leads.
+    // Ordered by significance, not percent: B's rotation (0 before, by symmetry: an
+    // infinite percentage) no longer leads; the lengthened span's moment does, its member
+    // the group of the largest change. In a group, forces and moments come first, each
+    // part by significance.
     REQUIRE_FALSE(c.changes.empty());
-    CHECK(c.changes.front().key == "case D node B.roof rotation");
-    for (std::size_t i = 1; i < c.changes.size(); ++i)
-        CHECK(std::fabs(c.changes[i - 1].percent) >= std::fabs(c.changes[i].percent));
+    CHECK(c.changes.front().key == "case D member roof.B.C moment_max");
+    auto design = [](const ValueChange& v) {
+        return v.quantity_kind == "moment" || v.quantity_kind == "force";
+    };
+    for (std::size_t i = 1; i < c.changes.size(); ++i) {
+        const ValueChange &a = c.changes[i - 1], &b = c.changes[i];
+        if (a.key.substr(0, a.key.rfind(' ')) == b.key.substr(0, b.key.rfind(' ')) &&
+            design(a) == design(b))
+            CHECK(a.significance >= b.significance);
+    }
     // Values that did not move are not listed: there is no axial force in either (statics).
     CHECK_FALSE(find(c, "case D member roof.A.B tension_max"));
 }
@@ -142,7 +152,7 @@ TEST_CASE("a baseline holds the derived snow values by name", "[baseline]") {
     const ValueChange* moved = find(c, "snow S pf");
     REQUIRE(moved);
     CHECK(moved->percent == Approx(12.5));
-    CHECK(describe_changes(c).find("  pf  ") != std::string::npos);
+    CHECK(describe_changes(c, Listing{0, 0.0}).find("  pf  ") != std::string::npos);
 }
 
 TEST_CASE("a baseline reads back as it was written", "[baseline]") {
@@ -281,6 +291,75 @@ TEST_CASE("a member held to one row twice reads back from its baseline", "[basel
     std::string error;
     CHECK(read_baseline(baseline_text(b), "two_span.baseline", error).has_value());
     CHECK(error.empty());
+}
+
+}  // namespace
+}  // namespace firn
+
+namespace firn {
+namespace {
+
+/// A portal (A, B) with a lean-to bay B-C whose beam is hinged at both ends, the
+/// lean-to bay ending at `c` (as tests/baseline/leanto/ holds it).
+std::string portal_with_leanto(const char* c) {
+    return fmt::format(
+        "model \"Portal with lean-to\"\nuse materials\nreport units kip, ft\n"
+        "grid x A = 0 ft, B = 40 ft, C = {}\ngrid y base = 0 ft, low = 12 ft, eave = 20 ft\n"
+        "section post structural_steel, A = 9.12 in2, I = 110 in4\n"
+        "section girder structural_steel, A = 11.8 in2, I = 510 in4\n"
+        "section joist structural_steel, A = 5.0 in2, I = 150 in4\n"
+        "columns on A, B from base to eave section post\n"
+        "columns on C from base to low section post\n"
+        "beams along eave from A to B section girder\n"
+        "beams along low from B to C section joist hinge at B.low, C.low\n"
+        "support fixed at A.base, B.base\nsupport pinned at C.base\n"
+        "case D dead {{\n  uniform 0.6 kip/ft down on eave.A.B\n"
+        "  uniform 0.4 kip/ft down on low.B.C\n}}\n"
+        "case W wind {{\n  point 2 kip x at A.eave\n}}\n",
+        c);
+}
+
+TEST_CASE("a widened lean-to bay lists the lean-to beam's moment first, small displacements last",
+          "[baseline]") {
+    Baseline old = baseline_of(portal_with_leanto("60 ft"));
+    Baseline now = baseline_of(portal_with_leanto("64 ft"));
+    Comparison c = compare_baselines(old, now, default_tolerances());
+    REQUIRE(c.changes.size() == 12);
+    // The lean-to beam is simply supported: M = w L^2 / 8 = 0.4 x 20^2 / 8 = 20 kip*ft,
+    // then 0.4 x 24^2 / 8 = 28.8 kip*ft, +44 % (statics).
+    const ValueChange& first = c.changes.front();
+    CHECK(first.key == "case D member low.B.C moment_max");
+    CHECK(first.percent == Approx(44.0).epsilon(1e-5));
+    CHECK(first.quantity_kind == "moment");
+    // Its significance is the 8.8 kip*ft change over the largest moment of either version.
+    double largest = 0.0;
+    for (const Baseline* b : {&old, &now}) {
+        for (const BaselineValue& v : b->values)
+            largest = v.unit == "kip*ft" ? std::max(largest, std::fabs(v.value)) : largest;
+    }
+    CHECK(largest > 28.8);  // the portal's moments are larger than the lean-to's
+    CHECK(first.significance == Approx(8.8 / largest).epsilon(1e-5));
+    // By raw percentage the lean-to's deflection (+107 %) and a 0.0004 in move of the
+    // lean-to post's top (+20 %) would come first or beside it; by significance the
+    // post-top move is below the noise floor.
+    const ValueChange* post_top = nullptr;
+    for (const ValueChange& v : c.changes) {
+        if (v.key == "case D node C.low dy")
+            post_top = &v;
+    }
+    REQUIRE(post_top);
+    // Post C shortens by R L / (E A), R from 4 to 4.8 kip: +20 % (statics), to the six
+    // significant digits a baseline keeps.
+    CHECK(post_top->percent == Approx(20.0).epsilon(1e-3));
+    CHECK(post_top->significance < 0.001);
+    CHECK(c.significant == 7);
+    std::string listed = describe_changes(c, Listing{3, 0.001});
+    CHECK(listed.find("member low.B.C  moment_max") < listed.find("deflection_max"));
+    CHECK(listed.find("... 4 more moved, less significant (--top 0 lists all)") !=
+          std::string::npos);
+    CHECK(listed.find("... 5 more moved by less than 0.1 % of their kind's largest") !=
+          std::string::npos);
+    CHECK(describe_changes(c, Listing{0, 0.0}).find("node C.low") != std::string::npos);
 }
 
 }  // namespace

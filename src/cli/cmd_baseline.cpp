@@ -22,6 +22,8 @@ namespace {
 struct ToleranceArgs {
     double relative = 1e-4;
     std::vector<std::string> absolute;  ///< pairs: value, unit
+    std::size_t top = Listing{}.top;
+    double noise_percent = Listing{}.noise * 100.0;
 };
 
 struct BaselineArgs {
@@ -56,6 +58,10 @@ std::optional<Tolerances> tolerances_from(const ToleranceArgs& args) {
         std::fputs("firn: error: --rel must be zero or more\n", stderr);
         return std::nullopt;
     }
+    if (!(args.noise_percent >= 0.0 && args.noise_percent <= 100.0)) {
+        std::fputs("firn: error: --noise is a percentage from 0 to 100\n", stderr);
+        return std::nullopt;
+    }
     t.relative = args.relative;
     for (std::size_t i = 0; i + 1 < args.absolute.size(); i += 2) {
         std::string error;
@@ -80,7 +86,10 @@ std::string heading(const std::string& label, const Comparison& c) {
         if (counts[k] > 0)
             parts.push_back(fmt::format("{} {}", counts[k], kWords[k]));
     }
-    return fmt::format("{}: {} ({} values compared)\n", label, fmt::join(parts, ", "), c.compared);
+    return fmt::format(
+        "{}: {} ({} values compared); {} by more than {:g} % of their "
+        "kind's largest\n",
+        label, fmt::join(parts, ", "), c.compared, c.significant, kSignificantShare * 100.0);
 }
 
 /// The analysis of a model, or an outcome holding its errors.
@@ -128,8 +137,12 @@ std::optional<Baseline> stored_baseline(const std::string& model, const Baseline
     return stored;
 }
 
+Listing listing_from(const ToleranceArgs& args) {
+    return Listing{args.top, args.noise_percent / 100.0};
+}
+
 Outcome check_model(const std::string& model, const ImportOptions& imports,
-                    const Tolerances& tolerances) {
+                    const Tolerances& tolerances, const Listing& listing) {
     Outcome o;
     std::optional<Analysis> a = analysed(model, imports, o);
     if (!a)
@@ -140,7 +153,7 @@ Outcome check_model(const std::string& model, const ImportOptions& imports,
     if (!stored)
         return fail(fmt::format("{}: not compared (no usable baseline)\n", model), error);
     Comparison c = compare_baselines(*stored, fresh, tolerances);
-    o.out = heading(model, c) + describe_changes(c);
+    o.out = heading(model, c) + describe_changes(c, listing);
     o.status = c.moved() ? exit_check_failed : exit_ok;
     return o;
 }
@@ -217,7 +230,7 @@ int check(const BaselineArgs& args) {
         return exit_model_error;
     ImportOptions imports = import_options(args.batch);
     return run_batch(args.batch, true, [&](const std::string& model) {
-        return check_model(model, imports, *tolerances);
+        return check_model(model, imports, *tolerances, listing_from(args.tolerance));
     });
 }
 
@@ -270,7 +283,7 @@ int diff(const DiffArgs& args) {
     } else {
         Comparison c = compare_baselines(make_baseline(*old_version), make_baseline(*new_version),
                                          *tolerances);
-        o.out = heading(label, c) + describe_changes(c);
+        o.out = heading(label, c) + describe_changes(c, listing_from(args.tolerance));
         o.status = c.moved() ? exit_check_failed : exit_ok;
     }
     print({o});
@@ -289,6 +302,13 @@ void add_tolerance_options(CLI::App* cmd, ToleranceArgs& args) {
         ->expected(2)
         ->multi_option_policy(CLI::MultiOptionPolicy::TakeAll)
         ->type_name("VALUE UNIT");
+    cmd->add_option("--top", args.top,
+                    "List at most this many moved values, the most significant first (0: all)")
+        ->capture_default_str();
+    cmd->add_option("--noise", args.noise_percent,
+                    "Leave out of the list the values that moved by less than this percentage "
+                    "of the largest value of their kind (they still count as moved)")
+        ->capture_default_str();
 }
 
 void add_check(CLI::App* parent, int& status) {
