@@ -19,7 +19,7 @@ struct errors {
 #define FIRN_ERROR(rule, text) \
     template <> inline constexpr const char* errors::message<rule> = text;
 
-FIRN_ERROR(unknown_statement, "expected a statement (model, use, let, report, grid, node, material, section, member, columns, beams, rafters, group, support, case, snow, roof, projection, amend, combinations, combine, pattern, arrange, deflection, expect, geometry or unjoined)")
+FIRN_ERROR(unknown_statement, "expected a statement (model, use, let, report, grid, node, material, section, member, columns, beams, rafters, group, support, case, snow, roof, projection, amend, combinations, combine, pattern, arrange, deflection, expect, geometry, unjoined or cover)")
 FIRN_ERROR(end_of_statement, "expected the end of the statement (a new line or ';')")
 FIRN_ERROR(title, "expected the model title in double quotes, as in: model \"Frame on line 3\"")
 FIRN_ERROR(one<'"'>, "expected '\"' to close the text on this line")
@@ -153,6 +153,7 @@ FIRN_ERROR(geometry_tolerance_value, "expected the tolerance, a length such as 2
 FIRN_ERROR(unjoined_node, "expected the name of the node that passes the members, as in: unjoined N5 on C1")
 FIRN_ERROR(unjoined_on, "expected 'on' and the members the node passes without a connection, as in: unjoined N5 on C1")
 FIRN_ERROR(unjoined_member, "expected a member, a group or a pattern such as brace.*")
+FIRN_ERROR(cover_text, "expected the text in double quotes, as in: project = \"Seed store\"")
 
 #undef FIRN_ERROR
 // clang-format on

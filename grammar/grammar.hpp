@@ -96,6 +96,7 @@ struct kw_within : TAO_PEGTL_KEYWORD("within") {};
 struct kw_geometry : TAO_PEGTL_KEYWORD("geometry") {};
 struct kw_tolerance : TAO_PEGTL_KEYWORD("tolerance") {};
 struct kw_unjoined : TAO_PEGTL_KEYWORD("unjoined") {};
+struct kw_cover : TAO_PEGTL_KEYWORD("cover") {};
 struct kw_rotation : TAO_PEGTL_KEYWORD("rotation") {};
 struct kw_section : TAO_PEGTL_KEYWORD("section") {};
 struct kw_self : TAO_PEGTL_KEYWORD("self") {};
@@ -716,13 +717,24 @@ struct amend_name : name {};
 struct amend_begin : kw_amend {};
 struct amend_stmt : if_must<amend_begin, sp, amend_name, sp, equals, sp, expr, sp, because> {};
 
+// cover_stmt  <- 'cover' sp '{' sp_nl (name sp '=' sp quoted sp_nl)* '}'
+//                the calculation package's cover: the project, the structure, who
+//                prepared and checked it, the revision and its date, as texts
+struct cover_key : name {};
+struct cover_text : if_must<one<'"'>, star<text_char>, one<'"'>> {};
+struct cover_field : if_must<cover_key, sp, equals, sp, cover_text> {};
+struct cover_line : seq<cover_field, sp, must<end_of_statement>> {};
+struct cover_item : seq<not_at<sor<block_close, eof>>, recover<cover_line, skip_in_block>, sp_nl> {};
+struct cover_begin : kw_cover {};
+struct cover_stmt : if_must<cover_begin, sp, block_open, sp_nl, star<cover_item>, block_close> {};
+
 struct unknown_statement : failure {};
 struct statement : sor<model_stmt, use_stmt, let_stmt, report_stmt, grid_stmt, node_stmt,
                        material_stmt, section_stmt, member_stmt, columns_stmt, beams_stmt,
                        rafters_stmt, group_stmt, support_stmt, case_stmt, snow_stmt, roof_stmt,
                        projection_stmt, amend_stmt, combinations_stmt, combine_stmt,
                        pattern_stmt, arrange_stmt, deflection_stmt, expect_stmt,
-                       geometry_stmt, unjoined_stmt, raise<unknown_statement>> {};
+                       geometry_stmt, unjoined_stmt, cover_stmt, raise<unknown_statement>> {};
 // statement_start <- the keyword any statement of `statement` begins with
 //                taken from the rule itself, so that error recovery's question "does this
 //                line open a new statement?" cannot drift from the statements there are

@@ -1,5 +1,6 @@
 // firn: compile a frame model, analyse it, print deterministic results.
 // A thin driver: each subcommand lives in its own cmd_*.cpp.
+#include <fmt/format.h>
 #include <CLI/CLI.hpp>
 #include <cerrno>
 #include <cstdio>
@@ -9,6 +10,7 @@
 #include <vector>
 
 #include "base/diag.hpp"
+#include "base/version.hpp"
 #include "cli/commands.hpp"
 
 namespace {
@@ -36,7 +38,7 @@ bool is_unknown_command(CLI::App& app, int argc, char** argv) {
 int run_command(int argc, char** argv) {
     int status = firn::exit_ok;
     CLI::App app{"firn: snow-loaded plane frames from text models, solved and reported", "firn"};
-    app.set_version_flag("--version", "firn 0.1.0");
+    app.set_version_flag("--version", fmt::format("firn {}", firn::kFirnVersion));
     app.require_subcommand(1);
     firn::add_run_command(app, status);
     firn::add_fmt_command(app, status);

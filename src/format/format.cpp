@@ -175,6 +175,15 @@ class FilePrinter {
                 return std::nullopt;
             return settings_block(combine->sets.back(), combine->settings);
         }
+        if (const auto* cover = std::get_if<syntax::CoverDecl>(&s.node)) {
+            BlockLines block{&cover->keyword, {}, [this, cover](std::size_t i) {
+                                 return cover_field_atoms(cover->fields[i], source_, signature_);
+                             }};
+            for (const syntax::CoverDecl::Field& field : cover->fields)
+                block.where.push_back(
+                    {field.key.where.file, field.key.where.begin, field.text_where.end});
+            return block;
+        }
         if (const auto* set = std::get_if<syntax::CombinationsDecl>(&s.node))
             return source_lines_block(set->name, set->line_where);
         if (const auto* rule = std::get_if<syntax::PatternDecl>(&s.node)) {

@@ -62,6 +62,10 @@ std::vector<Atom> block_header_atoms(const syntax::Statement& statement, std::ui
 std::vector<Atom> load_atoms(const syntax::LoadDecl& load, const SourceRange& where,
                              std::string_view source, std::string& signature);
 /// The atoms of one setting of a snow or roof block, `key = value because "reason"`.
+/// The atoms of one field of a `cover` block.
+std::vector<Atom> cover_field_atoms(const syntax::CoverDecl::Field& field, std::string_view source,
+                                    std::string& signature);
+
 std::vector<Atom> setting_atoms(const syntax::Setting& setting, std::string_view source,
                                 std::string& signature);
 

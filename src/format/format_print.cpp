@@ -292,6 +292,13 @@ std::vector<Atom> source_line_atoms(const SourceRange& where, std::string_view s
     return p.take();
 }
 
+std::vector<Atom> cover_field_atoms(const syntax::CoverDecl::Field& field, std::string_view source,
+                                    std::string& signature) {
+    Printer p(source, signature, field.key.where.begin.offset);
+    p.print_cover_field(field);
+    return p.take();
+}
+
 std::vector<Atom> block_header_atoms(const syntax::Statement& statement, std::uint32_t brace,
                                      std::string_view source, std::string& signature) {
     Printer p(source, signature, statement.where.begin.offset);

@@ -26,6 +26,7 @@ class Printer {
     void print_block_header(const syntax::Statement& s, std::uint32_t brace);
     void print_load(const syntax::LoadDecl& load, const SourceRange& where);
     void print_setting(const syntax::Setting& setting);
+    void print_cover_field(const syntax::CoverDecl::Field& field);
     /// A block line of tokens as written (a combination or an arrangement rule).
     void print_source_line(const SourceRange& where) {
         signature_ += "\n line:";
@@ -133,6 +134,7 @@ class Printer {
     void print(const syntax::ExpectDecl& e);
     void print(const syntax::GeometryTolerance& g);
     void print(const syntax::UnjoinedDecl& u);
+    void print(const syntax::CoverDecl&);
     void expect_bound(const syntax::ExpectDecl& e);
     void because(const SourceRange& reason);
     void properties(const std::vector<syntax::Property>& props, bool started);

@@ -348,6 +348,19 @@ void Printer::print(const syntax::UnjoinedDecl& u) {
     names(u.members);
 }
 
+void Printer::print(const syntax::CoverDecl&) {
+    word("cover");
+}
+
+/// `key = "text"`: the text exactly as written, escapes and all.
+void Printer::print_cover_field(const syntax::CoverDecl::Field& field) {
+    signature_ += "\n cover field:";
+    name(field.key);
+    word("=");
+    const SourceRange& t = field.text_where;
+    token(std::string(text_of(t.begin.offset, t.end.offset)), t.begin.offset, t.end.offset);
+}
+
 void Printer::print_load(const syntax::LoadDecl& load, const SourceRange& where) {
     using F = syntax::LoadDecl::Form;
     where_ = where;

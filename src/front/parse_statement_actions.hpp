@@ -31,18 +31,23 @@ struct action<g::statement> {
 
 // ---------------------------------------------------------------- model, let, use, report
 
+/// Refuses quoted text that is not UTF-8 (a title, a cover text): reports must print it.
+template <typename Input>
+void reject_invalid_utf8(const Input& in, Builder& b, const char* message) {
+    std::size_t bad = invalid_utf8_at(in.string_view());
+    if (bad != std::string_view::npos) {
+        // recover_from reads only the byte offset of the position.
+        std::size_t offset = static_cast<std::size_t>(in.begin() - b.base) + bad;
+        throw pegtl::parse_error(message, pegtl::position(offset, 0, 0, ""));
+    }
+}
+
 FIRN_ACTION(g::model_begin, begin_statement<syntax::ModelTitle>);
 template <>
 struct action<g::title> {
     template <typename Input>
     static void apply(const Input& in, Builder& b) {
-        std::size_t bad = invalid_utf8_at(in.string_view());
-        if (bad != std::string_view::npos) {
-            // recover_from reads only the byte offset of the position.
-            std::size_t offset = static_cast<std::size_t>(in.begin() - b.base) + bad;
-            throw pegtl::parse_error("a title must be UTF-8 text",
-                                     pegtl::position(offset, 0, 0, ""));
-        }
+        reject_invalid_utf8(in, b, "a title must be UTF-8 text");
         b.current<syntax::ModelTitle>().title = unquote(in.string_view());
     }
 };
@@ -504,6 +509,31 @@ FIRN_ACTION(g::deflection_member, append_name<&syntax::DeflectionDecl::members>)
 FIRN_ACTION(g::geometry_begin, begin_statement<syntax::GeometryTolerance>);
 FIRN_ACTION(g::geometry_tolerance_value, store_expr<&syntax::GeometryTolerance::value>);
 FIRN_ACTION(g::unjoined_begin, begin_statement<syntax::UnjoinedDecl>);
+template <>
+struct action<g::cover_begin> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.begin<syntax::CoverDecl>(in);
+        b.current<syntax::CoverDecl>().keyword = {in.string(), b.range(in)};
+    }
+};
+template <>
+struct action<g::cover_key> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        b.current<syntax::CoverDecl>().fields.push_back({{in.string(), b.range(in)}, "", {}});
+    }
+};
+template <>
+struct action<g::cover_text> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        reject_invalid_utf8(in, b, "a cover text must be UTF-8 text");
+        syntax::CoverDecl::Field& field = b.current<syntax::CoverDecl>().fields.back();
+        field.text = unquote(in.string_view());
+        field.text_where = b.range(in);
+    }
+};
 FIRN_ACTION(g::unjoined_node, append_name<&syntax::UnjoinedDecl::nodes>);
 FIRN_ACTION(g::unjoined_member, append_name<&syntax::UnjoinedDecl::members>);
 

@@ -83,8 +83,8 @@ TEST_CASE("syntax errors: exact message, line and column") {
     CHECK(first_message("nod N1 at x = 0 ft, y = 0 ft\n") ==
           "input:1:1: error: expected a statement (model, use, let, report, grid, node, material, "
           "section, member, columns, beams, rafters, group, support, case, snow, roof, projection, "
-          "amend, combinations, combine, pattern, arrange, deflection, expect, geometry or "
-          "unjoined), "
+          "amend, combinations, combine, pattern, arrange, deflection, expect, geometry, "
+          "unjoined or cover), "
           "found 'nod'; did you mean 'node'?");
     CHECK(first_message("node N2 at x = 0 ft y = 3 ft\n") ==
           "input:1:21: error: expected the end of the statement (a new line or ';'), found 'y' (a "

@@ -396,9 +396,17 @@ struct Unjoined {
     SourceRange where;  ///< the node's name in the statement
 };
 
+/// One line of the calculation package's cover (`cover { prepared_by = "..." }`).
+struct CoverField {
+    std::string key;    ///< as written: prepared_by
+    std::string label;  ///< as printed: Prepared by
+    std::string text;
+};
+
 struct Model {
     std::string title;
-    std::string source_name;  ///< the model file as named on the command line
+    std::vector<CoverField> cover;  ///< those given, in the order the report prints them
+    std::string source_name;        ///< the model file as named on the command line
     DisplayUnits units;
     std::vector<GridLine> grid_x;      ///< column lines
     std::vector<GridLine> grid_y;      ///< levels

@@ -369,13 +369,24 @@ struct UnjoinedDecl {
     std::vector<Name> members;  ///< names, group names and patterns with '*'
 };
 
+/// `cover { project = "..." ... }`: the texts of the calculation package's cover.
+struct CoverDecl {
+    Name keyword;  ///< `cover` itself: the formatter lays the block out after it
+    struct Field {
+        Name key;
+        std::string text;
+        SourceRange text_where;
+    };
+    std::vector<Field> fields;
+};
+
 /// One statement of a model file and the source range it covers.
 struct Statement {
     std::variant<ModelTitle, ReportUnits, Grid, LetDecl, UseDecl, NodeDecl, MaterialDecl,
                  SectionDecl, MemberDecl, ColumnsDecl, BeamsDecl, RaftersDecl, GroupDecl,
                  SupportDecl, CaseDecl, SnowDecl, RoofDecl, AmendDecl, CombinationsDecl,
                  CombineDecl, PatternDecl, ArrangeDecl, DeflectionDecl, ExpectDecl,
-                 GeometryTolerance, UnjoinedDecl>
+                 GeometryTolerance, UnjoinedDecl, CoverDecl>
         node;
     SourceRange where;
 };

@@ -9,6 +9,7 @@
 #include <cmath>
 
 #include "base/number_format.hpp"
+#include "base/version.hpp"
 #include "report/report_envelopes.hpp"
 #include "report/report_table.hpp"
 
@@ -24,10 +25,24 @@ using namespace report_detail;
 
 // ---------------------------------------------------------------- header
 
+/// The cover's fields, one a line under the title, labels aligned: what a checker signs.
+void write_cover(std::string& out, const Model& model) {
+    std::size_t width = 0;
+    for (const CoverField& f : model.cover)
+        width = std::max(width, f.label.size());
+    for (const CoverField& f : model.cover)
+        out += fmt::format("  {:<{}}  {}\n", f.label + ":", width + 1, f.text);
+}
+
 void write_header(std::string& out, const Model& model) {
-    out += "firn report: plane frame, linear static analysis\n";
+    out += fmt::format("firn {} report: plane frame, linear static analysis\n", kFirnVersion);
     out += fmt::format("Model:  {}\n", model.title.empty() ? "(untitled)" : model.title);
-    out += fmt::format("Source: {}\n\n", shown_source(model.source_name));
+    write_cover(out, model);
+    out += fmt::format("Source: {}\n", shown_source(model.source_name));
+    if (model.snow)
+        out += fmt::format("Snow:   {} (snow data {})\n", model.snow->tables.edition,
+                           model.snow->name);
+    out += "\n";
     out += "Caution: ";
     out += kCaution;
     out += "\n\n";

@@ -5,6 +5,7 @@
 #include <nlohmann/json.hpp>
 
 #include "base/number_format.hpp"
+#include "base/version.hpp"
 #include "report/report.hpp"
 
 namespace firn {
@@ -345,8 +346,13 @@ void write_json_report(const Model& model, const Results& results, const ReportO
     // The root object is written by hand around the cases, so that each case
     // is built, written and freed in turn: a DOM of a large run would not fit
     // in memory. The layout is the one Json::dump(1) would give.
+    Json cover = Json::object();
+    for (const CoverField& f : model.cover)
+        cover[f.key] = f.text;
     Json head{{"format", kJsonFormat},
+              {"firn", kFirnVersion},
               {"title", model.title},
+              {"cover", cover},
               {"source", shown_source(model.source_name)},
               {"caution", kCaution},
               {"units", units_json(model.units)},

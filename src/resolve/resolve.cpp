@@ -233,6 +233,7 @@ struct Collected {
     std::vector<const syntax::CaseDecl*> cases;
     std::vector<const syntax::Statement*> tolerances;
     std::vector<const syntax::UnjoinedDecl*> unjoined;
+    std::vector<const syntax::CoverDecl*> covers;
     SourceRange file_start;
 };
 
@@ -294,6 +295,8 @@ Collected collect(std::span<const syntax::Tree> trees) {
                         c.tolerances.push_back(&s);
                     if constexpr (std::is_same_v<T, syntax::UnjoinedDecl>)
                         c.unjoined.push_back(&node);
+                    if constexpr (std::is_same_v<T, syntax::CoverDecl>)
+                        c.covers.push_back(&node);
                 },
                 s.node);
         }
@@ -314,6 +317,7 @@ void resolve_title(Resolver& r, const Collected& c) {
     only_once(r, c.titles, "the model title");
     if (!c.titles.empty())
         r.model.title = std::get<syntax::ModelTitle>(c.titles[0]->node).title;
+    resolve_cover(r, c.covers);
 }
 
 void resolve_report_units(Resolver& r, const Collected& c) {

@@ -250,6 +250,10 @@ std::string example_standard(const Resolver& r);
 void check_geometry(Resolver& r, const syntax::GeometryTolerance* tolerance,
                     const std::vector<const syntax::UnjoinedDecl*>& unjoined);
 
+/// The `cover` statements, of any file the model uses, as one cover: each field once
+/// (resolve_cover.cpp).
+void resolve_cover(Resolver& r, const std::vector<const syntax::CoverDecl*>& covers);
+
 /// "12 ft" style text of a length in the model's display units, for messages.
 std::string show_length(const Model& model, double metres);
 

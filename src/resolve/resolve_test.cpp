@@ -195,3 +195,22 @@ TEST_CASE("a text value is a name for the library; it is no number") {
                         "let site.edition = \"Local rules\"\nlet bay = 2 * site.edition\n") ==
           "input:10:15: error: 'site.edition' is a text, not a number");
 }
+
+TEST_CASE("a cover's fields come from any file once each, in the report's order") {
+    Model m =
+        resolved(with("cover {\n  revision = \"C\"\n  project = \"Barn\"\n}\n"
+                      "cover {\n  dated = \"2026-01-05\"\n}\n"));
+    REQUIRE(m.cover.size() == 3);
+    CHECK(m.cover[0].label == "Project");
+    CHECK(m.cover[0].text == "Barn");
+    CHECK(m.cover[1].key == "revision");
+    CHECK(m.cover[2].label == "Dated");
+    CHECK(first_message(with("cover {\n  drawn = \"x\"\n}\n")) ==
+          "input:10:3: error: a cover has no field 'drawn'; it gives project, structure, "
+          "prepared_by, checked_by, revision or dated");
+    CHECK(first_message(with("cover {\n  revision = \"A\"\n}\ncover {\n  revision = \"B\"\n}\n")) ==
+          "input:13:3: error: the cover's revision is already given");
+    CHECK(first_message(with("cover {\n  revision = C\n}\n")) ==
+          "input:10:14: error: expected the text in double quotes, as in: project = \"Seed "
+          "store\", found 'C'");
+}
