@@ -1,4 +1,5 @@
 // Every example in grammar/REFERENCE.md and every model in examples/ parses.
+#include <algorithm>
 #include <catch2/catch.hpp>
 #include <cctype>
 #include <filesystem>
@@ -99,4 +100,53 @@ TEST_CASE("every model in examples/ parses") {
         CHECK(parse_errors(entry.path().filename().string(), read(entry.path())).empty());
     }
     CHECK(count >= 2);
+}
+
+namespace {
+
+/// The words in backticks in `text` between `begin` and the first `end` after it
+/// (`a b c` or `a`, `b`).
+std::vector<std::string> words_between(const std::string& text, const std::string& begin,
+                                       const std::string& end) {
+    std::size_t from = text.find(begin);
+    REQUIRE(from != std::string::npos);
+    from += begin.size();
+    std::string span = text.substr(from, text.find(end, from) - from);
+    std::vector<std::string> words;
+    std::string word;
+    bool quoted = false;
+    for (char c : span) {
+        quoted = c == '`' ? !quoted : quoted;
+        if (quoted && (std::isalpha(static_cast<unsigned char>(c)) != 0 || c == '_')) {
+            word += c;
+        } else if (!word.empty()) {
+            words.push_back(word);
+            word.clear();
+        }
+    }
+    if (!word.empty())
+        words.push_back(word);
+    std::sort(words.begin(), words.end());
+    return words;
+}
+
+template <typename List>
+std::vector<std::string> sorted_words(const List& list) {
+    std::vector<std::string> words(list.begin(), list.end());
+    std::sort(words.begin(), words.end());
+    return words;
+}
+
+}  // namespace
+
+TEST_CASE("the reference lists exactly the grammar's reserved and contextual words") {
+    std::string reference =
+        read(std::filesystem::path(FIRN_SOURCE_DIR) / "grammar" / "REFERENCE.md");
+    CHECK(words_between(reference, "(the list is `grammar/keywords.hpp`):\n", "`.\n") ==
+          sorted_words(grammar::keywords));
+    std::vector<std::string> contextual = words_between(
+        reference, "names elsewhere (`grammar/keywords.hpp`, `contextual_keywords`):", ".\n");
+    contextual.push_back("roof");  // the sentence before explains it
+    std::sort(contextual.begin(), contextual.end());
+    CHECK(contextual == sorted_words(grammar::contextual_keywords));
 }
