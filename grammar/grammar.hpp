@@ -181,7 +181,11 @@ struct unit_hyphen : seq<one<'-'>, unit_atom> {};  // kip-ft, as engineers write
 struct unit_per : seq<sp, one<'/'>, sp, unit_atom> {};
 struct unit : seq<unit_lead, star<sor<unit_times, unit_hyphen, unit_per>>> {};
 // bad_unit  <- a word after a number that is neither a unit nor a keyword
-struct bad_unit : seq<not_at<reserved>, ranges<'a', 'z', 'A', 'Z', '_'>, star<word_char>> {};
+// A word that may follow a value in a statement (`between 1 in and 2 in`, `<= 4 ft within
+// 1 in`, `expect ... under S`) ends the value; it is no misspelt unit.
+struct after_value_word : sor<kw_and, kw_within, kw_under> {};
+struct bad_unit : seq<not_at<reserved>, not_at<after_value_word>, ranges<'a', 'z', 'A', 'Z', '_'>,
+                      star<word_char>> {};
 
 // ---------------------------------------------------------------- expressions
 
@@ -193,6 +197,9 @@ struct factor;
 struct paren_open : one<'('> {};
 struct paren_close : one<')'> {};
 struct group : if_must<paren_open, sp_nl, expr, sp_nl, paren_close> {};
+// group_unit <- sp unit                                 (1/2) in: the group times the unit
+struct group_unit : seq<sp, unit> {};
+struct group_with_unit : seq<group, opt<group_unit>> {};
 // call      <- name '(' sp_nl expr (list_sep expr)* sp_nl ')'       min, max, abs, sqrt
 struct call_head : seq<name, one<'('>> {};
 struct call_argument : seq<expr> {};
@@ -200,8 +207,8 @@ struct call : if_must<call_head, sp_nl, call_argument, star<if_must<list_sep, ca
                       sp_nl, paren_close> {};
 // constant  <- name                                     a value named by 'let'
 struct constant : name {};
-// primary   <- quantity / group / call / constant
-struct primary : sor<quantity, group, call, constant> {};
+// primary   <- quantity / group group_unit? / call / constant
+struct primary : sor<quantity, group_with_unit, call, constant> {};
 // power     <- primary (sp '^' sp_nl factor)?          right to left: 2^3^2 = 2^9
 struct caret : one<'^'> {};
 struct power_tail : if_must<seq<sp, caret>, sp_nl, factor> {};

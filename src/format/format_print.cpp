@@ -233,13 +233,19 @@ void Printer::expr(const Expr& e) {
             glue_next_ = true;
             expr(*e.rhs);
             break;
-        case Expr::Kind::group:
+        case Expr::Kind::group: {
+            // `(1/2) in`: the unit follows the ')', which is then not the last character.
+            auto close =
+                static_cast<std::uint32_t>(e.unit.empty() ? end - 1 : source_.rfind(')', end));
             token("(", begin, begin + 1);
             glue_next_ = true;
             expr(*e.rhs);
             glue_next_ = true;
-            token(")", end - 1, end);
+            token(")", close, close + 1);
+            if (!e.unit.empty())
+                token(unit_text(e.unit), close + 1, end);
             break;
+        }
         case Expr::Kind::power:
             power(e);
             break;

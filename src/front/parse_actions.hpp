@@ -299,6 +299,17 @@ struct fold_unary {
 FIRN_ACTION(g::group, fold_unary<Expr::Kind::group>);
 FIRN_ACTION(g::negation, fold_unary<Expr::Kind::negate>);
 
+template <>
+struct action<g::group_unit> {
+    template <typename Input>
+    static void apply(const Input& in, Builder& b) {
+        Expr& group = b.exprs.back();
+        group.unit = std::move(b.unit);
+        b.unit.clear();
+        group.where.end = b.range(in).end;
+    }
+};
+
 /// Folds the two topmost expressions into one binary expression.
 template <typename Input>
 void fold_binary(const Input& in, Builder& b) {

@@ -383,6 +383,7 @@ struct Expectation {
     bool tolerance_relative = false;
     bool tolerance_written = false;  ///< false: 0, or for `=` half the last digit written
     std::string subject;             ///< as the canonical text writes it: "moment of eave.BC"
+    std::string bound_written;       ///< the bound and tolerance as written: "<= 4 m / 150"
     std::string reason;
     SourceRange where;  ///< the statement
 };

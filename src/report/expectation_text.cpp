@@ -14,6 +14,9 @@ using R = Expectation::Relation;
 }  // namespace
 
 std::string show_bound(const Model& model, const Expectation& x) {
+    // As written: a bound rounded to the report's decimals could read "within 0.0 psf".
+    if (!x.bound_written.empty())
+        return x.bound_written;
     auto show = [&](double v) { return show_expected_value(model, x, v); };
     static constexpr const char* kRelations[] = {"<=", ">=", "="};
     std::string text = x.relation == R::between

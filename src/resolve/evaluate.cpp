@@ -2,6 +2,8 @@
 #include "resolve/evaluate.hpp"
 
 #include <fmt/format.h>
+#include <fmt/ranges.h>
+#include <array>
 #include <cmath>
 #include <cstdlib>
 
@@ -181,6 +183,18 @@ std::optional<Quantity> evaluate_power(const syntax::Expr& e, Quantity base, Qua
     return Quantity{std::pow(base.value, exponent.value), *d};
 }
 
+/// `(a)`, or `(a) unit`: the group times its unit, as `(1/2) in` is half an inch.
+std::optional<Quantity> evaluate_group(const syntax::Expr& e, Diagnostics& diagnostics,
+                                       Scope* scope) {
+    std::optional<Quantity> inside = evaluate(*e.rhs, diagnostics, scope);
+    if (!inside || e.unit.empty())
+        return inside;
+    std::optional<Quantity> unit = unit_value(e.unit, diagnostics);
+    if (!unit)
+        return std::nullopt;
+    return multiply(e, *inside, *unit, diagnostics);
+}
+
 std::optional<Quantity> evaluate_call(const syntax::Expr& e, Diagnostics& diagnostics,
                                       Scope* scope) {
     const std::string& f = e.literal;
@@ -265,7 +279,7 @@ std::optional<Quantity> evaluate_leaf(const syntax::Expr& e, Diagnostics& diagno
         case K::call:
             return evaluate_call(e, diagnostics, scope);
         case K::group:
-            return evaluate(*e.rhs, diagnostics, scope);
+            return evaluate_group(e, diagnostics, scope);
         default: {
             auto v = evaluate(*e.rhs, diagnostics, scope);  // negate
             if (v)
@@ -338,6 +352,51 @@ std::optional<double> evaluate_as(const syntax::Expr& e, const Expected& expecte
         return std::nullopt;
     }
     return q->value;
+}
+
+std::string expression_text(const syntax::Expr& e) {
+    using K = syntax::Expr::Kind;
+    // fmt::format, not string +: g++ 12 warns falsely (-Wrestrict) on chains of +.
+    std::string unit = e.unit.empty() ? std::string() : fmt::format(" {}", unit_spelling(e.unit));
+    switch (e.kind) {
+        case K::number:
+            return fmt::format("{}{}", e.literal, unit);
+        case K::constant:
+            return e.literal;
+        case K::call: {
+            std::vector<std::string> args;
+            for (const syntax::Expr& a : e.args)
+                args.push_back(expression_text(a));
+            return fmt::format("{}({})", e.literal, fmt::join(args, ", "));
+        }
+        case K::negate:
+            return fmt::format("-{}", expression_text(*e.rhs));
+        case K::group:
+            return fmt::format("({}){}", expression_text(*e.rhs), unit);
+        case K::power:
+            return fmt::format("{}^{}", expression_text(*e.lhs), expression_text(*e.rhs));
+        default:
+            break;
+    }
+    static constexpr std::array<std::pair<K, const char*>, 4> kOperators{
+        {{K::add, " + "}, {K::subtract, " - "}, {K::multiply, " * "}, {K::divide, " / "}}};
+    // + - * / nest to the left without limit: walked with a loop, never recursion.
+    std::vector<const syntax::Expr*> chain;
+    const syntax::Expr* first = &e;
+    while (first->kind == K::add || first->kind == K::subtract || first->kind == K::multiply ||
+           first->kind == K::divide) {
+        chain.push_back(first);
+        first = first->lhs.get();
+    }
+    std::string text = expression_text(*first);
+    for (auto it = chain.rbegin(); it != chain.rend(); ++it) {
+        for (const auto& [kind, op] : kOperators) {
+            if ((*it)->kind == kind)
+                text.append(op);
+        }
+        text.append(expression_text(*(*it)->rhs));
+    }
+    return text;
 }
 
 }  // namespace firn

@@ -58,6 +58,10 @@ std::optional<Quantity> unit_value(const std::vector<syntax::UnitFactor>& unit,
 /// The unit as the user should write it: `kip*ft/in^2`.
 std::string unit_spelling(const std::vector<syntax::UnitFactor>& unit);
 
+/// An expression as the model writes it, spaced canonically: `4 m / 150`, `(1/2) in`
+/// prints `(1 / 2) in`. Groups are nodes of the tree, so no parenthesis is added.
+std::string expression_text(const syntax::Expr& e);
+
 /// Evaluates `expr`; nullopt after reporting an error (an unknown unit or
 /// constant, a dimension mismatch, a number that is not finite). Without a
 /// scope, no constant is known.

@@ -173,7 +173,19 @@ bool read_tolerance(Resolver& r, const syntax::ExpectDecl& d, Expectation& x) {
     return true;
 }
 
+/// The bound and tolerance as the model writes them, for messages: `<= 4 m / 150 within 1 mm`.
+std::string written_bound(const syntax::ExpectDecl& d) {
+    std::string text = d.high ? fmt::format("between {} and {}", expression_text(d.value),
+                                            expression_text(*d.high))
+                              : fmt::format("{} {}", d.relation, expression_text(d.value));
+    if (d.tolerance)
+        text += fmt::format(" within {}{}", expression_text(*d.tolerance),
+                            d.tolerance_percent ? " %" : "");
+    return text;
+}
+
 bool read_bounds(Resolver& r, const syntax::ExpectDecl& d, Expectation& x) {
+    x.bound_written = written_bound(d);
     using R = Expectation::Relation;
     x.relation = d.relation == "<="   ? R::at_most
                  : d.relation == ">=" ? R::at_least

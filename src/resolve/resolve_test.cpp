@@ -214,3 +214,25 @@ TEST_CASE("a cover's fields come from any file once each, in the report's order"
           "input:10:14: error: expected the text in double quotes, as in: project = \"Seed "
           "store\", found 'C'");
 }
+
+TEST_CASE("bounds take any expression, (1/2) in is half an inch, and bounds show as written") {
+    // The base model's member B1 is 10 ft long. 1 in = 0.0254 m exactly (NIST SP 811).
+    Model m =
+        resolved(with("case D dead {\n  uniform 1 kip/ft down on B1\n}\n"
+                      "expect deflection of B1 between -4 m / 150 and 4 m / 150\n"
+                      "expect deflection of B1 <= 4 m / 150 within 0.1 mm\n"
+                      "expect deflection of B1 <= (1/2) in\n"
+                      "expect rotation at N2 <= 0.01 within 0.001\n"));
+    REQUIRE(m.expectations.size() == 4);
+    CHECK(m.expectations[0].low == Approx(-4.0 / 150.0));
+    CHECK(m.expectations[0].high == Approx(4.0 / 150.0));
+    CHECK(m.expectations[0].bound_written == "between -4 m / 150 and 4 m / 150");
+    CHECK(m.expectations[1].tolerance == Approx(1e-4));
+    CHECK(m.expectations[1].bound_written == "<= 4 m / 150 within 0.1 mm");
+    CHECK(m.expectations[2].high == Approx(0.0127).epsilon(1e-12));
+    CHECK(m.expectations[2].bound_written == "<= (1 / 2) in");
+    // `within` after a plain-number bound (a rotation) is a tolerance, not a unit.
+    CHECK(m.expectations[3].tolerance == Approx(0.001));
+    CHECK(first_message(with("let h = (1/2) kip\nsection s2 steel, A = h, I = 100 in4\n")) ==
+          "input:10:23: error: expected an area such as 9.12 in^2, found 'h', a force");
+}
