@@ -53,12 +53,28 @@ std::string place_text(const CheckedModel& c, const SourceRange& where) {
                        where.begin.column);
 }
 
-Json range_in_file(const CheckedModel& c, const SourceRange& where) {
-    LineIndex lines(c.sources.file(where.file).text);
-    return range_json(lines, where.begin.offset, where.end.offset);
+/// The line index of each file, made when first needed: a model with thousands of
+/// messages must not index its text once per message.
+class LineIndexes {
+  public:
+    explicit LineIndexes(const CheckedModel& c) : c_(c), indexes_(c.sources.count()) {}
+    const LineIndex& of(FileId f) {
+        if (!indexes_.at(f))
+            indexes_[f].emplace(c_.sources.file(f).text);
+        return *indexes_[f];
+    }
+
+  private:
+    const CheckedModel& c_;
+    std::vector<std::optional<LineIndex>> indexes_;
+};
+
+Json range_in_file(LineIndexes& lines, const SourceRange& where) {
+    return range_json(lines.of(where.file), where.begin.offset, where.end.offset);
 }
 
-Json related_information(const CheckedModel& c, const Diagnostic& d, std::string& message) {
+Json related_information(const CheckedModel& c, LineIndexes& lines, const Diagnostic& d,
+                         std::string& message) {
     Json related = Json::array();
     for (const Diagnostic& note : d.notes) {
         const SourceFile& file = c.sources.file(note.where.file);
@@ -68,23 +84,23 @@ Json related_information(const CheckedModel& c, const Diagnostic& d, std::string
         }
         related.push_back(
             {{"location",
-              {{"uri", uri_of_path(file.name)}, {"range", range_in_file(c, note.where)}}},
+              {{"uri", uri_of_path(file.name)}, {"range", range_in_file(lines, note.where)}}},
              {"message", note.message}});
     }
     return related;
 }
 
-Json diagnostic_json(const CheckedModel& c, const Diagnostic& d) {
+Json diagnostic_json(const CheckedModel& c, LineIndexes& lines, const Diagnostic& d) {
     std::string message = d.message;
     Json range;
     if (d.where.file == c.main) {
-        range = range_in_file(c, d.where);
+        range = range_in_file(lines, d.where);
     } else {
         // A message about a used file is shown at the top of the model that uses it.
         message = fmt::format("in {}: {}", place_text(c, d.where), d.message);
         range = range_json(LineIndex(""), 0, 0);
     }
-    Json related = related_information(c, d, message);
+    Json related = related_information(c, lines, d, message);
     Json out{{"range", range},
              {"severity", severity_code(d.severity)},
              {"source", "firn"},
@@ -97,8 +113,13 @@ Json diagnostic_json(const CheckedModel& c, const Diagnostic& d) {
 }  // namespace
 
 std::unique_ptr<CheckedModel> check_model(std::string path, std::string text,
-                                          const ImportOptions& options) {
+                                          const ImportOptions& options,
+                                          const CheckedModel* previous) {
     auto c = std::make_unique<CheckedModel>();
+    if (previous != nullptr)
+        c->units = previous->units;
+    else
+        make_display_units("kN", "m", "", c->units);
     c->main = c->sources.add(path, std::move(text));
     c->trees = load_model(c->sources, c->main, c->diagnostics, options);
     if (c->diagnostics.has_errors())
@@ -106,6 +127,7 @@ std::unique_ptr<CheckedModel> check_model(std::string path, std::string text,
     c->model = resolve(c->trees, c->diagnostics);
     c->model.source_name = std::move(path);
     c->resolved = true;
+    c->units = c->model.units;
     if (c->diagnostics.has_errors())
         return c;
     c->complete = true;
@@ -115,8 +137,9 @@ std::unique_ptr<CheckedModel> check_model(std::string path, std::string text,
 
 Json diagnostics_json(const CheckedModel& checked) {
     Json items = Json::array();
+    LineIndexes lines(checked);
     for (const Diagnostic& d : checked.diagnostics.all())
-        items.push_back(diagnostic_json(checked, d));
+        items.push_back(diagnostic_json(checked, lines, d));
     for (const std::string& message : checked.diagnostics.unplaced()) {
         items.push_back({{"range", range_json(LineIndex(""), 0, 0)},
                          {"severity", 1},

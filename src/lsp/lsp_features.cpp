@@ -242,7 +242,7 @@ std::optional<std::string> hover_of(const CheckedModel& c, const std::vector<Let
     for (const LetValue& v : lets) {
         if (v.name == name) {
             return fmt::format("value {} = {}", v.name,
-                               show_quantity(c.model.units, v.value, v.dimension));
+                               show_quantity(c.units, v.value, v.dimension));
         }
     }
     return std::nullopt;

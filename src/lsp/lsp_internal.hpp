@@ -85,14 +85,19 @@ struct CheckedModel {
     std::vector<syntax::Tree> trees;
     Model model;
     Derivation derivation;
+    /// The units hovers show values in: the model's, or while it does not resolve those
+    /// of the last check that did (kN and m before any did, as the compiler's default).
+    DisplayUnits units;
     bool resolved = false;  ///< resolve ran: `model` names what it could bind
     bool complete = false;  ///< and reported no error, so every value in `model` holds
     bool derived = false;   ///< `derivation` holds the snow values
 };
 
-/// Parses, resolves and derives the model; never solves it.
+/// Parses, resolves and derives the model; never solves it. `previous` is the last
+/// check of the same document, if any.
 std::unique_ptr<CheckedModel> check_model(std::string path, std::string text,
-                                          const ImportOptions& options);
+                                          const ImportOptions& options,
+                                          const CheckedModel* previous);
 
 /// The publishDiagnostics items of the main file: messages placed in other files
 /// (a used file, the library) are shown at the top, naming their place.

@@ -215,20 +215,26 @@ class Server {
         if (method == "textDocument/didOpen") {
             const Json& doc = field(params, "textDocument");
             std::string uri = string_field(doc, "uri");
-            documents_[uri] = Document{path_of_uri(uri), string_field(doc, "text"), nullptr, true};
-            mark_all_stale();
+            std::string path = path_of_uri(uri);
+            documents_[uri] = Document{path, string_field(doc, "text"), nullptr, true};
+            mark_stale(path);
         } else if (method == "textDocument/didChange") {
             auto found = documents_.find(document_uri(params));
             if (found == documents_.end())
                 return;
             for (const Json& change : field(params, "contentChanges"))
                 apply_change(found->second.text, change);
-            mark_all_stale();
+            mark_stale(found->second.path);
         } else if (method == "textDocument/didClose") {
             std::string uri = document_uri(params);
-            if (documents_.erase(uri) > 0)
-                publish(uri, Json::array());
-            mark_all_stale();
+            auto found = documents_.find(uri);
+            if (found == documents_.end())
+                return;
+            std::string path = found->second.path;
+            documents_.erase(found);
+            publish(uri, Json::array());
+            // A model that used the editor's text of this file reads it from disk now.
+            mark_stale(path);
         }
     }
 
@@ -244,10 +250,20 @@ class Server {
         text.replace(begin, std::max(begin, end) - begin, replacement);
     }
 
-    /// A model may use another open document, so any change may change any check.
-    void mark_all_stale() {
-        for (auto& [uri, doc] : documents_)
-            doc.stale = true;
+    /// The document at `path` and every open model that uses it need a new check.
+    void mark_stale(const std::string& path) {
+        for (auto& [uri, doc] : documents_) {
+            if (doc.path == path || doc.checked == nullptr || uses(*doc.checked, path))
+                doc.stale = true;
+        }
+    }
+
+    static bool uses(const CheckedModel& c, const std::string& path) {
+        for (FileId f = 0; f < c.sources.count(); ++f) {
+            if (c.sources.file(f).name == path)
+                return true;
+        }
+        return false;
     }
 
     ImportOptions import_options() const {
@@ -272,7 +288,7 @@ class Server {
             throw ProtocolError{invalid_params, fmt::format("'{}' is not open", uri)};
         Document& doc = found->second;
         if (doc.stale) {
-            doc.checked = check_model(doc.path, doc.text, import_options());
+            doc.checked = check_model(doc.path, doc.text, import_options(), doc.checked.get());
             doc.stale = false;
             publish(uri, diagnostics_json(*doc.checked));
         }
