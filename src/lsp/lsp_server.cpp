@@ -288,8 +288,17 @@ class Server {
             throw ProtocolError{invalid_params, fmt::format("'{}' is not open", uri)};
         Document& doc = found->second;
         if (doc.stale) {
-            doc.checked = check_model(doc.path, doc.text, import_options(), doc.checked.get());
             doc.stale = false;
+            try {
+                doc.checked = check_model(doc.path, doc.text, import_options(), doc.checked.get());
+            } catch (const std::exception& e) {
+                // A bug in a stage must not end the editor's session: say so where the
+                // messages go, and answer from the text alone until the next change.
+                doc.checked = std::make_unique<CheckedModel>();
+                doc.checked->main = doc.checked->sources.add(doc.path, doc.text);
+                doc.checked->diagnostics.error_without_place(
+                    fmt::format("internal error in firn (please report this): {}", e.what()));
+            }
             publish(uri, diagnostics_json(*doc.checked));
         }
         return doc;
