@@ -278,6 +278,14 @@ void edit_into_error_and_back(Server& s, const std::string& uri) {
     }
     change(s, uri, 3, kHut);
     check(s.diagnostics(uri).empty(), "back: the diagnostics are cleared");
+
+    // A ground snow load above 1000 psf is the compiler's warning of a unit slip.
+    change(s, uri, 4, replaced(kHut, "pg = 30 psf", "pg = 1200 psf"));
+    Json w = s.diagnostics(uri);
+    check(w.size() == 1 && w[0]["severity"] == 2 && w[0]["range"]["start"]["line"] == 26,
+          "warning: published with its severity and line, got " + w.dump());
+    change(s, uri, 5, kHut);
+    check(s.diagnostics(uri).empty(), "back again: no warning");
 }
 
 void hovers_and_definitions(Server& s, const std::string& uri) {
@@ -307,6 +315,13 @@ void hovers_and_definitions(Server& s, const std::string& uri) {
     Json def = s.reply(14)["result"];
     check(def["uri"] == uri && def["range"]["start"] == Json({{"line", 13}, {"character", 8}}),
           "definition: the section statement, got " + def.dump());
+    // Definition of the material `structural_steel`: its statement in the library module.
+    s.request(16, "textDocument/definition", at(uri, 13, 20));
+    Json steel = s.reply(16)["result"];
+    check(steel.is_object() &&
+              steel["uri"].get<std::string>().ends_with("/firn/library/materials.firn") &&
+              steel["range"]["start"]["line"].get<int>() > 0,
+          "definition: a library entry, got " + steel.dump());
     // Definition of `asce7_16` in `use asce7_16`: the library module, copied for the editor.
     s.request(15, "textDocument/definition", at(uri, 3, 6));
     Json lib = s.reply(15)["result"];
