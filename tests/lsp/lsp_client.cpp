@@ -416,6 +416,12 @@ void large_frame(Server& s, const std::string& uri, const std::string& text, con
           std::string(what) + ": the last check reports the misspelt section");
     std::printf("latency, %s: open and check %.3f s; three edits, %zu check(s), a hover %.3f s\n",
                 what, open, ours.size(), edit);
+    // One edit back to the valid text: a whole check, as on a keystroke that mends it.
+    start = std::chrono::steady_clock::now();
+    change(s, uri, 5, text);
+    check(s.diagnostics(uri).empty(), std::string(what) + ": mended, no diagnostics");
+    std::printf("latency, %s: one edit to a valid model, its check and publish %.3f s\n", what,
+                seconds_since(start));
     s.notify("textDocument/didClose", {{"textDocument", text_document(uri)}});
     check(s.diagnostics(uri).empty(), std::string(what) + ": closing clears its diagnostics");
 }
