@@ -15,6 +15,7 @@ _firn() {
     run) opts="$common --format --full --exact-numbers -o --output --warnings-as-errors" ;;
     fmt) opts="-h --help --check --stdout" ;;
     check) opts="$batch -v --verbose --warnings-as-errors" ;;
+    lsp) opts="$common --stdio" ;;
     draw) opts="$common -o --output --case --combination --diagrams --no-loads --no-envelopes --html-only --force --warnings-as-errors" ;;
     baseline)
         case $sub in
@@ -29,7 +30,7 @@ _firn() {
         esac
         ;;
     *)
-        COMPREPLY=($(compgen -W "run fmt check baseline draw -h --help --version" -- "$cur"))
+        COMPREPLY=($(compgen -W "run fmt check baseline draw lsp -h --help --version" -- "$cur"))
         return
         ;;
     esac

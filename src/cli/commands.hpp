@@ -40,4 +40,7 @@ void add_baseline_command(CLI::App& app, int& status);
 /// report (cmd_draw.cpp).
 void add_draw_command(CLI::App& app, int& status);
 
+/// `firn lsp`: the language server for editors, on standard input and output (cmd_lsp.cpp).
+void add_lsp_command(CLI::App& app, int& status);
+
 }  // namespace firn

@@ -45,6 +45,7 @@ int run_command(int argc, char** argv) {
     firn::add_check_command(app, status);
     firn::add_baseline_command(app, status);
     firn::add_draw_command(app, status);
+    firn::add_lsp_command(app, status);
     if (is_unknown_command(app, argc, argv))
         return firn::exit_model_error;
     try {

@@ -221,6 +221,21 @@ TEST_CASE("editor support: the VS Code extension's JSON files parse and agree") 
     CHECK(config.at("comments").at("lineComment") == "#");
 }
 
+TEST_CASE("editor support: the VS Code extension starts 'firn lsp' from its path setting") {
+    nlohmann::json package = read_support_json("vscode/package.json");
+    std::string extension = read_support_file("vscode/extension.js");
+    CHECK(package.at("main") == "./extension.js");
+    CHECK(package.at("activationEvents") == nlohmann::json::array({"onLanguage:firn"}));
+    const nlohmann::json& settings = package.at("contributes").at("configuration").at("properties");
+    CHECK(settings.at("firn.languageServer.path").at("default") == "firn");
+    CHECK(settings.at("firn.languageServer.enabled").at("default") == true);
+    CHECK(package.at("dependencies").contains("vscode-languageclient"));
+    CHECK(extension.find("getConfiguration('firn.languageServer')") != std::string::npos);
+    CHECK(extension.find("settings.get('path', 'firn')") != std::string::npos);
+    CHECK(extension.find("args: ['lsp']") != std::string::npos);
+    CHECK(extension.find("language: 'firn'") != std::string::npos);
+}
+
 TEST_CASE("editor support: the word-list reader takes whole words only") {
     CHECK(alternation_words(R"(\b(?:at|attribute)\b)") == Words{"at", "attribute"});
     Highlighted h{{"attribute"}, {}, {}};

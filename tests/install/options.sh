@@ -29,7 +29,7 @@ check_command() {  # check_command WORD...: the options of `firn WORD... --help`
 }
 
 check_command
-for cmd in run fmt check draw baseline "baseline check" "baseline update" "baseline show" \
+for cmd in run fmt check draw lsp baseline "baseline check" "baseline update" "baseline show" \
     "baseline diff"; do
     # shellcheck disable=SC2086  # the baseline commands are two words
     check_command $cmd
