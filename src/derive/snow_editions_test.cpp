@@ -330,3 +330,59 @@ TEST_CASE("IBC 2024 deflection: snow cases taken as 0.7 S, and the report says s
               Approx(0.7 * full.deflections[i].deflection).epsilon(1e-12));
     }
 }
+
+namespace {
+
+/// A 4:12 gable of two rafters, eave to ridge `half` ft each side, under ASCE 7-22.
+std::string gable_722(int half, const char* rafters) {
+    return fmt::format(
+        "model \"gable\"\nuse materials\nuse asce7_22\nreport units kip, ft\n"
+        "grid x A..C spacing {} ft\ngrid y base = 0 ft, eave = 16 ft, ridge = 16 ft + {} ft / 3\n"
+        "section s structural_steel, A = 11.8 in2, I = 510 in4\n"
+        "columns on A, C from base to eave section s\n"
+        "rafters gable from A.eave to B.ridge to C.eave section s\nsupport pinned at base\n"
+        "snow S {{\n  standard = asce7_22\n  pg_II = 40 psf\n  W2 = 0.5\n  terrain = C\n"
+        "  exposure = partially\n  thermal = cold_ventilated\n  risk = II\n}}\n"
+        "roof main on gable.* {{\n  tributary = 20 ft\n  rafter_spans = {}\n}}\n",
+        half, half, rafters);
+}
+
+}  // namespace
+
+TEST_CASE("ASCE 7-22: unbalanced gable loads take the drift height with W2, and pg without Is") {
+    // Sec. 7.6.1 (from memory, as 7-16, with the 7-22 hd): W = 30 ft, 4:12 so S = 3,
+    // slope 18.43 deg. Ct = 1.2 (ventilated, Table 7.3-2) [C: S10, S11]; the cold
+    // ventilated curve by thermal condition (Fig. 7.4-1, from memory), knee 37.5 deg: Cs =
+    // 1, ps = pf = 0.7 x 1.0 x 1.2 x 40 = 33.6 psf. Windward 0.3 ps = 10.08 psf. Eq. 7.6-1
+    // (exponents from memory), lu = W = 30 ft, gamma = 19.2 pcf: 40^0.74 = 15.3294,
+    // 30^0.7 = 10.8140, 0.5^1.7 = 0.307786; / 19.2 = 2.65740; hd = 1.5 x 1.63015 =
+    // 2.44523 ft. Surcharge hd gamma / sqrt(S) = 27.1057 psf over 8 hd sqrt(S) / 3 =
+    // 11.2940 ft from the ridge.
+    Analysis a = analysed(gable_722(30, "continuous"));
+    const LoadCase* left = find_case(a.model, "S.unbalanced.wind_from_left");
+    REQUIRE(left != nullptr);
+    REQUIRE(left->distributed.size() == 3);
+    CHECK(left->distributed[0].w_start / (20 * kFt) == Approx(10.08 * kPsf).epsilon(1e-12));
+    CHECK(left->distributed[1].w_start / (20 * kFt) == Approx(33.6 * kPsf).epsilon(1e-12));
+    CHECK(left->distributed[2].w_start / (20 * kFt) == Approx(27.1057 * kPsf).epsilon(1e-5));
+    CHECK(left->distributed[2].end / kFt == Approx(11.2940).epsilon(1e-5));
+    // W = 18 ft <= 20 ft with simply supported rafters: leeward pg = 40 psf, there being no
+    // Is in 7-22 (Sec. 7.6.1, from memory).
+    Analysis narrow = analysed(gable_722(18, "simple"));
+    const LoadCase* n = find_case(narrow.model, "S.unbalanced.wind_from_left");
+    REQUIRE(n != nullptr);
+    REQUIRE(n->distributed.size() == 1);
+    CHECK(n->distributed[0].w_start / (20 * kFt) == Approx(40 * kPsf).epsilon(1e-12));
+}
+
+TEST_CASE("ASCE 7-22: W2 is a fraction, and an edition without it refuses it") {
+    std::string site = kSite722;
+    CHECK(first_error(frame("asce7_22", site + "  W2 = 45\n")) ==
+          "input:26:8: error: W2 is the share of winter time with wind above 10 mph, a fraction "
+          "between 0 and 1 (write 0.45 for 45 %); found 45");
+    CHECK(first_error(frame("asce7_16",
+                            "  pg = 40 psf\n  W2 = 0.45\n  terrain = C\n  exposure = partially\n"
+                            "  thermal = heated\n  risk = II\n")) ==
+          "input:19:3: error: ASCE 7-16's drift height (ASCE 7-16 Fig. 7.6-1) does not use the "
+          "winter wind parameter; remove W2");
+}
