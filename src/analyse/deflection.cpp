@@ -21,7 +21,15 @@ namespace {
 struct Loading {
     std::string name;
     const CaseResults* results = nullptr;
+    CaseKind kind = CaseKind::dead;
 };
+
+/// The factor a row's footnotes put on a loading of the S or W column (1 elsewhere).
+double footnote_factor(const DeflectionLimits& limits, const Loading& l) {
+    return l.kind == CaseKind::snow   ? limits.snow_factor
+           : l.kind == CaseKind::wind ? limits.wind_factor
+                                      : 1.0;
+}
 
 double cantilever_deflection(const Model& model, const CaseResults& r, MemberId id) {
     const Member& m = model.members[at(id)];
@@ -47,7 +55,7 @@ std::vector<Loading> cases_of(const Model& model, const Results& results,
     for (std::size_t c = 0; c < model.cases.size(); ++c) {
         for (CaseKind k : kinds) {
             if (model.cases[c].kind == k)
-                out.push_back(Loading{model.cases[c].name, &results.cases[c]});
+                out.push_back(Loading{model.cases[c].name, &results.cases[c], k});
         }
     }
     return out;
@@ -79,7 +87,8 @@ void check_column(const Model& model, std::size_t limits, const char* column, do
         double length = member_geometry(model, id).length;
         check.span = check.cantilever ? 2.0 * length : length;
         for (const Loading& l : loadings) {
-            double d = deflection_of(model, *l.results, id, check.cantilever);
+            double d = footnote_factor(model.deflection_limits[limits], l) *
+                       deflection_of(model, *l.results, id, check.cantilever);
             if (check.governing.empty() || std::abs(d) > std::abs(check.deflection)) {
                 check.deflection = d;
                 check.governing = l.name;
@@ -105,7 +114,7 @@ std::vector<DeflectionCheck> check_deflections(const Model& model, const LoadSet
     CaseResults total;
     if (any_total && !sum.terms.empty())
         total = combination_results(model, loads, solution, results, sum);
-    std::vector<Loading> totals{Loading{sum.name, &total}};
+    std::vector<Loading> totals{Loading{sum.name, &total, CaseKind::dead}};
     for (std::size_t i = 0; i < model.deflection_limits.size(); ++i) {
         const DeflectionLimits& limits = model.deflection_limits[i];
         check_column(model, i, "L or Lr", limits.live, live, out);

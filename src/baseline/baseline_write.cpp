@@ -196,16 +196,19 @@ void add_deflections(Writer& w, const Analysis& a) {
 }
 
 /// The derived snow values a model names (`pf`, `main.ps`, a drift's `hd`), as
-/// `snow SITE NAME`. A value of a kind with no display unit is left out.
+/// `snow SITE NAME`, each noted with the edition it comes from (a model takes
+/// one, and a baseline kept across a change of edition says so line by line).
+/// A value of a kind with no display unit is left out.
 void add_snow_values(Writer& w, const Model& model, const Derivation& derivation) {
     std::string site = model.snow ? model.snow->name : "snow";
+    std::string edition = model.snow ? model.snow->tables.edition : "";
     for (const SnowValue& v : snow_values(derivation)) {
         const DisplayUnit* unit = v.dimension == dim::pressure ? &model.units.pressure
                                   : v.dimension == dim::length ? &model.units.length
                                   : v.dimension == dim::number ? &kRatio
                                                                : nullptr;
         if (unit != nullptr)
-            w.add(fmt::format("snow {} {}", site, v.name), v.value, *unit);
+            w.add(fmt::format("snow {} {}", site, v.name), v.value, *unit, edition);
     }
 }
 

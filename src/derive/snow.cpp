@@ -78,22 +78,53 @@ void SnowDeriver::trace_site() {
         line("amended: {} = {} because \"{}\"", {text(a.name), value, text(a.reason)});
         out_.snow_trace.back().provenance = Provenance::given;
     }
-    line("pg = {}, the ground snow load (given)", {pressure(site_.pg)}, t_.clause.pg);
+    if (t_.pg_per_risk_category) {
+        line(
+            "pg = {}, the ground snow load of risk category {} (given, from the site's hazard "
+            "data)",
+            {pressure(site_.pg), text(site_.risk)}, t_.clause.pg);
+    } else {
+        line("pg = {}, the ground snow load (given)", {pressure(site_.pg)}, t_.clause.pg);
+    }
     name_last("pg", 0);
     trace_factor("Ce", site_.Ce,
                  fmt::format("terrain {}, {} exposed", site_.terrain, site_.exposure));
     trace_factor("Ct", site_.Ct, fmt::format("thermal condition {}", site_.thermal));
-    trace_factor("Is", site_.Is, fmt::format("risk category {}", site_.risk));
-    pf_ = t_.pf_factor * site_.Ce.value * site_.Ct.value * site_.Is.value * site_.pg;
-    line("pf = {} Ce Ct Is pg = {} x {} x {} x {} x {} = {}",
-         {number(t_.pf_factor), number(t_.pf_factor), factor(site_.Ce.value),
-          factor(site_.Ct.value), factor(site_.Is.value), pressure(site_.pg), pressure(pf_)},
-         t_.clause.pf);
-    name_last("pf", 6);
+    if (t_.drift_winter_wind && site_.W2 > 0.0) {
+        line("W2 = {}, the winter wind parameter (given, from the site's hazard data)",
+             {number(site_.W2)}, t_.clause.drift_height);
+        name_last("W2", 0);
+    }
+    if (!t_.importance_applies) {
+        pf_ = t_.pf_factor * site_.Ce.value * site_.Ct.value * site_.pg;
+        line("pf = {} Ce Ct pg = {} x {} x {} x {} = {} (no importance factor: risk is in pg)",
+             {number(t_.pf_factor), number(t_.pf_factor), factor(site_.Ce.value),
+              factor(site_.Ct.value), pressure(site_.pg), pressure(pf_)},
+             t_.clause.pf);
+        name_last("pf", 5);
+    } else {
+        trace_factor("Is", site_.Is, fmt::format("risk category {}", site_.risk));
+        pf_ = t_.pf_factor * site_.Ce.value * site_.Ct.value * site_.Is.value * site_.pg;
+        line("pf = {} Ce Ct Is pg = {} x {} x {} x {} x {} = {}",
+             {number(t_.pf_factor), number(t_.pf_factor), factor(site_.Ce.value),
+              factor(site_.Ct.value), factor(site_.Is.value), pressure(site_.pg), pressure(pf_)},
+             t_.clause.pf);
+        name_last("pf", 6);
+    }
+    if (t_.Cs_curve_by_thermal) {
+        static const char* const curves[] = {"warm roof", "cold ventilated roof", "cold roof"};
+        line("slope factor curve: {}, chosen by thermal condition {} (not by the Ct value)",
+             {text(curves[site_.Cs_curve]), text(site_.thermal)}, t_.clause.Cs_curve);
+    }
 }
 
 void SnowDeriver::trace_factor(const char* symbol, const SnowFactor& f, const std::string& basis) {
-    if (f.reason.empty()) {
+    if (f.read_by_model) {
+        line("{} = {}, {}, read by the model from {}: \"{}\"",
+             {text(symbol), factor(f.value), text(basis), text(f.table), text(f.reason)},
+             fmt::format("{} {}", t_.edition, f.table));
+        out_.snow_trace.back().provenance = Provenance::given;
+    } else if (f.reason.empty()) {
         line("{} = {}, {}", {text(symbol), factor(f.value), text(basis)},
              fmt::format("{} {}", t_.edition, f.table));
         out_.snow_trace.back().provenance = Provenance::table;
@@ -107,7 +138,7 @@ void SnowDeriver::trace_factor(const char* symbol, const SnowFactor& f, const st
 
 /// Cs from the curve of Fig. 7.4-1 that the thermal factor and surface select.
 double SnowDeriver::slope_factor(const Roof& roof, double slope, const std::string& members) {
-    std::size_t curve = curve_of(site_.Ct.value);
+    std::size_t curve = site_.Cs_curve;
     static const char* const roofs[] = {"warm roof", "cold ventilated roof", "cold roof"};
     bool slippery = roof.slippery;
     if (slippery && curve == 0) {
@@ -187,6 +218,8 @@ double SnowDeriver::minimum_load(double slope, const std::string& name) {
              {degrees(slope), degrees(t_.pm_max_slope)}, clause);
         return 0.0;
     }
+    if (t_.pm_cap_per_risk_category)
+        return capped_minimum_load(name);
     double is = site_.Is.value;
     if (site_.pg <= t_.pm_pg_limit) {
         double pm = is * site_.pg;
@@ -204,6 +237,22 @@ double SnowDeriver::minimum_load(double slope, const std::string& name) {
     if (pm > 0.0)
         name_last(name, 3);
     return pm;
+}
+
+/// pm = pg of the risk category, at most that category's cap (the library's table).
+double SnowDeriver::capped_minimum_load(const std::string& name) {
+    double cap = t_.pm_pg_limit;
+    if (site_.pg <= cap) {
+        line("pm = pg = {}, not above pm,max = {} for risk category {}, a case of its own",
+             {pressure(site_.pg), pressure(cap), text(site_.risk)}, t_.clause.pm);
+        if (site_.pg > 0.0)
+            name_last(name, 0);
+        return site_.pg;
+    }
+    line("pm = pm,max = {} for risk category {} (pg = {} is above it), a case of its own",
+         {pressure(cap), text(site_.risk), pressure(site_.pg)}, t_.clause.pm_cap);
+    name_last(name, 0);
+    return cap;
 }
 
 void SnowDeriver::derive_roof(const Roof& roof, LoadCase& balanced, LoadCase& minimum) {
@@ -390,12 +439,17 @@ void SnowDeriver::unbalanced_case(const Roof& roof, const std::vector<double>& p
     std::string side = wind_from_left ? "wind from the left" : "wind from the right";
     if (roof.simple_rafters && W <= t_.unbalanced_narrow_W) {
         double p = site_.Is.value * site_.pg;
-        line(
-            "{}: W = {} <= {} with simply supported rafters: windward 0, leeward Is pg = {} x {} = "
-            "{}",
-            {text(side), length(W), length(t_.unbalanced_narrow_W), factor(site_.Is.value),
-             pressure(site_.pg), pressure(p)},
-            clause);
+        if (t_.importance_applies) {
+            line(
+                "{}: W = {} <= {} with simply supported rafters: windward 0, leeward Is pg = {} x "
+                "{} = {}",
+                {text(side), length(W), length(t_.unbalanced_narrow_W), factor(site_.Is.value),
+                 pressure(site_.pg), pressure(p)},
+                clause);
+        } else {
+            line("{}: W = {} <= {} with simply supported rafters: windward 0, leeward pg = {}",
+                 {text(side), length(W), length(t_.unbalanced_narrow_W), pressure(p)}, clause);
+        }
         for (std::size_t i = 0; i < roof.members.size(); ++i) {
             if (!windward(roof.members[i]))
                 load_member(roof, roof.members[i], p, lc);
@@ -403,13 +457,12 @@ void SnowDeriver::unbalanced_case(const Roof& roof, const std::vector<double>& p
         return;
     }
     double gamma = snow_density(t_, site_.pg);
-    double hd = drift_height(t_, site_.pg, W);
     double S = 1.0 / std::tan(leeward_slope);
-    double surcharge = hd * gamma / std::sqrt(S);
-    double extent = 8.0 * hd * std::sqrt(S) / 3.0;
     line("{}: W = {}; S = 1/tan(slope) = {}", {text(side), length(W), number(S, 2)}, clause);
     trace_density(gamma);
-    trace_drift(W, hd, "W");
+    double hd = drift_height_for(W, "W", fmt::format("unbalanced load of roof {}", roof.name));
+    double surcharge = hd * gamma / std::sqrt(S);
+    double extent = 8.0 * hd * std::sqrt(S) / 3.0;
     line(
         "windward: {} ps; leeward: ps + hd gamma / sqrt(S) = ps + {} x {} / sqrt({}) = ps + {} "
         "over 8 hd sqrt(S) / 3 = {} from the ridge",
@@ -479,9 +532,9 @@ void SnowDeriver::ice_dam(const Roof& roof) {
         line("ice dam load not required: roof {} has no eave overhang", {text(roof.name)}, clause);
         return;
     }
-    if (curve_of(site_.Ct.value) != 0) {
-        line("ice dam load not required: not a warm roof (Ct = {})", {factor(site_.Ct.value)},
-             clause);
+    if (site_.Cs_curve != 0) {
+        line("ice dam load not required: not a warm roof (Ct = {}, thermal condition {})",
+             {factor(site_.Ct.value), text(site_.thermal)}, clause);
         return;
     }
     double needed = roof.ventilated ? t_.ice_dam_R_ventilated : t_.ice_dam_R_unventilated;
@@ -559,7 +612,9 @@ double snow_density(const SnowTables& t, double pg) {
     return std::min(t.density_per_pg * pg + t.density_base, t.density_max);
 }
 
-double drift_height(const SnowTables& t, double pg, double lu) {
+double drift_height(const SnowTables& t, double pg, double lu, double W2) {
+    if (t.drift_winter_wind)
+        return winter_wind_drift_height(t, pg, lu, W2);
     double lu_ft = std::max(lu, t.drift_min_lu) / kFoot;
     double pg_psf = (pg + t.drift_pg_offset) / kPoundPerSquareFoot;
     double hd_ft =
@@ -568,6 +623,8 @@ double drift_height(const SnowTables& t, double pg, double lu) {
 }
 
 double roof_slope_factor(const SnowTables& tables, double Ct, bool slippery, double slope) {
+    // An edition that chooses the curve by thermal condition is resolved per site
+    // (SnowSite::Cs_curve); this reads the curve a Ct value selects.
     return on_curve(tables.Cs_knee[curve_of(Ct)][slippery ? 0 : 1], tables.Cs_zero_slope, slope);
 }
 

@@ -18,6 +18,11 @@ double snow_density(const SnowTables& tables, double pg);
 /// Drift height of the standard's Fig. 7.6-1 (m) for an upwind length `lu` (m) and
 /// ground snow load `pg` (Pa), evaluated in the formula's own units (ft, psf)
 /// with exact conversions; never negative.
-double drift_height(const SnowTables& tables, double pg, double lu);
+/// An edition with the winter wind form (tables.drift_winter_wind) takes the
+/// site's winter wind parameter `W2`, a fraction.
+double drift_height(const SnowTables& tables, double pg, double lu, double W2 = 0.0);
+/// The drift height hd = c sqrt(pg^a lu^b W2^e / gamma) in ft, psf and pcf (the
+/// library gives c, a, b, e), with lu at least the library's least length (m).
+double winter_wind_drift_height(const SnowTables& tables, double pg, double lu, double W2);
 
 }  // namespace firn

@@ -6,6 +6,14 @@
 #include "derive/snow_internal.hpp"
 
 namespace firn::snow_detail {
+namespace {
+
+/// "roof step at the left end of roof lower", for a message.
+std::string on_roof(const std::string& where, const Roof& roof) {
+    return fmt::format("{} of roof {}", where, roof.name);
+}
+
+}  // namespace
 
 void SnowDeriver::trace_density(double gamma) {
     line("gamma = {} pg + {} = {} x {} + {} = {} (at most {})",
@@ -108,26 +116,48 @@ void SnowDeriver::drift_at(const Roof& roof, double ps, bool left_end) {
     double hc = 0.0;
     if (!clear_height(where, ps, step ? edge.step : edge.parapet, hc, clause))
         return;
-    double hd;
+    std::string case_name =
+        fmt::format("drift.{}.{}_{}", roof.name, step ? "step" : "parapet", end);
+    double wall_x = left_end ? shape.left : shape.right, toward = left_end ? 1.0 : -1.0;
     if (step) {
-        double leeward = drift_height(t_, site_.pg, edge.upper_length);
-        double windward = 0.75 * drift_height(t_, site_.pg, length_of_roof);
-        trace_drift(edge.upper_length, leeward, "the upper roof's length");
-        trace_drift(length_of_roof, windward / 0.75, "this roof's length");
-        hd = std::max(leeward, windward);
+        double leeward =
+            drift_height_for(edge.upper_length, "the upper roof's length", on_roof(where, roof));
+        double windward =
+            0.75 * drift_height_for(length_of_roof, "this roof's length", on_roof(where, roof));
+        if (t_.drift_separate_windward) {
+            line("leeward hd = {}, windward 0.75 hd = {}", {length(leeward), length(windward)},
+                 clause);
+            Triangle lee = capped_triangle(leeward, hc, clause);
+            separate_drifts(roof, case_name, wall_x, toward, lee,
+                            capped_triangle(windward, hc, clause), length_of_roof, clause);
+            return;
+        }
+        double hd = std::max(leeward, windward);
         line(
             "leeward hd = {}, windward 0.75 hd = {}: the {} governs",
             {length(leeward), length(windward), text(leeward >= windward ? "leeward" : "windward")},
             clause);
-    } else {
-        hd = 0.75 * drift_height(t_, site_.pg, length_of_roof);
-        trace_drift(length_of_roof, hd / 0.75, "this roof's length");
-        line("parapet drift: 0.75 hd = {}", {length(hd)}, clause);
+        place_drift(roof, case_name, wall_x, toward, capped_triangle(hd, hc, clause),
+                    length_of_roof, roof.tributary, clause);
+        return;
     }
+    double hd = 0.75 * drift_height_for(length_of_roof, "this roof's length", on_roof(where, roof));
+    line("parapet drift: 0.75 hd = {}", {length(hd)}, clause);
     Triangle drift = capped_triangle(hd, hc, clause);
-    place_drift(roof, fmt::format("drift.{}.{}_{}", roof.name, step ? "step" : "parapet", end),
-                left_end ? shape.left : shape.right, left_end ? 1.0 : -1.0, drift, length_of_roof,
-                roof.tributary, clause);
+    place_drift(roof, case_name, wall_x, toward, drift, length_of_roof, roof.tributary, clause);
+}
+
+/// The leeward and windward drifts at a wall as separate cases (CASE.leeward,
+/// CASE.windward), where the edition makes them so.
+void SnowDeriver::separate_drifts(const Roof& roof, const std::string& case_name, double wall_x,
+                                  double toward, Triangle leeward, Triangle windward, double room,
+                                  const std::string& clause) {
+    line("leeward and windward drifts are separate cases: {}.leeward and {}.windward",
+         {text(case_name), text(case_name)}, clause);
+    place_drift(roof, case_name + ".leeward", wall_x, toward, leeward, room, roof.tributary,
+                clause);
+    place_drift(roof, case_name + ".windward", wall_x, toward, windward, room, roof.tributary,
+                clause);
 }
 
 /// A drift from a separate higher structure beyond a gap s at one end (Sec.
@@ -152,8 +182,8 @@ void SnowDeriver::adjacent_drift(const Roof& roof, double ps, bool left_end) {
         return;
     RoofShape shape = shape_of(m_, roof);
     double length_of_roof = shape.right - shape.left;
-    double hd_upper = drift_height(t_, site_.pg, edge.adjacent_length);
-    trace_drift(edge.adjacent_length, hd_upper, "the higher roof's length");
+    double hd_upper =
+        drift_height_for(edge.adjacent_length, "the higher roof's length", on_roof(where, roof));
     Triangle leeward{std::min(hd_upper, (6.0 * h - s) / 6.0),
                      std::min(6.0 * hd_upper, 6.0 * h - s)};
     line(
@@ -162,21 +192,25 @@ void SnowDeriver::adjacent_drift(const Roof& roof, double ps, bool left_end) {
         {length(hd_upper), length((6.0 * h - s) / 6.0), length(leeward.hd), length(6.0 * hd_upper),
          length(6.0 * h - s), length(leeward.w)},
         clause);
-    double windward_hd = 0.75 * drift_height(t_, site_.pg, length_of_roof);
-    trace_drift(length_of_roof, windward_hd / 0.75, "this roof's length");
+    double windward_hd =
+        0.75 * drift_height_for(length_of_roof, "this roof's length", on_roof(where, roof));
     line(
         "windward: 0.75 hd = {}, as at a roof step (the truncation the clause permits is not "
         "taken)",
         {length(windward_hd)}, t_.clause.step);
     Triangle windward = capped_triangle(windward_hd, hc, t_.clause.step);
+    std::string case_name = fmt::format("drift.{}.adjacent_{}", roof.name, end);
+    double wall_x = left_end ? shape.left : shape.right, toward = left_end ? 1.0 : -1.0;
+    if (t_.drift_separate_windward) {
+        separate_drifts(roof, case_name, wall_x, toward, leeward, windward, length_of_roof, clause);
+        return;
+    }
     bool leeward_governs = leeward.hd >= windward.hd;
     line("leeward drift {} high, windward {}: the {} governs",
          {length(leeward.hd), length(windward.hd), text(leeward_governs ? "leeward" : "windward")},
          clause);
-    Triangle drift = leeward_governs ? leeward : windward;
-    place_drift(roof, fmt::format("drift.{}.adjacent_{}", roof.name, end),
-                left_end ? shape.left : shape.right, left_end ? 1.0 : -1.0, drift, length_of_roof,
-                roof.tributary, clause);
+    place_drift(roof, case_name, wall_x, toward, leeward_governs ? leeward : windward,
+                length_of_roof, roof.tributary, clause);
 }
 
 /// Drifts against the two faces of a projection on a roof (Sec. 7.8): 0.75 hd
@@ -199,8 +233,8 @@ void SnowDeriver::projection_drifts(const Projection& p, const std::vector<doubl
         return;
     }
     double lu = std::max(left_face - shape.left, shape.right - right_face);
-    double hd = 0.75 * drift_height(t_, site_.pg, lu);
-    trace_drift(lu, hd / 0.75, "the longer roof length beside the projection");
+    double hd = 0.75 * drift_height_for(lu, "the longer roof length beside the projection",
+                                        fmt::format("projection {}", p.name));
     double breadth = std::min(p.face_length, roof.tributary);
     line(
         "0.75 hd = {}, on each face; across the frame the drift is min(face length, tributary "

@@ -195,6 +195,16 @@ class SnowDeriver {
     LoadCase& case_named(const char* what);
     void trace_density(double gamma);
     void trace_drift(double lu, double hd, const char* lu_is);
+    void trace_winter_wind_drift(double lu, double hd, const char* lu_is);
+    /// hd for an upwind length `lu`, traced; 0 with an error when the edition's
+    /// formula needs W2 and the snow data lack it (`what`: the drift that needs it).
+    double drift_height_for(double lu, const char* lu_is, const std::string& what);
+    bool reported_missing_W2_ = false;
+    double capped_minimum_load(const std::string& name);
+    /// A wall's leeward and windward drifts as two cases (the edition's switch).
+    void separate_drifts(const Roof& roof, const std::string& case_name, double wall_x,
+                         double toward, Triangle leeward, Triangle windward, double room,
+                         const std::string& clause);
     void mark_unverified();
 };
 

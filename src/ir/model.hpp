@@ -178,9 +178,17 @@ struct SnowTables {
     double density_max = 0.0;
     double drift_coefficient =
         0.0;  ///< hd = c lu^(1/3) (pg + pg_offset)^(1/4) - offset, in ft and psf
-    double drift_pg_offset = 0.0;            ///< Pa
-    double drift_offset = 0.0;               ///< m
-    double drift_min_lu = 0.0;               ///< m
+    double drift_pg_offset = 0.0;  ///< Pa
+    double drift_offset = 0.0;     ///< m
+    double drift_min_lu = 0.0;     ///< m
+    /// The module's switches, each choosing a kind of formula (the module says which).
+    bool pg_per_risk_category = false;      ///< pg is given per risk category (pg_I .. pg_IV)
+    bool importance_applies = true;         ///< pf = 0.7 Ce Ct Is pg (else no Is)
+    bool pm_cap_per_risk_category = false;  ///< pm = pg, at most the category's cap (pm_pg_limit)
+    bool Cs_curve_by_thermal = false;       ///< the Cs curve follows the thermal condition, not Ct
+    bool drift_winter_wind = false;         ///< hd = c sqrt(pg^a lu^b W2^e / gamma) (ft, psf, pcf)
+    double drift_pg_exponent = 0.0, drift_lu_exponent = 0.0, drift_W2_exponent = 0.0;
+    bool drift_separate_windward = false;    ///< leeward and windward drifts are cases of their own
     double partial_gable_exempt_rise = 0.0;  ///< gable members this steep need no partial load
     double adjacent_max_gap = 0.0;     ///< m: a drift from an adjacent structure below this gap
     double projection_min_face = 0.0;  ///< m: no drift on a shorter side of a projection
@@ -201,6 +209,7 @@ struct SnowTables {
     struct Clauses {
         std::string pg, pf, pm, slippery, ps, rain, ice_dam, partial, unbalanced, unbalanced_load,
             drift_height, density, step, adjacent, parapet, sliding;
+        std::string pm_cap, Cs_curve;   ///< cited only by the kinds of formula that use them
         std::array<std::string, 3> Cs;  ///< per curve of the slope factor
     } clause;
     /// Clauses whose values were entered from memory: a citation that ends with one is
@@ -214,6 +223,8 @@ struct SnowFactor {
     double value = 0.0;
     std::string table;   ///< where the value comes from, as the library names it
     std::string reason;  ///< non-empty when overridden
+    /// Read by the model from `table`, which the library names but does not hold.
+    bool read_by_model = false;
 };
 
 /// The site's snow data (a `snow` statement): its cases are named NAME.balanced, ...
@@ -222,7 +233,9 @@ struct SnowSite {
     std::string standard;  ///< the library module that gives the standard's tables
     double pg = 0.0;       ///< ground snow load, Pa
     std::string terrain, exposure, thermal, risk;
-    SnowFactor Ce, Ct, Is;
+    SnowFactor Ce, Ct, Is;     ///< Is is 1 where the edition has no importance factor
+    double W2 = 0.0;           ///< winter wind parameter, a fraction (0: not given)
+    std::size_t Cs_curve = 0;  ///< the slope factor's curve: warm, cold ventilated, cold
     SnowTables tables;
     SourceRange where;
 };
@@ -344,6 +357,9 @@ struct DeflectionLimits {
     double live = 0.0;       ///< L or Lr, each case alone
     double snow_wind = 0.0;  ///< S or W, each case alone
     double total = 0.0;      ///< D + L
+    /// The table's footnotes: each snow or wind case of the S or W column is
+    /// taken times these (the library's `TABLE.footnote.snow_factor`, ...).
+    double snow_factor = 1.0, wind_factor = 1.0;
     SourceRange where;
 };
 

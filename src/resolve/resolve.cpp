@@ -780,6 +780,8 @@ Model resolve(std::span<const syntax::Tree> trees, Diagnostics& diagnostics) {
     resolve_snow(r, c.snow, c.roofs, c.projections, c.amends, c.snow_statements);
     resolve_combinations(r, c.combination_sets, c.combine, c.patterns, c.arrangements);
     resolve_deflection_limits(r, c.deflections);
+    read_deflection_footnotes(r);
+    check_one_edition(r);
     resolve_expectations(r, c.expectations, c.expectation_where);
     check_whole_model(r, c);
     return std::move(r.model);

@@ -207,6 +207,10 @@ void resolve_combinations(Resolver& r, const std::vector<const syntax::Combinati
                           const std::vector<const syntax::ArrangeDecl*>& arrangements);
 
 /// `deflection MEMBERS limit ROW`: the row's limits from the library.
+/// The footnote factors of each deflection row's table (snow and wind in the S or W column).
+void read_deflection_footnotes(Resolver& r);
+/// Refuses a combination set or deflection row of another edition than the snow data's.
+void check_one_edition(Resolver& r);
 void resolve_deflection_limits(Resolver& r,
                                const std::vector<const syntax::DeflectionDecl*>& decls);
 

@@ -10,147 +10,10 @@
 #include <map>
 
 #include "resolve/resolve_internal.hpp"
+#include "resolve/resolve_snow_library.hpp"
 
 namespace firn::resolve_detail {
 namespace {
-
-/// The settings of one block by key, each given once, keys checked against a list.
-class Settings {
-  public:
-    Settings(Resolver& r, const std::vector<syntax::Setting>& settings,
-             std::vector<std::string> keys, const char* owner)
-        : r_(r) {
-        for (const syntax::Setting& s : settings) {
-            if (std::find(keys.begin(), keys.end(), s.key.text) == keys.end()) {
-                r.diagnostics.error(
-                    s.key.where,
-                    fmt::format("unknown setting '{}' of {}; expected {}{}", s.key.text, owner,
-                                fmt::join(keys, ", "), did_you_mean(s.key.text, keys)));
-                continue;
-            }
-            auto [it, fresh] = by_key_.emplace(s.key.text, &s);
-            if (!fresh) {
-                Diagnostic& d = r.diagnostics.error(s.key.where,
-                                                    fmt::format("'{}' is given twice", s.key.text));
-                d.note(it->second->key.where, "first given here");
-            }
-        }
-    }
-
-    const syntax::Setting* find(const std::string& key) const {
-        auto it = by_key_.find(key);
-        return it == by_key_.end() ? nullptr : it->second;
-    }
-
-    /// A word among `choices` (an enumerated setting), or nullopt after an error.
-    std::optional<std::string> word(const std::string& key,
-                                    const std::vector<std::string>& choices) {
-        const syntax::Setting* s = find(key);
-        if (s == nullptr)
-            return std::nullopt;
-        no_reason(*s);
-        bool is_word = s->value.kind == syntax::Expr::Kind::constant;
-        if (is_word && std::find(choices.begin(), choices.end(), s->value.literal) != choices.end())
-            return s->value.literal;
-        std::string found = is_word ? fmt::format("'{}'", s->value.literal) : "a value";
-        r_.diagnostics.error(
-            s->value.where,
-            fmt::format("{} is one of {}; found {}{}", key, fmt::join(choices, ", "), found,
-                        is_word ? did_you_mean(s->value.literal, choices) : ""));
-        return std::nullopt;
-    }
-
-    /// Sets `out` to a quantity of the expected dimension and returns true; false
-    /// when the setting is missing or has an error (reported).
-    bool value(const std::string& key, const Expected& expected, double& out,
-               bool reason_allowed = false) {
-        const syntax::Setting* s = find(key);
-        if (s == nullptr)
-            return false;
-        if (!reason_allowed)
-            no_reason(*s);
-        auto v = r_.value(s->value, expected);
-        if (!v || !r_.within(s->value, *v, kMaxMagnitude, "value"))
-            return false;
-        out = *v;
-        return true;
-    }
-
-  private:
-    void no_reason(const syntax::Setting& s) {
-        if (s.reason) {
-            r_.diagnostics.error(s.reason_where,
-                                 fmt::format("'because' gives the reason for overriding a factor "
-                                             "(Ce, Ct or Is); '{}' is not one",
-                                             s.key.text));
-        }
-    }
-
-    Resolver& r_;
-    std::map<std::string, const syntax::Setting*> by_key_;
-};
-
-inline constexpr Expected kPressure{dim::pressure, "a pressure", "40 psf"};
-inline constexpr Expected kNumber{dim::number, "a plain number", "1.1"};
-
-/// Reads library values of the standard, reporting each one it lacks once.
-class Library {
-  public:
-    Library(Resolver& r, std::string standard, SourceRange where)
-        : r_(r), standard_(std::move(standard)), where_(where) {}
-
-    std::optional<double> get(const std::string& name, Dimension dimension) {
-        std::string full = fmt::format("{}.{}", standard_, name);
-        auto q = r_.constants.lookup(full, r_.diagnostics);
-        if (!q && r_.constants.has(full)) {
-            ok_ = false;  // the value has an error of its own, reported where it is
-            return std::nullopt;
-        }
-        if (!q) {
-            r_.diagnostics.error(where_, fmt::format("the library lacks the value '{}' (is "
-                                                     "'use {}' missing?)",
-                                                     full, standard_));
-            ok_ = false;
-            return std::nullopt;
-        }
-        if (!(q->dimension == dimension)) {
-            r_.diagnostics.error(where_, fmt::format("the library value '{}' should be {}", full,
-                                                     describe(dimension)));
-            ok_ = false;
-            return std::nullopt;
-        }
-        return q->value;
-    }
-    double need(const std::string& name, Dimension dimension) {
-        return get(name, dimension).value_or(0.0);
-    }
-    /// A text of the standard: its edition, a clause.
-    std::string text(const std::string& name) {
-        std::string full = fmt::format("{}.{}", standard_, name);
-        if (auto t = r_.constants.text(full))
-            return *t;
-        r_.diagnostics.error(where_, r_.constants.has(full)
-                                         ? fmt::format("the library value '{}' should be a text "
-                                                       "in double quotes",
-                                                       full)
-                                         : fmt::format("the library lacks the text '{}' (is "
-                                                       "'use {}' missing?)",
-                                                       full, standard_));
-        ok_ = false;
-        return {};
-    }
-    bool has(const std::string& name) {
-        return r_.constants.lookup(fmt::format("{}.{}", standard_, name), r_.diagnostics)
-            .has_value();
-    }
-    bool ok() const { return ok_; }
-
-  private:
-    Resolver& r_;
-    std::string standard_;
-    SourceRange where_;
-    bool ok_ = true;
-};
 
 /// `items` split at each "; ".
 std::vector<std::string> split_list(const std::string& items) {
@@ -199,7 +62,9 @@ void read_citations(Library& lib, SnowTables& t) {
 SnowTables read_tables(Library& lib) {
     SnowTables t;
     t.pf_factor = lib.need("pf.factor", dim::number);
-    t.pm_pg_limit = lib.need("pm.pg_limit", dim::pressure);
+    read_edition_switches(lib, t);
+    if (!t.pm_cap_per_risk_category)
+        t.pm_pg_limit = lib.need("pm.pg_limit", dim::pressure);
     t.pm_max_slope = lib.need("pm.max_slope", dim::number);
     static const std::array<const char*, 3> curves{"warm", "cold_ventilated", "cold"};
     for (std::size_t c = 0; c < curves.size(); ++c) {
@@ -216,8 +81,10 @@ SnowTables read_tables(Library& lib) {
     t.density_base = lib.need("density.base", dim::unit_weight);
     t.density_max = lib.need("density.max", dim::unit_weight);
     t.drift_coefficient = lib.need("drift.coefficient", dim::number);
-    t.drift_pg_offset = lib.need("drift.pg_offset", dim::pressure);
-    t.drift_offset = lib.need("drift.offset", dim::length);
+    if (!t.drift_winter_wind) {
+        t.drift_pg_offset = lib.need("drift.pg_offset", dim::pressure);
+        t.drift_offset = lib.need("drift.offset", dim::length);
+    }
     t.drift_min_lu = lib.need("drift.min_lu", dim::length);
     t.partial_gable_exempt_rise = lib.need("partial.gable_exempt_rise", dim::number);
     t.adjacent_max_gap = lib.need("adjacent.max_gap", dim::length);
@@ -234,6 +101,7 @@ SnowTables read_tables(Library& lib) {
     t.sliding_min_rise_slippery = lib.need("sliding.min_rise_slippery", dim::number);
     t.sliding_min_rise_other = lib.need("sliding.min_rise_other", dim::number);
     read_citations(lib, t);
+    read_edition_clauses(lib, t);
     return t;
 }
 
@@ -316,9 +184,11 @@ std::optional<SnowFactor> exposure_factor(Resolver& r, Settings& s, Library& lib
 }
 
 void resolve_site(Resolver& r, const syntax::SnowDecl& decl) {
-    Settings s(r, decl.settings,
-               {"standard", "pg", "terrain", "exposure", "thermal", "risk", "Ce", "Ct", "Is"},
-               "the snow data");
+    std::vector<std::string> keys{"standard", "pg", "terrain", "exposure", "thermal",
+                                  "risk",     "Ce", "Ct",      "Is"};
+    for (std::string& key : edition_setting_keys())
+        keys.push_back(std::move(key));
+    Settings s(r, decl.settings, keys, "the snow data");
     SnowSite site;
     site.name = decl.name.text;
     site.where = decl.name.where;
@@ -328,41 +198,41 @@ void resolve_site(Resolver& r, const syntax::SnowDecl& decl) {
                             fmt::format("the snow data need their standard, as in: standard = {}",
                                         example_standard(r)));
     }
-    double pg = 0.0;
-    bool pg_ok = s.value("pg", kPressure, pg);
-    if (s.find("pg") == nullptr) {
-        r.diagnostics.error(decl.name.where,
-                            "the snow data need the ground snow load, as in: pg = 40 psf");
-    } else if (pg_ok && pg < 0.0) {
-        r.diagnostics.error(s.find("pg")->value.where,
-                            "the ground snow load pg cannot be negative");
-        pg_ok = false;
-    } else if (pg_ok) {
-        warn_implausible_ground_snow(r, s.find("pg")->value.where, pg);
-    }
     site.terrain = s.word("terrain", kTerrains).value_or("");
     site.exposure = s.word("exposure", kExposures).value_or("");
     site.thermal = s.word("thermal", kThermal).value_or("");
     site.risk = s.word("risk", kRisk).value_or("");
-    if (!standard || !pg_ok)
+    if (!standard)
         return;
     site.standard = *standard;
-    site.pg = pg;
     SourceRange lib_where = s.find("standard")->value.where;
     Library lib(r, site.standard, lib_where);
     site.tables = read_tables(lib);
+    if (!lib.ok())
+        return;
+    SourceRange pg_where;
+    if (!ground_snow_load(r, s, site.tables, site.risk, decl.name.where, site.pg, pg_where))
+        return;
+    warn_implausible_ground_snow(r, pg_where, site.pg);
     auto Ce = exposure_factor(r, s, lib, site, decl.name.where);
-    auto Ct = factor(r, s, lib, "Ct", lib.text("clause.Ct"),
+    bool edition_ok = resolve_edition_site(r, s, lib, site);
+    auto Ct =
+        thermal_factor_from_model(lib, site)
+            ? (site.Ct.value > 0.0 ? std::optional<SnowFactor>(site.Ct) : std::nullopt)
+            : factor(r, s, lib, "Ct", lib.text("clause.Ct"),
                      {{"thermal", "heated, cold_ventilated, unheated, freezer or greenhouse"}},
                      site.thermal, decl.name.where);
-    auto Is = factor(r, s, lib, "Is", lib.text("clause.Is"), {{"risk", "I, II, III or IV"}},
-                     site.risk, decl.name.where);
-    if (!Ce || !Ct || !Is || !lib.ok())
+    auto Is = site.tables.importance_applies
+                  ? factor(r, s, lib, "Is", lib.text("clause.Is"), {{"risk", "I, II, III or IV"}},
+                           site.risk, decl.name.where)
+                  : std::optional<SnowFactor>(SnowFactor{1.0, "", ""});
+    if (!Ce || !Ct || !Is || !edition_ok || !lib.ok())
         return;
     site.Ce = *Ce;
     site.Ct = *Ct;
     site.Is = *Is;
-    r.model.snow = std::move(site);
+    if (choose_slope_curve(r, lib, site))
+        r.model.snow = std::move(site);
 }
 
 /// The roof's members ordered along the surface from its left end, or nullopt
