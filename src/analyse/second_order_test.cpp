@@ -1,5 +1,9 @@
 // Second-order combinations against closed forms of the beam-column and of
 // elastic stability (sources beside each check; keys in tests/SOURCES.md).
+// The AISC 360-16 Commentary Chapter C benchmark problems (a cantilever and a
+// simply supported beam-column) were not found with their tabulated values in
+// a source we could cite; the two tests below on those cases check the closed
+// forms the benchmarks are built from instead, to 1e-6.
 #include <catch2/catch.hpp>
 #include <cmath>
 
@@ -207,6 +211,89 @@ TEST_CASE("a cantilever column bracing a leaning column", "[second order][critic
     }
     double critical = lo * lo * EI / (h * h);
     CHECK(r.second.outcome.critical_factor * p == Approx(critical).epsilon(1e-6));
+}
+
+/// A portal: fixed column bases 6 m apart, columns 4 m, a stiff beam; gravity
+/// p on each column top and a lateral load at the left top.
+struct Portal {
+    ModelBuilder b;
+    NodeId left_top{}, right_top{};
+    CaseId gravity{}, wind{};
+    Portal(double p, double lateral) {
+        SectionId column = b.section(b.material(E), 10.0, I);
+        SectionId beam = b.section(b.material(E), 10.0, 100.0 * I);
+        NodeId lb = b.node("LB", 0.0, 0.0), rb = b.node("RB", 6.0, 0.0);
+        left_top = b.node("LT", 0.0, 4.0);
+        right_top = b.node("RT", 6.0, 4.0);
+        b.support(lb, Support::Kind::fixed);
+        b.support(rb, Support::Kind::fixed);
+        b.member("left", lb, left_top, column);
+        b.member("right", rb, right_top, column);
+        b.member("beam", left_top, right_top, beam);
+        gravity = b.load_case("gravity");
+        b.nodal(gravity, left_top, 0.0, -p, 0.0);
+        b.nodal(gravity, right_top, 0.0, -p, 0.0);
+        wind = b.load_case("wind");
+        b.nodal(wind, left_top, lateral, 0.0, 0.0);
+    }
+};
+
+TEST_CASE("a portal's sway amplification against the story amplifier", "[second order]") {
+    // AISC 360-16 Appendix 8, Eqs. A-8-6 and A-8-7: B2 = 1 / (1 - P_story /
+    // P_e,story), P_e,story = R_M H L / Delta_H with R_M = 0.85 for a moment
+    // frame. B2 is an approximation; the 5 % held here is our own allowance,
+    // not a number of the standard. The amplifier from the critical load factor,
+    // 1 / (1 - 1 / lambda_cr) (AISC 360-16 Commentary C2, from memory), too.
+    double lateral = 10e3, h = 4.0;
+    double euler = pi * pi * EI / (h * h);  // per column, fixed base, rigid beam: K = 1
+    for (double share : {0.1, 0.3, 0.5}) {
+        double p = share * euler;
+        Portal portal(p, lateral);
+        testing::Analysis first = testing::analyse(portal.b.model);
+        testing::require_solved(first);
+        double drift1 = first.displacement(portal.wind, portal.left_top, dof_x);
+        Run r = run_second_order(portal.b.model);
+        REQUIRE(r.diagnostics.error_count() == 0);
+        double drift2 = r.second.results.displacements[at(portal.left_top)][dof_x];
+        double story = 0.85 * lateral * h / drift1;
+        double b2 = 1.0 / (1.0 - 2.0 * p / story);
+        CHECK(drift2 / drift1 == Approx(b2).epsilon(0.05));
+        CHECK(drift2 / drift1 == Approx(r.second.outcome.amplification).epsilon(0.05));
+        // Both columns sway together at K = 1 (Timoshenko & Gere, Sec. 2.3;
+        // the beam is 100 times stiffer than a column, so K is 1 within 1 %).
+        CHECK(r.second.outcome.critical_factor * p == Approx(euler).epsilon(0.01));
+    }
+}
+
+TEST_CASE("notional loads and reduced stiffness", "[second order]") {
+    // AISC 360-16 C2.2b: N_i = 0.002 alpha Y_i at each level (alpha = 1, LRFD);
+    // C2.3: 0.8 tau_b EI and 0.8 EA. With both stiffnesses scaled by 0.8 the
+    // critical load factor scales by 0.8 exactly (K(0.8 E, N) = 0.8 K(E, N / 0.8)).
+    double p = 200e3;
+    Portal portal(p, 0.0);
+    SecondOrderOptions plain;
+    Run r1 = run_second_order(portal.b.model, plain);
+    SecondOrderOptions direct;
+    direct.notional_factor = 0.002;
+    direct.flexural_factor = 0.8;
+    direct.axial_factor = 0.8;
+    Run r2 = run_second_order(portal.b.model, direct);
+    REQUIRE(r1.diagnostics.error_count() == 0);
+    REQUIRE(r2.diagnostics.error_count() == 0);
+    SecondOrderOptions reduced = direct;
+    reduced.notional_factor = 0.0;  // notional loads would shift the axial forces a little
+    Run r3 = run_second_order(portal.b.model, reduced);
+    CHECK(r3.second.outcome.critical_factor ==
+          Approx(0.8 * r1.second.outcome.critical_factor).epsilon(1e-8));
+    const auto& notional = r2.second.outcome.notional;
+    CHECK(notional[at(portal.left_top)] == Approx(0.002 * p));
+    CHECK(notional[at(portal.right_top)] == Approx(0.002 * p));
+    // Statics: the bases resist the notional loads, 0.002 of the gravity load.
+    const auto& reactions = r2.second.results.reactions;
+    CHECK(reactions[0][dof_x] + reactions[1][dof_x] == Approx(-0.004 * p));
+    CHECK(reactions[0][dof_y] + reactions[1][dof_y] == Approx(2.0 * p));
+    // Without notional loads a symmetric frame under gravity does not sway.
+    CHECK(std::abs(r1.second.results.displacements[at(portal.left_top)][dof_x]) < 1e-12);
 }
 
 TEST_CASE("a combination beyond the critical load is refused", "[second order][critical]") {
