@@ -82,6 +82,15 @@ SecondOrderResults solve_second_order(const Model& model, const LoadSet& loads,
                                       const SecondOrderOptions& options, const SourceRange& where,
                                       Diagnostics& diagnostics);
 
+/// The envelopes of combinations each solved to second order, and each one's
+/// outcome (in `outcomes`). Empty envelopes when any combination fails (its
+/// error is reported at `where`).
+Envelopes compute_second_order_envelopes(const Model& model, const LoadSet& loads,
+                                         std::span<const Combination> combinations,
+                                         const SecondOrderOptions& options,
+                                         const SourceRange& where, Diagnostics& diagnostics,
+                                         std::vector<SecondOrderOutcome>& outcomes);
+
 /// The smallest factor on the members' axial forces `axial` (per member, N,
 /// tension positive) at which the frame's stiffness with stability functions
 /// is singular; infinity when nothing is in compression or beyond 1e8.

@@ -185,8 +185,10 @@ void keep_magnitude(Extreme& e, double v, double x, double tie) {
 
 }  // namespace
 
-MemberSummary summarize(const BeamColumnFunctions& f) {
+MemberSummary summarize(const BeamColumnFunctions& f, SignedExtremes* extremes) {
     MemberSummary s;
+    if (extremes != nullptr)
+        *extremes = SignedExtremes{};
     const BeamColumnPiece& first = f.pieces.front();
     const BeamColumnPiece& last = f.pieces.back();
     std::array<double, 4> start = values_of(f, first, 0.0);
@@ -210,6 +212,12 @@ MemberSummary summarize(const BeamColumnFunctions& f) {
         keep_max(s.axial_max, v[f_axial], x, tie[f_axial]);
         keep_min(s.axial_min, v[f_axial], x, tie[f_axial]);
         keep_magnitude(s.deflection_max, v[f_deflection], x, tie[f_deflection]);
+        if (extremes == nullptr)
+            continue;
+        for (std::size_t i = 0; i < 4; ++i) {
+            keep_max(extremes->max[i], v[i], x, tie[i]);
+            keep_min(extremes->min[i], v[i], x, tie[i]);
+        }
     }
     return s;
 }

@@ -6,6 +6,7 @@
 #include <span>
 
 #include "analyse/element.hpp"
+#include "analyse/results_internal.hpp"
 #include "ir/load_set.hpp"
 #include "ir/results.hpp"
 #include "ir/second_order.hpp"
@@ -31,6 +32,8 @@ BeamColumnFunctions build_beam_column(const ElementProperties& e, double axial,
 /// sampling each piece's derivative at steps of at most a sixteenth of pi / k
 /// (k = sqrt|lambda|; at least 16 steps) and refining every sign change by
 /// bisection to round-off; the samples and piece ends are candidates too.
-MemberSummary summarize(const BeamColumnFunctions& f);
+/// With `extremes`, also the signed largest and smallest value of each
+/// function, for envelopes.
+MemberSummary summarize(const BeamColumnFunctions& f, SignedExtremes* extremes = nullptr);
 
 }  // namespace firn

@@ -363,7 +363,8 @@ Equilibrium force_equilibrium(const Frame& f, const std::vector<std::array<doubl
     return e;
 }
 
-CaseResults results_of(const Model& model, const Frame& f, const Iterate& it) {
+CaseResults results_of(const Model& model, const Frame& f, const Iterate& it,
+                       std::vector<SignedExtremes>& extremes) {
     CaseResults out;
     out.displacements.resize(model.nodes.size());
     for (std::size_t n = 0; n < model.nodes.size(); ++n) {
@@ -372,12 +373,13 @@ CaseResults results_of(const Model& model, const Frame& f, const Iterate& it) {
     }
     out.reactions = reactions_of(model, f, it);
     out.members.resize(f.members.size());
+    extremes.resize(f.members.size());
     for (std::size_t m = 0; m < f.members.size(); ++m) {
         const MemberInfo& info = f.members[m];
         BeamColumnFunctions fn =
             build_beam_column(info.properties, it.used[m], f.spread[m], f.points[m],
                               it.ends[m].displacements, it.ends[m].forces);
-        out.members[m] = summarize(fn);
+        out.members[m] = summarize(fn, &extremes[m]);
     }
     out.equilibrium = force_equilibrium(f, out.reactions);
     return out;
@@ -449,7 +451,7 @@ SecondOrderResults solve_second_order(const Model& model, const LoadSet& loads,
     out.outcome.critical_factor = critical_factor_of(f, it.used);
     double lcr = out.outcome.critical_factor;
     out.outcome.amplification = std::isfinite(lcr) && lcr > 1.0 ? 1.0 / (1.0 - 1.0 / lcr) : 1.0;
-    out.results = results_of(model, f, it);
+    out.results = results_of(model, f, it, out.extremes);
     return out;
 }
 

@@ -6,30 +6,16 @@
 // displacements settle to the tolerance.
 #pragma once
 
+#include <array>
 #include <cstddef>
 #include <limits>
 #include <vector>
 
 #include "base/polynomial.hpp"
 #include "ir/results.hpp"
+#include "ir/second_order_options.hpp"
 
 namespace firn {
-
-/// How second-order combinations are analysed.
-struct SecondOrderOptions {
-    /// Converged when the largest change of a member's axial force and of a
-    /// node displacement between two iterations, each relative to the largest
-    /// value of its kind, are both at most this.
-    double tolerance = 1e-9;
-    std::size_t max_iterations = 50;
-    /// Notional load at each node: this times the vertical load there, along
-    /// global x times notional_direction (AISC 360-16 C2.2b: 0.002 alpha).
-    double notional_factor = 0.0;
-    double notional_direction = 1.0;
-    /// Factors on every member's E I and E A (AISC 360-16 C2.3: 0.8 tau_b, 0.8).
-    double flexural_factor = 1.0;
-    double axial_factor = 1.0;
-};
 
 /// One piece [a, b] of a member under second-order effects; t = s - a. With
 /// lambda = -N/EI (N the member's constant axial force for P-delta) and qy =
@@ -68,10 +54,17 @@ struct SecondOrderOutcome {
     std::vector<double> notional;  ///< per node: the notional load added along global x, N
 };
 
+/// The signed largest and smallest value of N, V, M and deflection along a
+/// member (in that order), for envelopes.
+struct SignedExtremes {
+    std::array<Extreme, 4> max, min;
+};
+
 /// A second-order combination: its results as for a case, and the outcome.
 struct SecondOrderResults {
     CaseResults results;
     SecondOrderOutcome outcome;
+    std::vector<SignedExtremes> extremes;  ///< per member
 };
 
 }  // namespace firn
