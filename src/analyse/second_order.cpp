@@ -29,7 +29,11 @@ namespace firn {
 namespace {
 
 using SparseMatrix = Eigen::SparseMatrix<double, Eigen::ColMajor, int>;
-using Factor = Eigen::SimplicialLDLT<SparseMatrix, Eigen::Lower>;
+/// The one factorization of a worker, with its pattern analysed once.
+struct Factor {
+    Eigen::SimplicialLDLT<SparseMatrix, Eigen::Lower> ldlt;
+    bool analysed = false;
+};
 
 constexpr std::int64_t no_equation = -1;
 
@@ -144,7 +148,9 @@ SparseMatrix assemble(const Frame& f, const std::vector<double>& axial, double s
         const auto& eq = f.member_equation[m];
         for (std::size_t i = 0; i < 6; ++i) {
             for (std::size_t j = 0; j < 6; ++j) {
-                if (eq[i] == no_equation || eq[j] == no_equation || eq[i] < eq[j] || k[i][j] == 0.0)
+                // Zeros are kept: every assembly then has the same pattern, which is
+                // ordered and analysed once per combination (see factor_positive).
+                if (eq[i] == no_equation || eq[j] == no_equation || eq[i] < eq[j])
                     continue;
                 triplets.emplace_back(static_cast<int>(eq[i]), static_cast<int>(eq[j]), k[i][j]);
             }
@@ -176,10 +182,14 @@ bool members_below_buckling(const Frame& f, const std::vector<double>& axial, do
 bool factor_positive(const SparseMatrix& k, Factor& factor) {
     if (k.rows() == 0)
         return true;
-    factor.compute(k);
-    if (factor.info() != Eigen::Success)
+    if (!factor.analysed) {
+        factor.ldlt.analyzePattern(k);
+        factor.analysed = true;
+    }
+    factor.ldlt.factorize(k);
+    if (factor.ldlt.info() != Eigen::Success)
         return false;
-    Eigen::VectorXd d = factor.vectorD();
+    Eigen::VectorXd d = factor.ldlt.vectorD();
     for (Eigen::Index i = 0; i < d.size(); ++i) {
         if (!(d[i] > 0.0))
             return false;
@@ -392,7 +402,7 @@ bool solve_once(const Frame& f, const std::vector<double>& axial, Factor& factor
         return false;
     std::vector<ElementVector> consistent;
     Eigen::VectorXd r = load_vector(f, axial, consistent);
-    Eigen::VectorXd u = f.count == 0 ? r : Eigen::VectorXd(factor.solve(r));
+    Eigen::VectorXd u = f.count == 0 ? r : Eigen::VectorXd(factor.ldlt.solve(r));
     out = ends_of(f, axial, node_displacements(f, u), std::move(consistent));
     return true;
 }
