@@ -296,6 +296,38 @@ TEST_CASE("notional loads and reduced stiffness", "[second order]") {
     CHECK(std::abs(r1.second.results.displacements[at(portal.left_top)][dof_x]) < 1e-12);
 }
 
+TEST_CASE("a member hinged at one end keeps no moment there under axial force", "[second order]") {
+    // Propped cantilever (fixed left, released right end on a roller) under w:
+    // at N = 0, M_fixed = -wL^2/8 and R_roller = 3wL/8 (tests/SOURCES.md,
+    // propped cantilever [C: S21]); under compression the released end still
+    // carries no moment, the fixed-end moment grows, and the vertical forces
+    // still balance the load (statics, common practice).
+    double span = 6.0, w = 10e3;
+    for (double p : {0.0, 0.3 * pi * pi * EI / (span * span)}) {
+        ModelBuilder b;
+        SectionId s = b.section(b.material(E), A, I);
+        NodeId left = b.node("L", 0.0, 0.0), right = b.node("R", span, 0.0);
+        b.support(left, Support::Kind::fixed);
+        b.support(right, Support::Kind::roller_free_x);
+        MemberId beam = b.member("beam", left, right, s, false, true);
+        CaseId c = b.load_case("load");
+        b.uniform(c, beam, LoadDirection::down, w);
+        b.nodal(c, right, -p, 0.0, 0.0);
+        Run r = run_second_order(b.model);
+        REQUIRE(r.diagnostics.error_count() == 0);
+        const MemberSummary& m = r.second.results.members[at(beam)];
+        CHECK(m.end[2] == Approx(0.0).margin(1e-6 * w * span * span));
+        CHECK(r.second.results.reactions[0][dof_y] + r.second.results.reactions[1][dof_y] ==
+              Approx(w * span).epsilon(1e-12));
+        if (p == 0.0) {
+            CHECK(m.start[2] == Approx(-w * span * span / 8.0).epsilon(1e-9));
+            CHECK(r.second.results.reactions[1][dof_y] == Approx(3.0 * w * span / 8.0));
+        } else {
+            CHECK(std::abs(m.start[2]) > w * span * span / 8.0);  // compression adds moment
+        }
+    }
+}
+
 TEST_CASE("a combination beyond the critical load is refused", "[second order][critical]") {
     // The cantilever's Euler load pi^2 EI / 4h^2 (Timoshenko & Gere, Sec. 2.1):
     // 1.25 times it must stop with the factor 0.8.
