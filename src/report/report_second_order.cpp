@@ -19,7 +19,8 @@ void write_intro(std::string& out, const CombineChoice& choice) {
         "of the frame's sway and P-delta along each member (exact stability functions of the\n"
         "member under its axial force), iterated on the axial forces. Its envelopes, reactions\n"
         "and displacements below come from these solutions, not from superposition; the load\n"
-        "case sections above are first-order.\n";
+        "case sections above are first-order. Their equilibrium line checks forces only: the\n"
+        "moments balance about the deflected shape, which the check does not rebuild.\n";
     out += fmt::format("Tolerance {:g} (relative change per iteration), at most {} iterations.\n",
                        o.tolerance, o.max_iterations);
     if (o.notional_factor > 0.0) {
