@@ -16,6 +16,7 @@
 #include "ir/mirror.hpp"
 #include "ir/model.hpp"
 #include "ir/results.hpp"
+#include "ir/second_order.hpp"
 #include "ir/solution.hpp"
 #include "ir/stations.hpp"
 
@@ -71,5 +72,29 @@ Mirror find_mirror(const Model& model, const LoadSet& loads);
 /// Where a value jumps (a point load), the value just before the point is used.
 Stations compute_stations(const Model& model, const LoadSet& loads, const Solution& solution,
                           std::size_t per_member);
+
+/// Solves one combination with second-order effects (P-Delta and P-delta,
+/// notional loads and stiffness factors of `options`), iterating on the axial
+/// forces. A combination beyond the frame's critical load, or one that does
+/// not converge, is an error at `where` naming it; its results are then empty.
+SecondOrderResults solve_second_order(const Model& model, const LoadSet& loads,
+                                      const Combination& combination,
+                                      const SecondOrderOptions& options, const SourceRange& where,
+                                      Diagnostics& diagnostics);
+
+/// The envelopes of combinations each solved to second order, and each one's
+/// outcome (in `outcomes`). Empty envelopes when any combination fails (its
+/// error is reported at `where`).
+Envelopes compute_second_order_envelopes(const Model& model, const LoadSet& loads,
+                                         std::span<const Combination> combinations,
+                                         const SecondOrderOptions& options,
+                                         const SourceRange& where, Diagnostics& diagnostics,
+                                         std::vector<SecondOrderOutcome>& outcomes);
+
+/// The smallest factor on the members' axial forces `axial` (per member, N,
+/// tension positive) at which the frame's stiffness with stability functions
+/// is singular; infinity when nothing is in compression or beyond 1e8.
+double critical_load_factor(const Model& model, const std::vector<double>& axial,
+                            const SecondOrderOptions& options = {});
 
 }  // namespace firn

@@ -42,9 +42,17 @@ std::vector<Sheet> draw_sheets(const Analysis& a, const DrawOptions& options,
     std::vector<std::size_t> combinations = matching(
         options.combinations, list.size(), [&](std::size_t i) { return list[i].name; },
         "combination", errors);
+    // The diagrams are drawn from first-order member functions; a set solved to
+    // second order would be drawn with the wrong curves, so it is not drawn at
+    // all (its values are in the report) until the diagrams learn its functions.
+    bool second_order = model.combine && model.combine->second_order;
+    if (second_order && !options.combinations.empty())
+        errors.push_back(
+            "combinations solved to second order have no diagrams yet; their "
+            "values are in the report");
     if (!errors.empty())
         return {};
-    bool envelopes = options.envelopes && !a.combinations.sets.empty();
+    bool envelopes = options.envelopes && !a.combinations.sets.empty() && !second_order;
     // Without combinations there is no envelope: show each case instead, as long as
     // the user did not pick some.
     if (a.combinations.sets.empty() && options.cases.empty() && options.combinations.empty()) {

@@ -334,5 +334,22 @@ TEST_CASE("sheet file stems", "[draw]") {
     CHECK(draw::file_stem("..") == "_..");
 }
 
+TEST_CASE("draw: sets solved to second order are not drawn with first-order curves", "[draw]") {
+    // The diagrams come from first-order member functions; a second-order set
+    // gets no envelope sheets, and asking for its combinations is an error.
+    std::string path = std::string(FIRN_SOURCE_DIR) + "/tests/golden/second_order_shelter.firn";
+    std::string text, error;
+    REQUIRE(read_file(path, text, error));
+    Analysis a = analyse(text);
+    for (const Sheet& s : sheets_of(a))
+        CHECK(s.path.rfind("diagrams/", 0) != 0);
+    DrawOptions options;
+    options.combinations = {"*"};
+    std::vector<std::string> errors;
+    CHECK(draw_sheets(a, options, errors).empty());
+    CHECK(errors == std::vector<std::string>{"combinations solved to second order have no "
+                                             "diagrams yet; their values are in the report"});
+}
+
 }  // namespace
 }  // namespace firn

@@ -1,6 +1,7 @@
 // driver: parse -> resolve -> derive -> names -> loads -> solve -> results -> checks.
 #include "driver/driver.hpp"
 
+#include <fmt/format.h>
 #include <algorithm>
 #include <chrono>
 #include <iterator>
@@ -34,6 +35,25 @@ class Stopwatch {
   private:
     std::chrono::steady_clock::time_point last_ = std::chrono::steady_clock::now();
 };
+
+/// The warning the combine statement asks for (critical_factor_warning): a
+/// combination that the frame carries, but with little margin to buckling.
+void warn_low_critical_factors(const Model& model, std::span<const Combination> combinations,
+                               const std::vector<SecondOrderOutcome>& outcomes,
+                               Diagnostics& diagnostics) {
+    double limit = model.combine->critical_factor_warning;
+    for (std::size_t k = 0; k < outcomes.size() && k < combinations.size(); ++k) {
+        const SecondOrderOutcome& o = outcomes[k];
+        if (!o.converged || !(o.critical_factor < limit))
+            continue;
+        diagnostics.warning(
+            model.combine->where,
+            fmt::format("combination '{}' has a critical load factor of {:.2f}, "
+                        "below the {:g} stated; second-order effects amplify its "
+                        "sway about {:.2f} times",
+                        combinations[k].name, o.critical_factor, limit, o.amplification));
+    }
+}
 
 }  // namespace
 
@@ -85,10 +105,20 @@ Analysis analyse_text(std::string name, std::string text, PhaseTimes* times,
     t.results = clock.lap();
     a.combinations = expand_combinations(a.model);
     for (const CombinationList::SetRange& set : a.combinations.sets) {
-        a.envelopes.push_back(compute_envelopes(
-            a.model, a.loads, a.solution, a.results,
-            std::span(a.combinations.combinations).subspan(set.first, set.count)));
+        auto combinations = std::span(a.combinations.combinations).subspan(set.first, set.count);
+        a.second_order.emplace_back();
+        if (a.model.combine && a.model.combine->second_order) {
+            a.envelopes.push_back(compute_second_order_envelopes(
+                a.model, a.loads, combinations, a.model.combine->second_order_options,
+                a.model.combine->where, a.diagnostics, a.second_order.back()));
+            warn_low_critical_factors(a.model, combinations, a.second_order.back(), a.diagnostics);
+        } else {
+            a.envelopes.push_back(
+                compute_envelopes(a.model, a.loads, a.solution, a.results, combinations));
+        }
     }
+    if (a.diagnostics.has_errors())
+        return a;
     a.deflections = check_deflections(a.model, a.loads, a.solution, a.results);
     t.combinations = clock.lap();
     a.expectations = check_expectations(

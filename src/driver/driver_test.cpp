@@ -1,8 +1,11 @@
 // Tests of the driver's order: the names expectations use are checked against the
 // declared and derived cases and values before anything is solved.
 #include <catch2/catch.hpp>
+#include <cmath>
+#include <span>
 #include <string>
 
+#include "analyse/analyse.hpp"
 #include "driver/driver.hpp"
 #include "testing/test_text.hpp"
 
@@ -75,4 +78,67 @@ TEST_CASE("driver: expectations may name the derived cases and values", "[driver
     CHECK(a.model.cases.front().name == "S.balanced");
     CHECK(a.derivation.cases.empty());
     CHECK(a.results.cases.size() == a.model.cases.size());
+}
+
+namespace {
+
+/// A portal under dead and snow load whose strength combinations are solved to second order.
+std::string second_order_frame(const std::string& settings) {
+    return "model \"shed\"\nreport units kip, ft\ngrid x A..B spacing 24 ft\n"
+           "grid y base = 0 ft, eave = 16 ft\nmaterial steel E = 29000 ksi\n"
+           "section post steel, A = 9.12 in2, I = 110 in4\n"
+           "columns on A..B from base to eave section post\n"
+           "beams along eave from A to B section post\nsupport fixed at base\nuse asce7_16\n"
+           "use aisc360_16\ncase D dead {\n  uniform 0.5 kip/ft down on eave.*\n}\n"
+           "case S snow {\n  uniform 1.2 kip/ft down on eave.*\n}\n"
+           "combine asce7_16.strength {\n" +
+           settings + "}\n";
+}
+
+}  // namespace
+
+TEST_CASE("driver: second-order sets are enveloped from each combination's own solve") {
+    // Envelopes work on second-order combinations as on first-order ones: each
+    // combination's results are those of its own second-order solve, and the
+    // envelope takes the furthest of them (statics of the envelope, common practice).
+    Analysis a = analyse_text("input", second_order_frame("  second_order = yes\n  notional = "
+                                                          "aisc360_16.notional\n"));
+    REQUIRE(a.ok);
+    REQUIRE(a.second_order.size() == 1);
+    const Envelopes& env = a.envelopes[0];
+    auto set = std::span(a.combinations.combinations)
+                   .subspan(a.combinations.sets[0].first, a.combinations.sets[0].count);
+    SecondOrderOptions options = a.model.combine->second_order_options;
+    CHECK(options.notional_factor == 0.002);  // AISC 360-16 C2.2b, alpha = 1.0
+    double most = 0.0;
+    for (std::size_t k = 0; k < set.size(); ++k) {
+        Diagnostics d;
+        SecondOrderResults own =
+            solve_second_order(a.model, a.loads, set[k], options, SourceRange{}, d);
+        REQUIRE(own.outcome.converged);
+        CHECK(a.second_order[0][k].critical_factor == own.outcome.critical_factor);
+        CHECK(env.combinations[k].members[0].end[2] == own.results.members[0].end[2]);
+        most = std::min(most, own.results.members[0].moment_min.value);
+    }
+    CHECK(env.members[0].moment_min.value == most);
+    // The second-order moment exceeds the first-order one of the same combination.
+    Analysis first = analyse_text("input", second_order_frame(""));
+    REQUIRE(first.ok);
+    CHECK(std::abs(env.members[0].moment_min.value) >
+          std::abs(first.envelopes[0].members[0].moment_min.value));
+}
+
+TEST_CASE("driver: a low critical load factor is warned of where it is stated") {
+    // The columns' Euler load pi^2 EI / h^2 = 854 kip each (K = 1, an upper bound
+    // for this sway frame; Timoshenko & Gere, Sec. 2.1) against the 60.5 kip of
+    // gravity load of 1.2 D + 1.6 S bounds its critical load factor by 28, so a
+    // stated threshold of 50 must warn.
+    Analysis a = analyse_text(
+        "input", second_order_frame("  second_order = yes\n  critical_factor_warning = 50\n"));
+    REQUIRE(a.ok);
+    bool warned = false;
+    for (const Diagnostic& d : a.diagnostics.all())
+        warned = warned || (d.severity == Severity::warning &&
+                            d.message.find("has a critical load factor of") != std::string::npos);
+    CHECK(warned);
 }

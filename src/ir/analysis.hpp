@@ -12,6 +12,7 @@
 #include "ir/mirror.hpp"
 #include "ir/model.hpp"
 #include "ir/results.hpp"
+#include "ir/second_order.hpp"
 #include "ir/solution.hpp"
 
 namespace firn {
@@ -37,6 +38,9 @@ struct Analysis {
     Results results;
     CombinationList combinations;
     std::vector<Envelopes> envelopes;  ///< per chosen set of combinations
+    /// Per chosen set, each combination's second-order outcome; empty sets when
+    /// the model's combinations are first-order (superposed).
+    std::vector<std::vector<SecondOrderOutcome>> second_order;
     std::vector<DeflectionCheck> deflections;
     std::vector<ExpectationOutcome> expectations;  ///< per `expect`, in statement order
     bool ok = false;

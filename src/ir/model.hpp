@@ -11,6 +11,7 @@
 
 #include "base/diag.hpp"
 #include "base/units.hpp"
+#include "ir/second_order_options.hpp"
 
 namespace firn {
 
@@ -315,6 +316,12 @@ struct CombineChoice {
     std::vector<std::size_t> sets;  ///< into Model::combination_sets
     bool half_live = false;
     std::string half_live_reason;
+    /// `second_order = yes`: every combination of the chosen sets is solved on
+    /// its own with second-order effects (see ir/second_order.hpp).
+    bool second_order = false;
+    SecondOrderOptions second_order_options;
+    /// Warn when a combination's critical load factor is below this (0: never).
+    double critical_factor_warning = 0.0;
     SourceRange where;
 };
 

@@ -451,6 +451,8 @@ void write_text_report(const Model& model, const Results& results, const ReportO
         out.clear();
         write_case(out, model, results, c, options);
     }
+    if (options.combinations != nullptr && options.second_order != nullptr)
+        write_second_order(out, model, *options.combinations, *options.second_order);
     if (options.combinations != nullptr && options.envelopes != nullptr)
         write_envelopes(out, model, *options.combinations, *options.envelopes);
     if (options.deflections != nullptr)
@@ -474,6 +476,7 @@ ReportOptions report_options(const Analysis& a) {
     options.mirror = &a.mirror;
     options.expectations = &a.expectations;
     options.derivation = &a.derivation;
+    options.second_order = &a.second_order;
     return options;
 }
 

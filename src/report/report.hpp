@@ -34,6 +34,8 @@ struct ReportOptions {
     /// decimals finer than the text report).
     bool exact_numbers = false;
     const Derivation* derivation = nullptr;  ///< the snow and arrangement traces
+    /// Per set, each combination's second-order outcome (empty when first-order).
+    const std::vector<std::vector<SecondOrderOutcome>>* second_order = nullptr;
 };
 
 /// Receives a report piece by piece (a piece per load case at most), so a

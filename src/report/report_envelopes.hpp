@@ -7,6 +7,7 @@
 #include "ir/combinations.hpp"
 #include "ir/mirror.hpp"
 #include "ir/model.hpp"
+#include "ir/second_order.hpp"
 
 namespace firn {
 
@@ -19,6 +20,11 @@ void write_combinations(std::string& out, const Model& model, const CombinationL
 /// combination; reactions max and min; the largest displacements.
 void write_envelopes(std::string& out, const Model& model, const CombinationList& list,
                      const std::vector<Envelopes>& envelopes);
+
+/// `== Second-order analysis of SET ==` for each chosen set when the model's
+/// combinations are solved to second order (report_second_order.cpp).
+void write_second_order(std::string& out, const Model& model, const CombinationList& list,
+                        const std::vector<std::vector<SecondOrderOutcome>>& outcomes);
 
 /// `== Deflection checks ==`: per `deflection` statement, each member's worst
 /// case under each column of its row, its deflection, the limit and the ratio.

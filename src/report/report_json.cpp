@@ -318,6 +318,32 @@ Json mirror_json(const Model& model, const Mirror& mirror) {
     return out;
 }
 
+/// Per combination of a set solved to second order: iterations, convergence,
+/// critical load factor (null: none), amplification and the notional load in
+/// total. Null for a set of superposed (first-order) combinations.
+Json second_order_json(const Model& model, const CombinationList& list, std::size_t set,
+                       const ReportOptions& options) {
+    if (options.second_order == nullptr || set >= options.second_order->size() || !model.combine ||
+        !model.combine->second_order)
+        return Json(nullptr);
+    Json out = Json::array();
+    const auto& outcomes = (*options.second_order)[set];
+    for (std::size_t k = 0; k < outcomes.size(); ++k) {
+        const SecondOrderOutcome& o = outcomes[k];
+        double notional = 0.0;
+        for (double n : o.notional)
+            notional += n;
+        out.push_back({{"combination", list.combinations[list.sets[set].first + k].name},
+                       {"iterations", o.iterations},
+                       {"converged", o.converged},
+                       {"critical_factor",
+                        std::isfinite(o.critical_factor) ? Json(o.critical_factor) : Json(nullptr)},
+                       {"amplification", o.amplification},
+                       {"notional", shown(notional, model.units.force)}});
+    }
+    return out;
+}
+
 /// The parts after the cases: mirror images, combinations, envelopes, deflection checks.
 Json checks_json(const Model& model, const ReportOptions& options) {
     Json out = Json::object();
@@ -326,9 +352,14 @@ Json checks_json(const Model& model, const ReportOptions& options) {
     if (options.combinations != nullptr && model.combine) {
         out["combinations"] = combinations_json(model, *options.combinations);
         Json envelopes = Json::array();
-        for (std::size_t s = 0; options.envelopes != nullptr && s < options.envelopes->size(); ++s)
-            envelopes.push_back(
-                envelope_json(model, *options.combinations, s, (*options.envelopes)[s]));
+        for (std::size_t s = 0; options.envelopes != nullptr && s < options.envelopes->size();
+             ++s) {
+            Json e = envelope_json(model, *options.combinations, s, (*options.envelopes)[s]);
+            Json second = second_order_json(model, *options.combinations, s, options);
+            e["analysis"] = second.is_null() ? "first-order" : "second-order";
+            e["second_order"] = std::move(second);
+            envelopes.push_back(std::move(e));
+        }
         out["envelopes"] = std::move(envelopes);
     }
     if (options.deflections != nullptr && !model.deflection_limits.empty())

@@ -211,6 +211,14 @@ void resolve_combinations(Resolver& r, const std::vector<const syntax::Combinati
 void read_deflection_footnotes(Resolver& r);
 /// Refuses a combination set or deflection row of another edition than the snow data's.
 void check_one_edition(Resolver& r);
+
+/// Whether `key` is a second-order setting of `combine` (resolve_second_order.cpp).
+bool is_second_order_setting(const std::string& key);
+/// Reads the second-order settings of the combine statement into `choice`;
+/// false after an error (reported).
+bool resolve_second_order_settings(Resolver& r, const syntax::CombineDecl& decl,
+                                   CombineChoice& choice);
+
 void resolve_deflection_limits(Resolver& r,
                                const std::vector<const syntax::DeflectionDecl*>& decls);
 

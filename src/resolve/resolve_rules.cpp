@@ -114,10 +114,16 @@ void resolve_set(Resolver& r, const syntax::CombinationsDecl& decl, NameTable& n
 /// `half_live = yes because "..."`: the permission to take 0.5 L where the set allows.
 bool read_half_live(Resolver& r, const syntax::CombineDecl& decl, CombineChoice& choice) {
     for (const syntax::Setting& s : decl.settings) {
+        if (is_second_order_setting(s.key.text))
+            continue;  // resolve_second_order.cpp
         if (s.key.text != "half_live") {
             r.diagnostics.error(
                 s.key.where,
-                fmt::format("unknown setting '{}' of combine; expected half_live", s.key.text));
+                fmt::format("unknown setting '{}' of combine; expected half_live, second_order, "
+                            "second_order_tolerance, second_order_iterations, notional, "
+                            "notional_toward, flexural_stiffness, axial_stiffness or "
+                            "critical_factor_warning",
+                            s.key.text));
             return false;
         }
         bool word = s.value.kind == syntax::Expr::Kind::constant;
@@ -151,6 +157,7 @@ void resolve_choice(Resolver& r, const std::vector<const syntax::CombineDecl*>& 
     CombineChoice choice;
     choice.where = decl.sets.front().where;
     bool ok = read_half_live(r, decl, choice);
+    ok = resolve_second_order_settings(r, decl, choice) && ok;
     for (const syntax::Name& name : decl.sets) {
         auto index = set_names.find(name, r.diagnostics);
         if (!index) {
