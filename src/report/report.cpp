@@ -35,7 +35,9 @@ void write_cover(std::string& out, const Model& model) {
 }
 
 void write_header(std::string& out, const Model& model) {
-    out += fmt::format("firn {} report: plane frame, linear static analysis\n", kFirnVersion);
+    bool second_order = model.combine && model.combine->second_order;
+    out += fmt::format("firn {} report: plane frame, linear static analysis{}\n", kFirnVersion,
+                       second_order ? "; combinations to second order (P-Delta, P-delta)" : "");
     out += fmt::format("Model:  {}\n", model.title.empty() ? "(untitled)" : model.title);
     write_cover(out, model);
     out += fmt::format("Source: {}\n", shown_source(model.source_name));
