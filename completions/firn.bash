@@ -12,7 +12,7 @@ _firn() {
     local batch="$common --shard -j --jobs"
     local opts cmd=${words[1]} sub=${words[2]}
     case $cmd in
-    run) opts="$common --format --full --exact-numbers -o --output --warnings-as-errors" ;;
+    run) opts="$common --format --full --summary --combination --exact-numbers -o --output --warnings-as-errors" ;;
     fmt) opts="-h --help --check --stdout" ;;
     check) opts="$batch -v --verbose --warnings-as-errors" ;;
     lsp) opts="$common --stdio" ;;

@@ -507,14 +507,17 @@ struct recover {
 // ---------------------------------------------------------------- blocks and file
 
 // case_stmt   <- 'case' sp name sp case_kind sp '{' sp_nl (load_line sp_nl)* '}'
-// case_kind   <- 'dead' / 'live' / 'roof' sp 'live' / 'snow' / 'wind' / 'other'
+// case_kind   <- 'dead' / 'live' / 'roof' sp 'live' / 'snow' / 'rain' / 'wind' / 'other'
+//                ('rain' is a keyword only here)
 struct kind_dead : kw_dead {};
 struct kind_live : kw_live {};
 struct kind_roof_live : if_must<kw_roof, sp, kw_live> {};
 struct kind_snow : kw_snow {};
+struct kind_rain : TAO_PEGTL_KEYWORD("rain") {};
 struct kind_wind : kw_wind {};
 struct kind_other : kw_other {};
-struct case_kind : sor<kind_dead, kind_live, kind_roof_live, kind_snow, kind_wind, kind_other> {};
+struct case_kind
+    : sor<kind_dead, kind_live, kind_roof_live, kind_snow, kind_rain, kind_wind, kind_other> {};
 struct case_name : name {};
 struct block_open : one<'{'> {};
 struct block_close : one<'}'> {};
@@ -560,8 +563,10 @@ struct projection_stmt : if_must<projection_begin, sp, projection_name, sp, proj
 
 // ---------------------------------------------------------------- combinations
 
-// combinations_stmt <- 'combinations' sp name sp '{' sp_nl (combination_item sp_nl)* '}'
-//                a named set of load combinations over the load symbols D, L, Lr, S, R, W
+// combinations_stmt <- 'combinations' sp name sp ('by' sp 'case' sp)? '{' sp_nl
+//                      (combination_item sp_nl)* '}'
+//                a named set of load combinations over the load symbols D, L, Lr, S, R, W;
+//                with 'by case', over the load cases by name
 // combination_line  <- name sp '=' sp combination_term (sp '+' sp_nl combination_term)*
 // combination_term  <- (number sp)? (symbol / '(' sp alternative (sp 'or' sp alternative)* sp ')')
 // alternative       <- (number sp)? symbol
@@ -576,7 +581,11 @@ struct alternatives : if_must<alternatives_open, sp, combination_alternative,
                               star<sp, kw_or, sp, must<combination_alternative>>, sp,
                               alternatives_close> {};
 struct combination_term_begin : success {};
+// Two names in a row are a factor written as a word (`half W`, `1.2 kN D`):
+// factors are numbers, so it is an error at the word rather than a puzzle later.
+struct combination_factor_word : not_at<name_part, plus<one<' ', '\t'>>, name_part> {};
 struct combination_term : seq<combination_term_begin, opt<combination_factor, sp>,
+                              must<combination_factor_word>,
                               sor<alternatives, combination_symbol>> {};
 struct combination_plus : seq<sp, one<'+'>, sp_nl> {};
 struct combination_label : name {};
@@ -592,9 +601,10 @@ struct combination_item : seq<not_at<sor<block_close, eof>>,
 struct combinations_name : name {};
 struct combinations_begin : kw_combinations {};
 struct combinations_open : block_open {};
+struct combinations_by_case : if_must<kw_by, sp, kw_case> {};
 struct combinations_stmt : if_must<combinations_begin, sp, combinations_name, sp,
-                                   combinations_open, sp_nl, star<combination_item>,
-                                   block_close> {};
+                                   opt<combinations_by_case, sp>, combinations_open, sp_nl,
+                                   star<combination_item>, block_close> {};
 
 // combine_stmt <- 'combine' sp name (list_sep name)* (sp settings_block)?
 //                the combination sets this model is checked for, with their permissions

@@ -31,11 +31,12 @@ inline constexpr std::array<std::string_view, 56> keywords{
 /// `arrange`, `deflection` and `expect` start a statement only; `limit` follows its members;
 /// `or`, `half_live_in` and `by` have meaning inside them, as `of`, `shear`, `reaction`,
 /// `under`, `between`, `and` and `within` have inside `expect`; `geometry` and `unjoined`
-/// start a statement only, and `tolerance` follows `geometry`; `cover` starts a statement only.
-inline constexpr std::array<std::string_view, 24> contextual_keywords{
-    "and",   "arrange",    "between",   "by",       "combinations", "combine",
-    "cover", "deflection", "expect",    "geometry", "half_live_in", "limit",
-    "of",    "or",         "pattern",   "plan",     "projection",   "reaction",
-    "roof",  "shear",      "tolerance", "under",    "unjoined",     "within"};
+/// start a statement only, and `tolerance` follows `geometry`; `cover` starts a statement only;
+/// `rain` is a case's kind only.
+inline constexpr std::array<std::string_view, 25> contextual_keywords{
+    "and",        "arrange", "between",    "by",           "combinations", "combine", "cover",
+    "deflection", "expect",  "geometry",   "half_live_in", "limit",        "of",      "or",
+    "pattern",    "plan",    "projection", "rain",         "reaction",     "roof",    "shear",
+    "tolerance",  "under",   "unjoined",   "within"};
 
 }  // namespace firn::grammar

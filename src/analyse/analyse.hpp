@@ -58,6 +58,13 @@ MemberFunctions combination_functions(const Model& model, const LoadSet& loads,
                                       const Solution& solution, const Combination& combination,
                                       MemberId m);
 
+/// compute_stations for combinations: Stations::cases holds each of `combinations`
+/// in its order, from its exact functions (the solved cases superposed).
+Stations compute_combination_stations(const Model& model, const LoadSet& loads,
+                                      const Solution& solution,
+                                      std::span<const Combination> combinations,
+                                      std::size_t per_member);
+
 /// Every check the model's `deflection` statements ask for, in statement,
 /// member and column order. A column with no case of its loads is left out.
 std::vector<DeflectionCheck> check_deflections(const Model& model, const LoadSet& loads,

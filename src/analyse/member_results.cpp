@@ -166,9 +166,24 @@ void visit_stationary(const Polynomial& p, const Polynomial& dp, double h, doubl
 template <Function F>
 using FunctionTag = std::integral_constant<Function, F>;
 
-/// Calls visit(FunctionTag, position, value) at every place an extreme of a
-/// member function can be: both sides of each piece end and each stationary
-/// point, piece by piece from the start node.
+/// A candidate's place on its piece: the N, V and M acting there, taken on the
+/// candidate's own side of a jump (the piece's end values at its end, as the
+/// candidate's value is).
+struct CandidatePlace {
+    const FunctionPiece& piece;
+    const PieceEnd& end;
+    double t, h;
+
+    std::array<double, 3> actions() const {
+        if (t >= h)
+            return {end.n, end.v, end.m};
+        return {piece.axial(t), piece.shear(t), piece.moment(t)};
+    }
+};
+
+/// Calls visit(FunctionTag, position, value, CandidatePlace) at every place an
+/// extreme of a member function can be: both sides of each piece end and each
+/// stationary point, piece by piece from the start node.
 template <typename Visit>
 void visit_candidates(const Scratch& functions, Visit visit) {
     for (std::size_t i = 0; i < functions.pieces.size(); ++i) {
@@ -176,7 +191,9 @@ void visit_candidates(const Scratch& functions, Visit visit) {
         const PieceEnd& end = functions.ends[i];
         double h = p.b - p.a;
         auto of = [&](auto tag) {
-            return [&, tag](double t, double v) { visit(tag, p.a + t, v); };
+            return [&, tag](double t, double v) {
+                visit(tag, p.a + t, v, CandidatePlace{p, end, t, h});
+            };
         };
         visit_stationary(p.moment, p.shear, h, end.m, of(FunctionTag<f_moment>{}));
         visit_stationary(p.shear, derivative(p.shear), h, end.v, of(FunctionTag<f_shear>{}));
@@ -246,7 +263,7 @@ void keep_in_summary(MemberSummary& s, double position, double v, double tie) {
 MemberSummary summarize(const Scratch& functions) {
     MemberSummary s;
     std::array<double, 4> tie = start_summary(functions, s);
-    visit_candidates(functions, [&](auto tag, double position, double v) {
+    visit_candidates(functions, [&](auto tag, double position, double v, const CandidatePlace&) {
         constexpr Function f = decltype(tag)::value;
         keep_in_summary<f>(s, position, v, tie[f]);
     });
@@ -257,12 +274,21 @@ MemberSummary summarize(const Scratch& functions, FunctionExtremes& extremes) {
     MemberSummary s;
     extremes = FunctionExtremes{};
     std::array<double, 4> tie = start_summary(functions, s);
-    visit_candidates(functions, [&](auto tag, double position, double v) {
-        constexpr Function f = decltype(tag)::value;
-        keep_in_summary<f>(s, position, v, tie[f]);
-        keep_largest(extremes.max[f], v, position, tie[f]);
-        keep_smallest(extremes.min[f], v, position, tie[f]);
-    });
+    visit_candidates(functions,
+                     [&](auto tag, double position, double v, const CandidatePlace& place) {
+                         constexpr Function f = decltype(tag)::value;
+                         keep_in_summary<f>(s, position, v, tie[f]);
+                         // The forces acting with an extreme are read only when it is replaced,
+                         // which happens a few times per member, not at every candidate.
+                         if (v > extremes.max[f].value + tie[f]) {
+                             extremes.max[f] = Extreme{v, position};
+                             extremes.max_with[f] = place.actions();
+                         }
+                         if (v < extremes.min[f].value - tie[f]) {
+                             extremes.min[f] = Extreme{v, position};
+                             extremes.min_with[f] = place.actions();
+                         }
+                     });
     return s;
 }
 

@@ -64,6 +64,8 @@ enum Function : std::size_t { f_axial = 0, f_shear = 1, f_moment = 2, f_deflecti
 /// (below) zero; the first position wins a tie.
 struct FunctionExtremes {
     std::array<Extreme, 4> max, min;
+    /// N, V, M where each extreme occurs, on its side of a jump (0 with no extreme).
+    std::array<std::array<double, 3>, 4> max_with{}, min_with{};
 };
 
 /// The member summary and the signed extremes, from one pass over the functions.

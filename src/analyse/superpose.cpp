@@ -148,16 +148,16 @@ CaseResults node_results(const Model& model, const Results& results, const Combi
 }
 
 /// The combination whose extreme of function f goes furthest from zero in the
-/// direction `sign` (+1 up, -1 down), taken from `side` (max or min); the
-/// first wins within `tie`.
-Governing furthest(std::span<const FunctionExtremes> extremes,
-                   std::array<Extreme, 4> FunctionExtremes::*side, std::size_t f, double sign,
+/// direction `sign` (+1: the largest, -1: the smallest), with the forces that
+/// act with it; the first wins within `tie`.
+Governing furthest(std::span<const FunctionExtremes> extremes, double sign, std::size_t f,
                    double tie) {
     Governing g;
     for (std::size_t k = 0; k < extremes.size(); ++k) {
-        const Extreme& e = (extremes[k].*side)[f];
+        const FunctionExtremes& x = extremes[k];
+        const Extreme& e = sign > 0.0 ? x.max[f] : x.min[f];
         if (sign * e.value > sign * g.value + tie)
-            g = Governing{e.value, e.position, k};
+            g = Governing{e.value, e.position, k, sign > 0.0 ? x.max_with[f] : x.min_with[f]};
     }
     return g;
 }
@@ -173,18 +173,15 @@ MemberEnvelope member_envelope(std::span<const FunctionExtremes> extremes) {
             tie[f] = std::max(tie[f], kTie * largest);
         }
     }
-    auto up = [&](std::size_t f) {
-        return furthest(extremes, &FunctionExtremes::max, f, 1.0, tie[f]);
-    };
-    auto down = [&](std::size_t f) {
-        return furthest(extremes, &FunctionExtremes::min, f, -1.0, tie[f]);
-    };
+    auto up = [&](std::size_t f) { return furthest(extremes, 1.0, f, tie[f]); };
+    auto down = [&](std::size_t f) { return furthest(extremes, -1.0, f, tie[f]); };
     return MemberEnvelope{up(f_moment), down(f_moment), up(f_shear),      down(f_shear),
                           up(f_axial),  down(f_axial),  up(f_deflection), down(f_deflection)};
 }
 
 /// The greatest and least of each component of `of(k)` over the combinations
-/// (first on ties, judged against each component's largest magnitude).
+/// (first on ties, judged against each component's largest magnitude), each
+/// with every component of the combination that gives it.
 template <typename Of>
 ComponentEnvelope component_envelope(std::size_t count, Of of) {
     ComponentEnvelope out;
@@ -196,14 +193,14 @@ ComponentEnvelope component_envelope(std::size_t count, Of of) {
             tie[d] = std::max(tie[d], kTie * std::abs(of(k)[d]));
     }
     for (std::size_t d = 0; d < 3; ++d)
-        out.max[d] = out.min[d] = Governing{of(0)[d], 0.0, 0};
+        out.max[d] = out.min[d] = Governing{of(0)[d], 0.0, 0, of(0)};
     for (std::size_t k = 1; k < count; ++k) {
         const std::array<double, 3>& v = of(k);
         for (std::size_t d = 0; d < 3; ++d) {
             if (v[d] > out.max[d].value + tie[d])
-                out.max[d] = Governing{v[d], 0.0, k};
+                out.max[d] = Governing{v[d], 0.0, k, v};
             if (v[d] < out.min[d].value - tie[d])
-                out.min[d] = Governing{v[d], 0.0, k};
+                out.min[d] = Governing{v[d], 0.0, k, v};
         }
     }
     return out;

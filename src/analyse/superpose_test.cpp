@@ -346,8 +346,10 @@ std::vector<double> flatten(const Envelopes& e) {
             put(std::array<double, 2>{x.value, x.position});
     };
     auto put_governing = [&](std::initializer_list<Governing> gs) {
-        for (const Governing& g : gs)
+        for (const Governing& g : gs) {
             put(std::array<double, 3>{g.value, g.position, static_cast<double>(g.combination)});
+            put(g.concurrent);
+        }
     };
     for (const CaseResults& c : e.combinations) {
         for (const auto& u : c.displacements)

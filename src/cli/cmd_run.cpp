@@ -1,10 +1,12 @@
-// cmd_run: `firn run MODEL [--format text|json] [--full] [--output FILE]`.
+// cmd_run: `firn run MODEL [--format text|json] [--full] [--summary]
+// [--combination NAME]... [--output FILE]`.
 #include <CLI/CLI.hpp>
 #include <cstdio>
 #include <memory>
 
 #include "analyse/analyse.hpp"
 #include "base/file_io.hpp"
+#include "base/name_pattern.hpp"
 #include "cli/cmd_common.hpp"
 #include "cli/commands.hpp"
 #include "driver/driver.hpp"
@@ -18,7 +20,9 @@ struct RunArgs {
     std::string format = "text";
     std::string output;
     std::string stdlib;
+    std::vector<std::string> combinations;  ///< names or patterns; `all` for every one
     bool full = false;
+    bool summary = false;
     bool exact_numbers = false;
     bool strict = false;
 };
@@ -34,6 +38,24 @@ const SourceFile* input_at(const SourceMap& sources, const std::string& output) 
             return &f;
     }
     return nullptr;
+}
+
+/// The combinations `--combination` names, in the list's order; false (and the
+/// message printed) when a name matches none.
+bool choose_combinations(const Analysis& a, const RunArgs& args, std::vector<std::size_t>& out) {
+    std::vector<std::string> patterns = args.combinations;
+    for (std::string& p : patterns) {
+        if (p == "all")
+            p = "*";  // combination names are SET.LABEL/N, never `all`
+    }
+    const std::vector<Combination>& list = a.combinations.combinations;
+    std::vector<std::string> errors;
+    out = matching_names(
+        patterns, list.size(), [&](std::size_t i) { return list[i].name; }, "combination", errors);
+    for (const std::string& e : errors)
+        std::fprintf(stderr, "firn: error: %s (the report's Load combinations list them)\n",
+                     e.c_str());
+    return errors.empty();
 }
 
 int run(const RunArgs& args) {
@@ -52,13 +74,22 @@ int run(const RunArgs& args) {
         return exit_model_error;
     }
 
-    Stations stations;
+    Stations stations, combination_stations;
     ReportOptions options = report_options(a);
     options.full = args.full;
     options.exact_numbers = args.exact_numbers;
+    options.summary_only = args.summary;
+    if (!choose_combinations(a, args, options.chosen_combinations))
+        return exit_model_error;
     if (args.full) {
         stations = compute_stations(a.model, a.loads, a.solution, kStationsPerMember);
         options.stations = &stations;
+        std::vector<Combination> chosen;
+        for (std::size_t k : options.chosen_combinations)
+            chosen.push_back(a.combinations.combinations[k]);
+        combination_stations =
+            compute_combination_stations(a.model, a.loads, a.solution, chosen, kStationsPerMember);
+        options.combination_stations = &combination_stations;
     }
     auto write_report = [&](const ReportSink& sink) {
         if (args.format == "json") {
@@ -101,6 +132,14 @@ void add_run_command(CLI::App& app, int& status) {
     cmd->add_flag("--full", args->full,
                   "Also print every node's displacements, member end forces and member stations "
                   "(values at tenths of each member)");
+    cmd->add_option("--combination", args->combinations,
+                    "Print these combinations' own results in a load case's layout (a name, a "
+                    "pattern with *, or all; repeatable); text: with the header only, JSON: "
+                    "added as combination_results")
+        ->type_name("NAME");
+    cmd->add_flag("--summary", args->summary,
+                  "Text: print only the header and the design summary (the governing forces, "
+                  "with what acts with them, and the reaction sets)");
     cmd->add_flag("--exact-numbers", args->exact_numbers,
                   "JSON: write every number unrounded, as the shortest text that reads back to "
                   "the same double (for checking firn with other tools)");

@@ -26,6 +26,11 @@ void arrange_cases(const Model& model, Derivation& derivation, Diagnostics& diag
 /// once per set (a repeat of an earlier one in its set is left out).
 CombinationList expand_combinations(const Model& model);
 
+/// Reports each case a set by case names that is neither declared nor derived
+/// (located at the name, with a suggestion); false if any. Run before solving.
+bool check_combination_cases(const Model& model, const Derivation& derivation,
+                             Diagnostics& diagnostics);
+
 /// Derives local member loads for every case. The model is already checked by
 /// `resolve`; problems found here (a projected load on a vertical member) are
 /// reported as warnings.

@@ -22,11 +22,9 @@ bool sums_its_kind(const std::string& symbol) {
 }
 
 bool symbol_takes(const std::string& symbol, CaseKind kind) {
-    static const std::map<std::string, CaseKind> kinds{{"D", CaseKind::dead},
-                                                       {"L", CaseKind::live},
-                                                       {"Lr", CaseKind::roof_live},
-                                                       {"S", CaseKind::snow},
-                                                       {"W", CaseKind::wind}};
+    static const std::map<std::string, CaseKind> kinds{
+        {"D", CaseKind::dead}, {"L", CaseKind::live}, {"Lr", CaseKind::roof_live},
+        {"S", CaseKind::snow}, {"R", CaseKind::rain}, {"W", CaseKind::wind}};
     auto it = kinds.find(symbol);
     return it != kinds.end() && it->second == kind;
 }
@@ -77,6 +75,17 @@ std::vector<Option> options_of(const Model& model, const std::string& symbol, do
     return out;
 }
 
+/// In a set by case: the named case and each of its arrangements, one at a time.
+std::vector<Option> named_options(const Model& model, const std::string& name, double factor) {
+    std::vector<Option> out;
+    for (std::size_t c = 0; c < model.cases.size(); ++c) {
+        const LoadCase& lc = model.cases[c];
+        if (lc.name == name || lc.arrangement_of == name)
+            out.push_back(Option{{{make_id<CaseId>(c), factor}}, name});
+    }
+    return out;
+}
+
 /// The factor of a symbol in a rule, after the 0.5 L permission.
 double factor_for(const CombinationRule& rule, const CombineChoice& choice,
                   const CombinationRule::Alternative& a) {
@@ -87,13 +96,16 @@ double factor_for(const CombinationRule& rule, const CombineChoice& choice,
 
 /// The terms of a rule as lists of options; a term none of whose symbols has a
 /// case is left out.
-std::vector<std::vector<Option>> slots_of(const Model& model, const CombinationRule& rule,
+std::vector<std::vector<Option>> slots_of(const Model& model, const CombinationSet& set,
+                                          const CombinationRule& rule,
                                           const CombineChoice& choice) {
     std::vector<std::vector<Option>> slots;
     for (const CombinationRule::Term& term : rule.terms) {
         std::vector<Option> options;
         for (const CombinationRule::Alternative& a : term.alternatives) {
-            std::vector<Option> more = options_of(model, a.symbol, factor_for(rule, choice, a));
+            std::vector<Option> more =
+                set.by_case ? named_options(model, a.symbol, a.factor)
+                            : options_of(model, a.symbol, factor_for(rule, choice, a));
             options.insert(options.end(), more.begin(), more.end());
         }
         if (!options.empty())
@@ -167,7 +179,7 @@ void for_each_pick(const std::vector<std::vector<Option>>& slots, Visit visit) {
 void expand_rule(const Model& model, const CombinationSet& set, const CombinationRule& rule,
                  const CombineChoice& choice, std::vector<std::vector<CombinationTerm>>& seen,
                  CombinationList& out) {
-    std::vector<std::vector<Option>> slots = slots_of(model, rule, choice);
+    std::vector<std::vector<Option>> slots = slots_of(model, set, rule, choice);
     if (slots.empty()) {
         out.notes.push_back(
             fmt::format("{}.{} left out: no load case of its symbols", set.name, rule.label));
@@ -217,12 +229,44 @@ CombinationList expand_combinations(const Model& model) {
         if (!any)
             out.notes.push_back(fmt::format("{}: no load case of this kind", symbol));
     }
-    for (const LoadCase& lc : model.cases) {
-        if (lc.kind == CaseKind::other)
+    std::vector<char> combined(model.cases.size(), 0);
+    for (const Combination& k : out.combinations) {
+        for (const CombinationTerm& t : k.terms)
+            combined[at(t.case_id)] = 1;
+    }
+    for (std::size_t c = 0; c < model.cases.size(); ++c) {
+        if (model.cases[c].kind == CaseKind::other && !combined[c])
             out.notes.push_back(
-                fmt::format("{}: a case of kind other, in no combination", lc.name));
+                fmt::format("{}: a case of kind other, in no combination", model.cases[c].name));
     }
     return out;
+}
+
+bool check_combination_cases(const Model& model, const Derivation& derivation,
+                             Diagnostics& diagnostics) {
+    std::vector<std::string> names;
+    for (const std::vector<LoadCase>* cases : {&model.cases, &derivation.cases}) {
+        for (const LoadCase& lc : *cases)
+            names.push_back(lc.name);
+    }
+    bool ok = true;
+    for (const CombinationSet& set : model.combination_sets) {
+        if (!set.by_case)
+            continue;
+        for (const CombinationRule& rule : set.rules) {
+            for (const CombinationRule::Term& term : rule.terms) {
+                for (const CombinationRule::Alternative& a : term.alternatives) {
+                    if (std::find(names.begin(), names.end(), a.symbol) != names.end())
+                        continue;
+                    diagnostics.error(
+                        a.where, fmt::format("no load case '{}' (combination {}.{}){}", a.symbol,
+                                             set.name, rule.label, did_you_mean(a.symbol, names)));
+                    ok = false;
+                }
+            }
+        }
+    }
+    return ok;
 }
 
 }  // namespace firn

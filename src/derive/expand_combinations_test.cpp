@@ -282,6 +282,98 @@ TEST_CASE("combinations: an ice-dam case is combined with dead load only") {
     }
 }
 
+TEST_CASE("combinations: a rain case takes R's place beside Lr and S in ASCE 7-16's sets") {
+    // ASCE 7-16 Sec. 2.3.1 and 2.4.1 (from memory): R stands where Lr and S stand, as
+    // one of the alternatives "(Lr or S or R)", never added to them.
+    Analysis a =
+        analysed(all_kinds("case R rain {\n  uniform 0.15 kip/ft down on base.*\n}\n"
+                           "combine asce7_16.strength, asce7_16.allowable\n"));
+    std::vector<std::string> f = formulas(a);
+    for (const char* want :
+         {"1.2 D + 1.6 L + 0.5 R", "1.2 D + 1.6 R + 1.0 L", "1.2 D + 1.6 R + 0.5 WL",
+          "1.2 D + 1.0 WL + 1.0 L + 0.5 R", "1.0 D + 1.0 R", "1.0 D + 0.75 L + 0.75 R",
+          "1.0 D + 0.75 L + 0.45 WL + 0.75 R"}) {
+        INFO(want);
+        CHECK(std::count(f.begin(), f.end(), want) == 1);
+    }
+    for (const std::string& formula : f) {
+        bool rain = formula.find(" R") != std::string::npos;
+        bool other =
+            formula.find("Lr") != std::string::npos || formula.find("S.") != std::string::npos;
+        CHECK_FALSE((rain && other));
+    }
+    auto rain = std::find_if(a.model.cases.begin(), a.model.cases.end(),
+                             [](const LoadCase& lc) { return lc.name == "R"; });
+    REQUIRE(rain != a.model.cases.end());
+    CHECK(rain->kind == CaseKind::rain);
+}
+
+TEST_CASE("combinations: a set by case names cases with any factors, kind other included") {
+    Analysis a = analysed(all_kinds(R"(case WR wind {
+  uniform 0.05 kip/ft down on base.*
+}
+case hoist other {
+  point 2 kip down at B.base
+}
+combinations site by case {
+  gravity = 1.2 D + 1.6 Lr + 0.5 WL
+  lift = 1.2 D + 1.0 hoist + 0.5 (WL or WR)
+  heavy = 1.1 D + 1.3 S.balanced
+  floor = 1.2 D + 1.6 L
+}
+pattern alt {
+  odd: each = 1.0, others = 0
+}
+arrange L on base.* by alt
+combine site
+)"));
+    std::vector<std::string> f = formulas(a);
+    // The factors as written, one combination per alternative; a case with
+    // arrangements stands for itself and each of them in turn (the snow stage's
+    // cases are named one by one).
+    REQUIRE(f.size() == 7);
+    CHECK(f[0] == "1.2 D + 1.6 Lr + 0.5 WL");
+    CHECK(f[1] == "1.2 D + 1.0 hoist + 0.5 WL");
+    CHECK(f[2] == "1.2 D + 1.0 hoist + 0.5 WR");
+    CHECK(f[3] == "1.1 D + 1.3 S.balanced");
+    CHECK(f[4] == "1.2 D + 1.6 L");
+    CHECK(f[5] == "1.2 D + 1.6 L.odd.A_B");
+    CHECK(f[6] == "1.2 D + 1.6 L.odd.B_C");
+    // A case of kind other in a combination is no longer noted as left out.
+    for (const std::string& note : a.combinations.notes)
+        CHECK(note.find("hoist") == std::string::npos);
+    // The combination's results are the factored sum of its cases' (superposition).
+    std::size_t hoist = 0, d = 0, wl = 0;
+    for (std::size_t c = 0; c < a.model.cases.size(); ++c) {
+        hoist = a.model.cases[c].name == "hoist" ? c : hoist;
+        d = a.model.cases[c].name == "D" ? c : d;
+        wl = a.model.cases[c].name == "WL" ? c : wl;
+    }
+    const CaseResults& lift = a.envelopes[0].combinations[1];
+    for (std::size_t s = 0; s < a.model.supports.size(); ++s) {
+        double sum = 1.2 * a.results.cases[d].reactions[s][1] +
+                     1.0 * a.results.cases[hoist].reactions[s][1] +
+                     0.5 * a.results.cases[wl].reactions[s][1];
+        CHECK(lift.reactions[s][1] == Approx(sum).margin(1e-9 * 4448.2216));
+    }
+}
+
+TEST_CASE("combinations: a set by case gets located errors for bad names") {
+    std::string head = "case WR wind {\n  uniform 0.05 kip/ft down on base.*\n}\n";
+    CHECK(firn::testing::first_message(
+              all_kinds(head + "combinations site by case {\n  1 = 1.2 D + 1.0 (WL or WX)\n}\n")) ==
+          "input:39:26: error: no load case 'WX' (combination site.1); did you mean 'WL'?");
+    CHECK(firn::testing::first_message(all_kinds(
+              head + "combinations site by case {\n  1 = 1.2 D + 0.5 WL + 1.0 (WR or WL)\n}\n")) ==
+          "input:39:35: error: case 'WL' is named twice in combination '1'; write it once with "
+          "its whole factor");
+    CHECK(firn::testing::first_message(
+              all_kinds(head + "combinations site by case {\n  1 = 1.2 D + 1.6 L\n  "
+                               "half_live_in = 1\n}\n")) ==
+          "input:40:18: error: half_live_in is for sets by load symbol; in a set by case, write "
+          "the live case's factor as it is to be taken");
+}
+
 TEST_CASE("combinations: bad sets and choices get located errors") {
     CHECK(
         firn::testing::first_message(all_kinds("combinations mine {\n  1 = 1.2 D + 1.6 Q\n}\n")) ==

@@ -7,39 +7,15 @@
 #include "draw/draw_internal.hpp"
 
 namespace firn {
-namespace {
-
-/// Indices of the names that match any of `patterns`; each pattern that matches
-/// nothing is reported.
-template <typename NameOf>
-std::vector<std::size_t> matching(const std::vector<std::string>& patterns, std::size_t count,
-                                  NameOf name_of, const char* what,
-                                  std::vector<std::string>& errors) {
-    std::set<std::size_t> chosen;
-    for (const std::string& pattern : patterns) {
-        bool any = false;
-        for (std::size_t i = 0; i < count; ++i) {
-            if (name_matches(pattern, name_of(i))) {
-                chosen.insert(i);
-                any = true;
-            }
-        }
-        if (!any)
-            errors.push_back(std::string("no ") + what + " is named '" + pattern + "'");
-    }
-    return {chosen.begin(), chosen.end()};
-}
-
-}  // namespace
 
 std::vector<Sheet> draw_sheets(const Analysis& a, const DrawOptions& options,
                                std::vector<std::string>& errors) {
     const Model& model = a.model;
-    std::vector<std::size_t> cases = matching(
+    std::vector<std::size_t> cases = matching_names(
         options.cases, model.cases.size(), [&](std::size_t i) { return model.cases[i].name; },
         "load case", errors);
     const auto& list = a.combinations.combinations;
-    std::vector<std::size_t> combinations = matching(
+    std::vector<std::size_t> combinations = matching_names(
         options.combinations, list.size(), [&](std::size_t i) { return list[i].name; },
         "combination", errors);
     // The diagrams are drawn from first-order member functions; a set solved to

@@ -83,7 +83,9 @@ Analysis analyse_text(std::string name, std::string text, PhaseTimes* times,
         return a;
     // Every case and value exists now: a name an expectation misspells stops the run
     // before anything is solved.
-    if (!check_expectation_names(a.model, a.derivation, a.diagnostics))
+    bool expectations_named = check_expectation_names(a.model, a.derivation, a.diagnostics);
+    bool combinations_named = check_combination_cases(a.model, a.derivation, a.diagnostics);
+    if (!expectations_named || !combinations_named)
         return a;
     join_derived_cases(a.model, a.derivation);
     a.loads = derive_loads(a.model, a.diagnostics);

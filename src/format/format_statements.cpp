@@ -260,6 +260,10 @@ void Printer::print_setting(const syntax::Setting& setting) {
 void Printer::print(const syntax::CombinationsDecl& c) {
     word("combinations");
     name(c.name);
+    if (c.by_case) {
+        word("by");
+        word("case");
+    }
 }
 
 void Printer::print(const syntax::CombineDecl& c) {

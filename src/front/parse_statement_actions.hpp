@@ -288,6 +288,7 @@ FIRN_ACTION(g::kind_dead, store_value<&syntax::CaseDecl::kind, CaseKind::dead>);
 FIRN_ACTION(g::kind_live, store_value<&syntax::CaseDecl::kind, CaseKind::live>);
 FIRN_ACTION(g::kind_roof_live, store_value<&syntax::CaseDecl::kind, CaseKind::roof_live>);
 FIRN_ACTION(g::kind_snow, store_value<&syntax::CaseDecl::kind, CaseKind::snow>);
+FIRN_ACTION(g::kind_rain, store_value<&syntax::CaseDecl::kind, CaseKind::rain>);
 FIRN_ACTION(g::kind_wind, store_value<&syntax::CaseDecl::kind, CaseKind::wind>);
 FIRN_ACTION(g::kind_other, store_value<&syntax::CaseDecl::kind, CaseKind::other>);
 
@@ -425,6 +426,14 @@ struct action<g::amend_stmt> {
 
 FIRN_ACTION(g::combinations_begin, begin_statement<syntax::CombinationsDecl>);
 FIRN_ACTION(g::combinations_name, store_name<&syntax::CombinationsDecl::name>);
+
+template <>
+struct action<g::combinations_by_case> {
+    template <typename Input>
+    static void apply(const Input&, Builder& b) {
+        b.current<syntax::CombinationsDecl>().by_case = true;
+    }
+};
 FIRN_ACTION(g::combination_label,
             append_named<&syntax::CombinationsDecl::lines, &syntax::CombinationLine::label>);
 

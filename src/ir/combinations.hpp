@@ -4,7 +4,9 @@
 // its arrangements being alternatives), and Lr, S, R and W for one case of
 // their kind at a time. `(A or B)` takes one alternative at a time, so roof
 // live and snow are never added together. A case combined with dead load only
-// (an ice dam) leaves the other variable loads of its combination out.
+// (an ice dam) leaves the other variable loads of its combination out. In a set
+// written `by case`, each symbol names a case (of any kind, `other` included),
+// which stands for itself and its arrangements, one at a time.
 //
 // Also the shapes of their results: per-set envelopes with the governing combination.
 #pragma once
@@ -36,11 +38,16 @@ struct Combination {
 inline constexpr std::size_t no_combination = std::numeric_limits<std::size_t>::max();
 
 /// An enveloped value, where it occurs (m from the member's start node; 0 at
-/// nodes and supports) and the index of the combination that gives it.
+/// nodes and supports), the index of the combination that gives it, and what
+/// acts with it there under that combination: a member's N, V, M (on the same
+/// side of a jump as the value), a support's Rx, Ry, M, a node's dx, dy,
+/// rotation. A member, a footing or a connection is designed for the set, not
+/// for extremes that come from different combinations.
 struct Governing {
     double value = 0.0;
     double position = 0.0;
     std::size_t combination = no_combination;
+    std::array<double, 3> concurrent{};
 };
 
 /// The extremes of one member over every combination and its whole length.

@@ -17,6 +17,8 @@ const char* case_kind_name(CaseKind kind) {
             return "roof live";
         case CaseKind::snow:
             return "snow";
+        case CaseKind::rain:
+            return "rain";
         case CaseKind::wind:
             return "wind";
         case CaseKind::other:

@@ -141,7 +141,7 @@ struct SelfWeight {
     SourceRange where;
 };
 
-enum class CaseKind { dead, live, roof_live, snow, wind, other };
+enum class CaseKind { dead, live, roof_live, snow, rain, wind, other };
 
 struct LoadCase {
     std::string name;
@@ -294,7 +294,8 @@ struct CombinationRule {
     std::string label;
     struct Alternative {
         double factor = 1.0;
-        std::string symbol;  ///< D, L, Lr, S, R or W
+        std::string symbol;  ///< D, L, Lr, S, R or W; in a set by case, a case's name
+        SourceRange where;   ///< the symbol as written
     };
     struct Term {
         std::vector<Alternative> alternatives;  ///< factors include the term's own
@@ -307,6 +308,9 @@ struct CombinationRule {
 /// A named set of combination rules (`combinations NAME { ... }`).
 struct CombinationSet {
     std::string name;
+    /// `by case`: each symbol names a load case (declared or derived), which stands
+    /// for itself and its arrangements, one at a time.
+    bool by_case = false;
     std::vector<CombinationRule> rules;
     SourceRange where;
 };

@@ -233,7 +233,7 @@ struct LoadDecl {
 
 /// `case D dead { ... }`
 struct CaseDecl {
-    enum class Kind { dead, live, roof_live, snow, wind, other };
+    enum class Kind { dead, live, roof_live, snow, rain, wind, other };
     Name name;
     Kind kind = Kind::other;
     std::vector<LoadDecl> loads;
@@ -299,6 +299,7 @@ struct CombinationLine {
 /// `combinations lib.strength { ... }`: a set of load combinations.
 struct CombinationsDecl {
     Name name;
+    bool by_case = false;  ///< `by case`: the symbols name load cases
     std::vector<CombinationLine> lines;
     std::vector<Name> half_live_in;       ///< labels where L's 1.0 may be 0.5
     std::vector<SourceRange> line_where;  ///< every line of the block, for the formatter

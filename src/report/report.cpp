@@ -404,11 +404,11 @@ void write_stations(std::string& out, const Model& model, const Stations& statio
     out += '\n';
 }
 
-void write_case(std::string& out, const Model& model, const Results& results, std::size_t c,
-                const ReportOptions& options) {
-    const LoadCase& lc = model.cases[c];
-    const CaseResults& r = results.cases[c];
-    out += fmt::format("== Load case {} ({}) ==\n\n", lc.name, case_kind_name(lc.kind));
+/// A case's or a combination's results, in the same layout (stations: theirs, at
+/// index `c`, or none).
+void write_results(std::string& out, const Model& model, const Results& results,
+                   const CaseResults& r, const ReportOptions& options, const Stations* stations,
+                   std::size_t c) {
     write_equilibrium(out, model, r.equilibrium);
     if (!model.supports.empty())
         write_reactions(out, model, r);
@@ -420,8 +420,58 @@ void write_case(std::string& out, const Model& model, const Results& results, st
     if (options.full)
         write_end_forces(out, model, r);
     write_extremes(out, model, r);
-    if (options.stations != nullptr)
-        write_stations(out, model, *options.stations, c);
+    if (stations != nullptr)
+        write_stations(out, model, *stations, c);
+}
+
+void write_case(std::string& out, const Model& model, const Results& results, std::size_t c,
+                const ReportOptions& options) {
+    const LoadCase& lc = model.cases[c];
+    out += fmt::format("== Load case {} ({}) ==\n\n", lc.name, case_kind_name(lc.kind));
+    write_results(out, model, results, results.cases[c], options, options.stations, c);
+}
+
+/// The set a combination belongs to.
+const CombinationList::SetRange& set_of(const CombinationList& list, std::size_t k) {
+    for (const CombinationList::SetRange& set : list.sets) {
+        if (k >= set.first && k < set.first + set.count)
+            return set;
+    }
+    return list.sets.front();
+}
+
+/// `== Combination NAME ==`: its factors, then its results as a case's (the
+/// solved cases superposed, never solved again).
+void write_combination(std::string& out, const Model& model, const Results& results,
+                       const ReportOptions& options, std::size_t chosen) {
+    if (options.combinations == nullptr || options.envelopes == nullptr)
+        return;
+    const CombinationList& list = *options.combinations;
+    std::size_t k = options.chosen_combinations[chosen];
+    const CaseResults* r = combination_case(list, *options.envelopes, k);
+    if (r == nullptr)
+        return;
+    out += fmt::format("== Combination {} ==\n\n", list.combinations[k].name);
+    out += fmt::format("Factors: {}\n", list.formulas[k]);
+    out += fmt::format("Set:     {}\n", set_of(list, k).name);
+    out +=
+        "The solved load cases, factored and added (superposition; nothing is solved "
+        "again).\n\n";
+    write_results(out, model, results, *r, options, options.combination_stations, chosen);
+}
+
+/// The short forms of the report: the header, the summary when asked, and the
+/// chosen combinations.
+void write_chosen_parts(const Model& model, const Results& results, const ReportOptions& options,
+                        std::string& out, const ReportSink& sink) {
+    if (options.summary_only)
+        write_design_summary(out, model, options);
+    for (std::size_t i = 0; i < options.chosen_combinations.size(); ++i) {
+        sink(out);
+        out.clear();
+        write_combination(out, model, results, options, i);
+    }
+    sink(out);
 }
 
 }  // namespace
@@ -432,10 +482,28 @@ std::string shown_source(const std::string& name) {
     return name.substr(name.find_last_of('/') + 1);
 }
 
+const CaseResults* combination_case(const CombinationList& list,
+                                    const std::vector<Envelopes>& envelopes, std::size_t k) {
+    for (std::size_t s = 0; s < list.sets.size() && s < envelopes.size(); ++s) {
+        const CombinationList::SetRange& set = list.sets[s];
+        if (k >= set.first && k < set.first + set.count &&
+            k - set.first < envelopes[s].combinations.size())
+            return &envelopes[s].combinations[k - set.first];
+    }
+    return nullptr;
+}
+
 void write_text_report(const Model& model, const Results& results, const ReportOptions& options,
                        const ReportSink& sink) {
     std::string out;
     write_header(out, model);
+    bool chosen = options.combinations != nullptr && options.envelopes != nullptr &&
+                  !options.chosen_combinations.empty();
+    if (chosen || options.summary_only) {
+        write_chosen_parts(model, results, options, out, sink);
+        return;
+    }
+    write_design_summary(out, model, options);
     out += "== Model ==\n\n";
     write_nodes(out, model);
     write_springs(out, model);

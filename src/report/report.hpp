@@ -36,15 +36,23 @@ struct ReportOptions {
     const Derivation* derivation = nullptr;  ///< the snow and arrangement traces
     /// Per set, each combination's second-order outcome (empty when first-order).
     const std::vector<std::vector<SecondOrderOutcome>>* second_order = nullptr;
+    /// Combinations (indices into `combinations->combinations`) whose own results are
+    /// printed in a case's layout. Text: with any, the report is the header, the summary
+    /// when `summary_only`, and these; JSON: they are added as "combination_results".
+    std::vector<std::size_t> chosen_combinations;
+    /// Stations of the chosen combinations, in their order, with `full`.
+    const Stations* combination_stations = nullptr;
+    bool summary_only = false;  ///< text: the header and the design summary only
 };
 
 /// Receives a report piece by piece (a piece per load case at most), so a
 /// large report never has to sit in memory whole.
 using ReportSink = std::function<void(std::string_view)>;
 
-/// The text report: model echo, then per case the equilibrium check,
-/// reactions, largest displacements and member extremes (and with `full`,
-/// all displacements, end forces and stations).
+/// The text report: the header, the design summary, the model echo, then per case
+/// the equilibrium check, reactions, largest displacements and member extremes (and
+/// with `full`, all displacements, end forces and stations), the combinations and
+/// their envelopes, the checks. See ReportOptions for the shorter forms.
 void write_text_report(const Model& model, const Results& results, const ReportOptions& options,
                        const ReportSink& sink);
 
@@ -77,6 +85,11 @@ std::string trace_clause(const TraceStep& step);
 
 /// Report options with every section the analysis holds (no stations).
 ReportOptions report_options(const Analysis& a);
+
+/// The results of combination `k` (an index into list.combinations), as the envelopes
+/// of its set hold them; nullptr when they were not computed.
+const CaseResults* combination_case(const CombinationList& list,
+                                    const std::vector<Envelopes>& envelopes, std::size_t k);
 
 /// The model file as reports show it: as given, but never an absolute path.
 std::string shown_source(const std::string& name);

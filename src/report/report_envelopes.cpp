@@ -77,6 +77,7 @@ void write_member_group(std::string& out, const Model& model, const SetView& set
     Table t(out);
     t.name_column("member", width).name_column("quantity", 22);
     t.text_column("value").number_column("at", u.length);
+    t.number_column("N", u.force).number_column("V", u.force).number_column("M", u.moment);
     t.name_column("combination", set.width());
     t.end_row();
     for (MemberId m : group.members) {
@@ -88,40 +89,69 @@ void write_member_group(std::string& out, const Model& model, const SetView& set
             t.name(first ? std::string_view(model.members[at(m)].name) : "");
             t.name(fmt::format("{} [{}]", q.label, unit.name));
             t.number(g.value, unit).number(g.position, u.length);
+            t.number(g.concurrent[0], u.force).number(g.concurrent[1], u.force);
+            t.number(g.concurrent[2], u.moment);
             t.name(set.name(g));
             t.end_row();
             first = false;
         }
     }
-    out += "  (0 and - where no combination goes that way)\n\n";
+    out +=
+        "  (N, V, M: the forces acting there under the same combination; 0 and - where no "
+        "combination goes that way)\n\n";
 }
 
-void write_reaction_envelope(std::string& out, const Model& model, const SetView& set,
-                             const Envelopes& env) {
+/// Per support, the largest and least of each component it restrains, each with
+/// the other components of the same combination: the sets a footing, a base
+/// plate or an anchorage is designed for.
+void write_reaction_table(std::string& out, const Model& model, const SetView& set,
+                          const Envelopes& env) {
     const DisplayUnits& u = model.units;
-    out += "Reactions\n";
+    out += "Reaction sets (each extreme with the other components of its combination)\n";
     std::size_t width = std::string_view("node").size();
     for (const Support& s : model.supports)
         width = std::max(width, model.nodes[at(s.node)].name.size());
     Table t(out);
-    t.name_column("node", width).name_column("component", 9);
-    t.number_column("max", u.force).name_column("combination", set.width());
-    t.number_column("min", u.force).name_column("combination", set.width());
+    t.name_column("node", width).name_column("extreme", 6);
+    t.number_column("Rx", u.force).number_column("Ry", u.force).number_column("M", u.moment);
+    t.name_column("combination", set.width());
     t.end_row();
     static constexpr std::array<const char*, 3> kComponents{"Rx", "Ry", "M"};
     for (std::size_t s = 0; s < model.supports.size(); ++s) {
+        const Support& support = model.supports[s];
+        bool first = true;
         for (std::size_t d = 0; d < 3; ++d) {
-            const DisplayUnit& unit = d == dof_rotation ? u.moment : u.force;
+            if (support.restraint[d].kind == Restraint::Kind::free)
+                continue;  // always 0: nothing to design for
             const ComponentEnvelope& e = env.reactions[s];
-            t.name(d == 0 ? std::string_view(model.nodes[at(model.supports[s].node)].name) : "");
-            t.name(kComponents[d]);
-            t.number(e.max[d].value, unit).name(set.name(e.max[d]));
-            t.number(e.min[d].value, unit).name(set.name(e.min[d]));
-            t.end_row();
+            for (bool largest : {true, false}) {
+                const Governing& g = largest ? e.max[d] : e.min[d];
+                t.name(first ? std::string_view(model.nodes[at(support.node)].name) : "");
+                t.name(fmt::format("{} {}", kComponents[d], largest ? "max" : "min"));
+                t.number(g.concurrent[0], u.force).number(g.concurrent[1], u.force);
+                t.number(g.concurrent[2], u.moment).name(set.name(g));
+                t.end_row();
+                first = false;
+            }
         }
     }
-    out += fmt::format("  (Rx, Ry in {}, M in {})\n\n", u.force.name, u.moment.name);
+    out +=
+        "  (reactions act on the structure: Ry max is the largest downward force on the "
+        "support, Ry min below 0 an uplift)\n\n";
 }
+
+}  // namespace
+
+void write_reaction_sets(std::string& out, const Model& model, const CombinationList& list,
+                         std::size_t set, const Envelopes& env) {
+    write_reaction_table(out, model, SetView{list, list.sets[set]}, env);
+}
+
+std::vector<MemberGroup> report_groups(const Model& model) {
+    return envelope_groups(model);
+}
+
+namespace {
 
 /// The largest displacement of any node in each direction, both ways.
 void write_displacement_envelope(std::string& out, const Model& model, const SetView& set,
@@ -228,7 +258,7 @@ void write_envelopes(std::string& out, const Model& model, const CombinationList
         for (const MemberGroup& group : envelope_groups(model))
             write_member_group(out, model, set, envelopes[s], group);
         if (!model.supports.empty())
-            write_reaction_envelope(out, model, set, envelopes[s]);
+            write_reaction_table(out, model, set, envelopes[s]);
         write_displacement_envelope(out, model, set, envelopes[s]);
     }
 }

@@ -8,6 +8,7 @@
 #include "ir/mirror.hpp"
 #include "ir/model.hpp"
 #include "ir/second_order.hpp"
+#include "report/report.hpp"
 
 namespace firn {
 
@@ -25,6 +26,19 @@ void write_envelopes(std::string& out, const Model& model, const CombinationList
 /// combinations are solved to second order (report_second_order.cpp).
 void write_second_order(std::string& out, const Model& model, const CombinationList& list,
                         const std::vector<std::vector<SecondOrderOutcome>>& outcomes);
+/// Per support of the model, the largest and least of each component it restrains,
+/// each with the other components of the same combination (of set `set` of `list`).
+void write_reaction_sets(std::string& out, const Model& model, const CombinationList& list,
+                         std::size_t set, const Envelopes& env);
+
+/// The member groups the envelopes and the summary go by: each declared group, then
+/// the members in none (all members when the model declares no group).
+std::vector<MemberGroup> report_groups(const Model& model);
+
+/// `== Design summary ==`: the failing checks, then per chosen set each member group's
+/// governing forces with position, the forces acting with them and the combination
+/// written out, and each support's reaction sets.
+void write_design_summary(std::string& out, const Model& model, const ReportOptions& options);
 
 /// `== Deflection checks ==`: per `deflection` statement, each member's worst
 /// case under each column of its row, its deflection, the limit and the ratio.

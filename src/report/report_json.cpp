@@ -124,10 +124,10 @@ std::array<double, 3> residual_of(const Equilibrium& e) {
             e.applied[2] + e.reactions[2]};
 }
 
-Json case_json(const Model& model, const Results& results, std::size_t c,
-               const ReportOptions& options) {
+/// A case's or a combination's results (stations: theirs, at index c, or none).
+Json results_json(const Model& model, const Results& results, const CaseResults& r,
+                  const Stations* stations, std::size_t c) {
     const DisplayUnits& u = model.units;
-    const CaseResults& r = results.cases[c];
     Json reactions = Json::array(), displacements = Json::array(), members = Json::array();
     for (std::size_t i = 0; i < model.supports.size(); ++i) {
         Json row{{"node", model.nodes[at(model.supports[i].node)].name}};
@@ -144,20 +144,42 @@ Json case_json(const Model& model, const Results& results, std::size_t c,
     }
     for (std::size_t i = 0; i < model.members.size(); ++i) {
         Json m = member_json(model, i, r.members[i]);
-        if (options.stations != nullptr)
-            m["stations"] = stations_json(model, *options.stations, c, i);
+        if (stations != nullptr)
+            m["stations"] = stations_json(model, *stations, c, i);
         members.push_back(std::move(m));
     }
     const Equilibrium& e = r.equilibrium;
-    return Json{{"name", model.cases[c].name},
-                {"kind", case_kind_name(model.cases[c].kind)},
-                {"equilibrium",
+    return Json{{"equilibrium",
                  {{"applied", triple(e.applied, u.force, u.moment, "Fx", "Fy", "M")},
                   {"reactions", triple(e.reactions, u.force, u.moment, "Fx", "Fy", "M")},
                   {"residual", triple(residual_of(e), u.force, u.moment, "Fx", "Fy", "M")}}},
                 {"reactions", reactions},
                 {"displacements", displacements},
                 {"members", members}};
+}
+
+Json case_json(const Model& model, const Results& results, std::size_t c,
+               const ReportOptions& options) {
+    Json out{{"name", model.cases[c].name}, {"kind", case_kind_name(model.cases[c].kind)}};
+    out.update(results_json(model, results, results.cases[c], options.stations, c));
+    return out;
+}
+
+/// The chosen combinations' own results, as a case's, with their factors.
+Json combination_results_json(const Model& model, const Results& results,
+                              const ReportOptions& options) {
+    Json out = Json::array();
+    const CombinationList& list = *options.combinations;
+    for (std::size_t i = 0; i < options.chosen_combinations.size(); ++i) {
+        std::size_t k = options.chosen_combinations[i];
+        const CaseResults* r = combination_case(list, *options.envelopes, k);
+        if (r == nullptr)
+            continue;
+        Json one{{"name", list.combinations[k].name}, {"factors", list.formulas[k]}};
+        one.update(results_json(model, results, *r, options.combination_stations, i));
+        out.push_back(std::move(one));
+    }
+    return out;
 }
 
 /// The snow trace: each line's text, its clause and whether it starts a part.
@@ -174,13 +196,34 @@ Json snow_trace_json(const Derivation& derivation, const DisplayUnits& units) {
     return lines;
 }
 
+/// The names and units of what acts with an enveloped value (Governing::concurrent).
+struct ConcurrentNames {
+    std::array<const char*, 3> names;
+    std::array<const DisplayUnit*, 3> units;
+};
+
+ConcurrentNames member_actions(const DisplayUnits& u) {
+    return {{"N", "V", "M"}, {&u.force, &u.force, &u.moment}};
+}
+ConcurrentNames reaction_components(const DisplayUnits& u) {
+    return {{"Rx", "Ry", "M"}, {&u.force, &u.force, &u.moment}};
+}
+ConcurrentNames displacement_components(const DisplayUnits& u) {
+    return {{"dx", "dy", "rotation"}, {&u.displacement, &u.displacement, &u.rotation}};
+}
+
 Json governing_json(const Governing& g, const DisplayUnit& unit, const DisplayUnit& length,
-                    const CombinationList& list, std::size_t first) {
-    return Json{{"value", shown(g.value, unit)},
-                {"at", shown(g.position, length)},
-                {"combination", g.combination == no_combination
-                                    ? Json(nullptr)
-                                    : Json(list.combinations[first + g.combination].name)}};
+                    const CombinationList& list, std::size_t first, const ConcurrentNames& with) {
+    Json out{{"value", shown(g.value, unit)},
+             {"at", shown(g.position, length)},
+             {"combination", g.combination == no_combination
+                                 ? Json(nullptr)
+                                 : Json(list.combinations[first + g.combination].name)}};
+    Json concurrent = Json::object();
+    for (std::size_t d = 0; d < 3; ++d)
+        concurrent[with.names[d]] = shown(g.concurrent[d], *with.units[d]);
+    out["with"] = std::move(concurrent);
+    return out;
 }
 
 Json combinations_json(const Model& model, const CombinationList& list) {
@@ -194,13 +237,14 @@ Json combinations_json(const Model& model, const CombinationList& list) {
     return out;
 }
 
-Json component_json(const ComponentEnvelope& e, std::array<const char*, 3> names,
-                    std::array<const DisplayUnit*, 3> units, const DisplayUnit& length,
-                    const CombinationList& list, std::size_t first) {
+Json component_json(const ComponentEnvelope& e, const ConcurrentNames& components,
+                    const DisplayUnit& length, const CombinationList& list, std::size_t first) {
     Json out;
     for (std::size_t d = 0; d < 3; ++d) {
-        out[names[d]] = {{"max", governing_json(e.max[d], *units[d], length, list, first)},
-                         {"min", governing_json(e.min[d], *units[d], length, list, first)}};
+        const DisplayUnit& unit = *components.units[d];
+        out[components.names[d]] = {
+            {"max", governing_json(e.max[d], unit, length, list, first, components)},
+            {"min", governing_json(e.min[d], unit, length, list, first, components)}};
     }
     return out;
 }
@@ -210,7 +254,7 @@ Json envelope_json(const Model& model, const CombinationList& list, std::size_t 
     const DisplayUnits& u = model.units;
     std::size_t first = list.sets[set].first;
     auto g = [&](const Governing& v, const DisplayUnit& unit) {
-        return governing_json(v, unit, u.length, list, first);
+        return governing_json(v, unit, u.length, list, first, member_actions(u));
     };
     Json members = Json::array(), reactions = Json::array(), displacements = Json::array();
     for (std::size_t m = 0; m < env.members.size(); ++m) {
@@ -226,15 +270,13 @@ Json envelope_json(const Model& model, const CombinationList& list, std::size_t 
                            {"deflection_min", g(e.deflection_min, u.displacement)}});
     }
     for (std::size_t s = 0; s < env.reactions.size(); ++s) {
-        Json r = component_json(env.reactions[s], {"Rx", "Ry", "M"},
-                                {&u.force, &u.force, &u.moment}, u.length, list, first);
+        Json r = component_json(env.reactions[s], reaction_components(u), u.length, list, first);
         r["node"] = model.nodes[at(model.supports[s].node)].name;
         reactions.push_back(std::move(r));
     }
     for (std::size_t n = 0; n < env.displacements.size(); ++n) {
         Json d =
-            component_json(env.displacements[n], {"dx", "dy", "rotation"},
-                           {&u.displacement, &u.displacement, &u.rotation}, u.length, list, first);
+            component_json(env.displacements[n], displacement_components(u), u.length, list, first);
         d["node"] = model.nodes[n].name;
         displacements.push_back(std::move(d));
     }
@@ -344,8 +386,9 @@ Json second_order_json(const Model& model, const CombinationList& list, std::siz
     return out;
 }
 
-/// The parts after the cases: mirror images, combinations, envelopes, deflection checks.
-Json checks_json(const Model& model, const ReportOptions& options) {
+/// The parts after the cases: mirror images, combinations, envelopes, the chosen
+/// combinations' results, deflection checks.
+Json checks_json(const Model& model, const Results& results, const ReportOptions& options) {
     Json out = Json::object();
     if (options.mirror != nullptr)
         out["mirror"] = mirror_json(model, *options.mirror);
@@ -362,6 +405,9 @@ Json checks_json(const Model& model, const ReportOptions& options) {
         }
         out["envelopes"] = std::move(envelopes);
     }
+    if (options.combinations != nullptr && options.envelopes != nullptr &&
+        !options.chosen_combinations.empty())
+        out["combination_results"] = combination_results_json(model, results, options);
     if (options.deflections != nullptr && !model.deflection_limits.empty())
         out["deflection_checks"] = deflections_json(model, *options.deflections);
     if (options.expectations != nullptr && !options.expectations->empty())
@@ -409,7 +455,7 @@ void write_json_report(const Model& model, const Results& results, const ReportO
         text.clear();
     }
     text += model.cases.empty() ? "]" : "\n ]";
-    Json tail = checks_json(model, options);
+    Json tail = checks_json(model, results, options);
     for (auto it = tail.begin(); it != tail.end(); ++it) {
         std::string one = it.value().dump(1, ' ', false, Json::error_handler_t::replace);
         text += fmt::format(",\n \"{}\": ", it.key());

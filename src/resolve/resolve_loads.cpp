@@ -21,6 +21,8 @@ CaseKind case_kind(syntax::CaseDecl::Kind kind) {
             return CaseKind::roof_live;
         case syntax::CaseDecl::Kind::snow:
             return CaseKind::snow;
+        case syntax::CaseDecl::Kind::rain:
+            return CaseKind::rain;
         case syntax::CaseDecl::Kind::wind:
             return CaseKind::wind;
         case syntax::CaseDecl::Kind::other:

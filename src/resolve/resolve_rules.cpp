@@ -62,11 +62,35 @@ bool positive_factor(Resolver& r, const syntax::Factor& f) {
     return false;
 }
 
-std::optional<CombinationRule> combination_rule(Resolver& r, const syntax::CombinationLine& line) {
+/// In a set by case, a case named twice in one combination: its factors would be
+/// added silently, which is never what was meant.
+bool named_once(Resolver& r, const syntax::CombinationLine& line) {
+    std::vector<std::string_view> seen;
+    bool ok = true;
+    for (const syntax::CombinationTerm& term : line.terms) {
+        for (const auto& alternative : term.alternatives) {
+            const syntax::Name& symbol = alternative.symbol;
+            if (std::find(seen.begin(), seen.end(), symbol.text) != seen.end()) {
+                r.diagnostics.error(symbol.where,
+                                    fmt::format("case '{}' is named twice in combination '{}'; "
+                                                "write it once with its whole factor",
+                                                symbol.text, line.label.text));
+                ok = false;
+            }
+            seen.push_back(symbol.text);
+        }
+    }
+    return ok;
+}
+
+std::optional<CombinationRule> combination_rule(Resolver& r, const syntax::CombinationLine& line,
+                                                bool by_case) {
     CombinationRule rule;
     rule.label = line.label.text;
     rule.where = line.label.where;
-    bool ok = true;
+    // A set by case names cases, which are checked once every case exists (after
+    // the snow stage derives its own).
+    bool ok = !by_case || named_once(r, line);
     for (const syntax::CombinationTerm& term : line.terms) {
         CombinationRule::Term resolved;
         bool term_factor_ok = term.factor.where.begin.offset == term.factor.where.end.offset ||
@@ -76,9 +100,9 @@ std::optional<CombinationRule> combination_rule(Resolver& r, const syntax::Combi
             bool factor_ok =
                 alternative.factor.where.begin.offset == alternative.factor.where.end.offset ||
                 positive_factor(r, alternative.factor);
-            ok = known_symbol(r, alternative.symbol) && factor_ok && ok;
-            resolved.alternatives.push_back(
-                {term.factor.value * alternative.factor.value, alternative.symbol.text});
+            ok = (by_case || known_symbol(r, alternative.symbol)) && factor_ok && ok;
+            resolved.alternatives.push_back({term.factor.value * alternative.factor.value,
+                                             alternative.symbol.text, alternative.symbol.where});
         }
         rule.terms.push_back(std::move(resolved));
     }
@@ -92,15 +116,22 @@ void resolve_set(Resolver& r, const syntax::CombinationsDecl& decl, NameTable& n
         return;
     CombinationSet set;
     set.name = decl.name.text;
+    set.by_case = decl.by_case;
     set.where = decl.name.where;
     NameTable labels{"combination"};
     for (const syntax::CombinationLine& line : decl.lines) {
         if (!labels.add(line.label, r.diagnostics))
             continue;
-        if (auto rule = combination_rule(r, line))
+        if (auto rule = combination_rule(r, line, decl.by_case))
             set.rules.push_back(std::move(*rule));
     }
     for (const syntax::Name& label : decl.half_live_in) {
+        if (decl.by_case) {
+            r.diagnostics.error(label.where,
+                                "half_live_in is for sets by load symbol; in a set by case, "
+                                "write the live case's factor as it is to be taken");
+            break;
+        }
         auto found = std::find_if(set.rules.begin(), set.rules.end(),
                                   [&](const CombinationRule& c) { return c.label == label.text; });
         if (found != set.rules.end())

@@ -16,7 +16,7 @@ syn keyword firnKeyword dead displacement down fixed free from grid group hinge 
 syn keyword firnKeyword let linear live material member model moment node on other
 syn keyword firnKeyword outside pinned plan point projected rafters rectangle report roller
 syn keyword firnKeyword geometry tolerance unjoined cover
-syn keyword firnKeyword deflection limit projection roof arrange by combinations combine half_live_in or pattern rotation section self snow spacing spring support tag to
+syn keyword firnKeyword deflection limit projection roof arrange by combinations combine half_live_in or pattern rain rotation section self snow spacing spring support tag to
 syn keyword firnKeyword expect of shear reaction under between and within
 syn keyword firnKeyword transverse uniform units up use weight wind x y
 
