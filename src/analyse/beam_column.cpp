@@ -170,13 +170,17 @@ void visit_piece(const BeamColumnFunctions& f, const BeamColumnPiece& p, Visit v
     }
 }
 
-void keep_max(Extreme& e, double v, double x, double tie) {
-    if (v > e.value + tie)
-        e = Extreme{v, x};
+bool keep_max(Extreme& e, double v, double x, double tie) {
+    if (!(v > e.value + tie))
+        return false;
+    e = Extreme{v, x};
+    return true;
 }
-void keep_min(Extreme& e, double v, double x, double tie) {
-    if (v < e.value - tie)
-        e = Extreme{v, x};
+bool keep_min(Extreme& e, double v, double x, double tie) {
+    if (!(v < e.value - tie))
+        return false;
+    e = Extreme{v, x};
+    return true;
 }
 void keep_magnitude(Extreme& e, double v, double x, double tie) {
     if (std::abs(v) > std::abs(e.value) + tie)
@@ -214,9 +218,12 @@ MemberSummary summarize(const BeamColumnFunctions& f, SignedExtremes* extremes) 
         keep_magnitude(s.deflection_max, v[f_deflection], x, tie[f_deflection]);
         if (extremes == nullptr)
             continue;
+        std::array<double, 3> acting{v[f_axial], v[f_shear], v[f_moment]};
         for (std::size_t i = 0; i < 4; ++i) {
-            keep_max(extremes->max[i], v[i], x, tie[i]);
-            keep_min(extremes->min[i], v[i], x, tie[i]);
+            if (keep_max(extremes->max[i], v[i], x, tie[i]))
+                extremes->max_with[i] = acting;
+            if (keep_min(extremes->min[i], v[i], x, tie[i]))
+                extremes->min_with[i] = acting;
         }
     }
     return s;

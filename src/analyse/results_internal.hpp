@@ -3,6 +3,8 @@
 // combined loads). Not part of any stage's interface.
 #pragma once
 
+#include "ir/combinations.hpp"
+
 #include <array>
 #include <cstddef>
 #include <span>
@@ -70,5 +72,32 @@ struct FunctionExtremes {
 
 /// The member summary and the signed extremes, from one pass over the functions.
 MemberSummary summarize(const Scratch& functions, FunctionExtremes& extremes);
+
+/// The greatest and least of each component of `of(k)` over the combinations, each
+/// with the other components of its combination (first on ties, judged against each
+/// component's largest magnitude). Shared by the superposed and second-order envelopes.
+template <typename Of>
+ComponentEnvelope component_envelope(std::size_t count, Of of) {
+    ComponentEnvelope out;
+    if (count == 0)
+        return out;
+    std::array<double, 3> tie{};
+    for (std::size_t k = 0; k < count; ++k) {
+        for (std::size_t d = 0; d < 3; ++d)
+            tie[d] = std::max(tie[d], kTie * std::abs(of(k)[d]));
+    }
+    for (std::size_t d = 0; d < 3; ++d)
+        out.max[d] = out.min[d] = Governing{of(0)[d], 0.0, 0, of(0)};
+    for (std::size_t k = 1; k < count; ++k) {
+        const std::array<double, 3>& v = of(k);
+        for (std::size_t d = 0; d < 3; ++d) {
+            if (v[d] > out.max[d].value + tie[d])
+                out.max[d] = Governing{v[d], 0.0, k, v};
+            if (v[d] < out.min[d].value - tie[d])
+                out.min[d] = Governing{v[d], 0.0, k, v};
+        }
+    }
+    return out;
+}
 
 }  // namespace firn

@@ -23,7 +23,7 @@ Governing furthest(std::span<const SecondOrderResults> solved, std::size_t m, st
         const SignedExtremes& e = solved[k].extremes[m];
         const Extreme& x = sign > 0.0 ? e.max[f] : e.min[f];
         if (sign * x.value > sign * g.value + tie)
-            g = Governing{x.value, x.position, k};
+            g = Governing{x.value, x.position, k, sign > 0.0 ? e.max_with[f] : e.min_with[f]};
     }
     return g;
 }
@@ -43,30 +43,6 @@ MemberEnvelope member_envelope(std::span<const SecondOrderResults> solved, std::
     auto down = [&](std::size_t f) { return furthest(solved, m, f, -1.0, tie[f]); };
     return MemberEnvelope{up(f_moment), down(f_moment), up(f_shear),      down(f_shear),
                           up(f_axial),  down(f_axial),  up(f_deflection), down(f_deflection)};
-}
-
-template <typename Of>
-ComponentEnvelope component_envelope(std::size_t count, Of of) {
-    ComponentEnvelope out;
-    if (count == 0)
-        return out;
-    std::array<double, 3> tie{};
-    for (std::size_t k = 0; k < count; ++k) {
-        for (std::size_t d = 0; d < 3; ++d)
-            tie[d] = std::max(tie[d], kTie * std::abs(of(k)[d]));
-    }
-    for (std::size_t d = 0; d < 3; ++d)
-        out.max[d] = out.min[d] = Governing{of(0)[d], 0.0, 0};
-    for (std::size_t k = 1; k < count; ++k) {
-        const std::array<double, 3>& v = of(k);
-        for (std::size_t d = 0; d < 3; ++d) {
-            if (v[d] > out.max[d].value + tie[d])
-                out.max[d] = Governing{v[d], 0.0, k};
-            if (v[d] < out.min[d].value - tie[d])
-                out.min[d] = Governing{v[d], 0.0, k};
-        }
-    }
-    return out;
 }
 
 }  // namespace

@@ -179,33 +179,6 @@ MemberEnvelope member_envelope(std::span<const FunctionExtremes> extremes) {
                           up(f_axial),  down(f_axial),  up(f_deflection), down(f_deflection)};
 }
 
-/// The greatest and least of each component of `of(k)` over the combinations
-/// (first on ties, judged against each component's largest magnitude), each
-/// with every component of the combination that gives it.
-template <typename Of>
-ComponentEnvelope component_envelope(std::size_t count, Of of) {
-    ComponentEnvelope out;
-    if (count == 0)
-        return out;
-    std::array<double, 3> tie{};
-    for (std::size_t k = 0; k < count; ++k) {
-        for (std::size_t d = 0; d < 3; ++d)
-            tie[d] = std::max(tie[d], kTie * std::abs(of(k)[d]));
-    }
-    for (std::size_t d = 0; d < 3; ++d)
-        out.max[d] = out.min[d] = Governing{of(0)[d], 0.0, 0, of(0)};
-    for (std::size_t k = 1; k < count; ++k) {
-        const std::array<double, 3>& v = of(k);
-        for (std::size_t d = 0; d < 3; ++d) {
-            if (v[d] > out.max[d].value + tie[d])
-                out.max[d] = Governing{v[d], 0.0, k, v};
-            if (v[d] < out.min[d].value - tie[d])
-                out.min[d] = Governing{v[d], 0.0, k, v};
-        }
-    }
-    return out;
-}
-
 /// Fills every combination's summary of members [first, last) and their envelopes.
 void envelope_members(const Model& model, const LoadSet& loads, const Solution& solution,
                       std::span<const Combination> combinations, const std::vector<char>& used,

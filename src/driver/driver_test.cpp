@@ -142,3 +142,28 @@ TEST_CASE("driver: a low critical load factor is warned of where it is stated") 
                             d.message.find("has a critical load factor of") != std::string::npos);
     CHECK(warned);
 }
+
+TEST_CASE("driver: second-order envelopes carry the forces that act with each value") {
+    // Issue 18 item 5 with issue 15's concurrent forces: what acts with an enveloped value
+    // comes from the same second-order solve. Statics: where M peaks in the beam, V = 0 and
+    // the concurrent M is the value; a support's reaction set is one combination's, and
+    // the two bases' Rx differ by the notional load 0.002 x the gravity load (AISC 360-16
+    // C2.2b, alpha = 1.0), which sums to zero over all horizontal forces.
+    Analysis a = analyse_text("input", second_order_frame("  second_order = yes\n  notional = "
+                                                          "aisc360_16.notional\n"));
+    REQUIRE(a.ok);
+    const Envelopes& env = a.envelopes[0];
+    std::size_t beam = a.model.members.size() - 1;  // eave.A.B, after the two columns
+    REQUIRE(a.model.members[beam].name == "eave.A.B");
+    const Governing& peak = env.members[beam].moment_max;
+    CHECK(peak.concurrent[2] == peak.value);
+    CHECK(std::abs(peak.concurrent[1]) < 1e-6 * std::abs(peak.value));
+    CHECK(peak.concurrent[0] < 0.0);  // the beam is in compression (the columns sway in)
+    const Governing& ry = env.reactions[0].max[1];
+    REQUIRE(ry.combination != no_combination);
+    const CaseResults& own = env.combinations[ry.combination];
+    CHECK(ry.concurrent == own.reactions[0]);
+    double rx = own.reactions[0][0] + own.reactions[1][0];
+    double gravity = own.reactions[0][1] + own.reactions[1][1];
+    CHECK(rx == Approx(-0.002 * gravity).epsilon(1e-6));
+}

@@ -58,6 +58,8 @@ struct SecondOrderOutcome {
 /// member (in that order), for envelopes.
 struct SignedExtremes {
     std::array<Extreme, 4> max, min;
+    /// N, V and M where each extreme occurs (what acts with it, for the envelopes).
+    std::array<std::array<double, 3>, 4> max_with{}, min_with{};
 };
 
 /// A second-order combination: its results as for a case, and the outcome.
