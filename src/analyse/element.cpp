@@ -53,33 +53,6 @@ ElementVector full_stiffness_times(const StiffnessTerms& k, const ElementVector&
                          -stretch, -shear, k.b * drift + k.d * d[2] + k.c * d[5]};
 }
 
-/// Eliminates the end rotation r from k (and f, if given) by static
-/// condensation: that rotation takes whatever value makes its moment vanish.
-void condense(std::size_t r, ElementMatrix& k, ElementVector* f) {
-    double pivot = k[r][r];
-    for (std::size_t i = 0; i < 6; ++i) {
-        if (i == r || k[i][r] == 0.0)
-            continue;
-        double ratio = k[i][r] / pivot;
-        for (std::size_t j = 0; j < 6; ++j)
-            k[i][j] -= ratio * k[r][j];
-        if (f)
-            (*f)[i] -= ratio * (*f)[r];
-    }
-    for (std::size_t j = 0; j < 6; ++j)
-        k[r][j] = k[j][r] = 0.0;
-    if (f)
-        (*f)[r] = 0.0;
-}
-
-void condense_released(const ElementProperties& e, ElementMatrix& k, ElementVector* f) {
-    if (e.hinge_start)
-        condense(theta1, k, f);
-    if (e.hinge_end)
-        condense(theta2, k, f);
-}
-
-/// Adds the work-equivalent end values of local forces (qx, qy) acting at x.
 void add_force_at(double l, double x, double qx, double qy, ElementVector& f) {
     double xi = x / l, xi2 = xi * xi, xi3 = xi2 * xi;
     f[0] += qx * (1.0 - xi);
@@ -116,6 +89,37 @@ void add_distributed(double l, const LocalDistributed& q, ElementVector& f) {
 
 }  // namespace
 
+namespace {
+
+/// Eliminates the end rotation r from k (and f, if given) by static
+/// condensation: that rotation takes whatever value makes its moment vanish.
+void condense(std::size_t r, ElementMatrix& k, ElementVector* f) {
+    double pivot = k[r][r];
+    for (std::size_t i = 0; i < 6; ++i) {
+        if (i == r || k[i][r] == 0.0)
+            continue;
+        double ratio = k[i][r] / pivot;
+        for (std::size_t j = 0; j < 6; ++j)
+            k[i][j] -= ratio * k[r][j];
+        if (f)
+            (*f)[i] -= ratio * (*f)[r];
+    }
+    for (std::size_t j = 0; j < 6; ++j)
+        k[r][j] = k[j][r] = 0.0;
+    if (f)
+        (*f)[r] = 0.0;
+}
+
+}  // namespace
+
+void condense_released(const ElementProperties& e, ElementMatrix& k, ElementVector* f) {
+    if (e.hinge_start)
+        condense(theta1, k, f);
+    if (e.hinge_end)
+        condense(theta2, k, f);
+}
+
+/// Adds the work-equivalent end values of local forces (qx, qy) acting at x.
 ElementMatrix local_stiffness(const ElementProperties& e) {
     ElementMatrix k = full_stiffness(e);
     if (e.hinge_start && e.hinge_end) {

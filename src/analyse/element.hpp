@@ -31,6 +31,10 @@ ElementProperties element_properties(const Model& model, MemberId member);
 /// and columns are zero. Both ends released leaves an axial bar.
 ElementMatrix local_stiffness(const ElementProperties& e);
 
+/// Condenses the released end rotations out of k (and f, if given) by static
+/// condensation: each takes whatever value makes its moment vanish.
+void condense_released(const ElementProperties& e, ElementMatrix& k, ElementVector* f);
+
 /// The local nodal loads doing the same work as the member loads on the
 /// clamped (unreleased) member: the integrals of the loads against the
 /// element's shape functions, exact for linear distributed loads.

@@ -131,31 +131,6 @@ ElementMatrix full_second_order(const ElementProperties& e, double axial) {
                           {0.0, b, d, 0.0, -b, c}}};
 }
 
-/// Static condensation of rotation r out of k (and f): the released moment is zero.
-void condense(std::size_t r, ElementMatrix& k, ElementVector* f) {
-    double pivot = k[r][r];
-    for (std::size_t i = 0; i < 6; ++i) {
-        if (i == r || k[i][r] == 0.0)
-            continue;
-        double ratio = k[i][r] / pivot;
-        for (std::size_t j = 0; j < 6; ++j)
-            k[i][j] -= ratio * k[r][j];
-        if (f)
-            (*f)[i] -= ratio * (*f)[r];
-    }
-    for (std::size_t j = 0; j < 6; ++j)
-        k[r][j] = k[j][r] = 0.0;
-    if (f)
-        (*f)[r] = 0.0;
-}
-
-void condense_released(const ElementProperties& e, ElementMatrix& k, ElementVector* f) {
-    if (e.hinge_start)
-        condense(theta1, k, f);
-    if (e.hinge_end)
-        condense(theta2, k, f);
-}
-
 /// State along the member: deflection and slope in local axes, M and V = M'.
 struct BeamColumnState {
     double w = 0.0, slope = 0.0, m = 0.0, v = 0.0;
