@@ -162,6 +162,7 @@ bool winter_wind(Resolver& r, Settings& s, SnowSite& site) {
 
 std::vector<std::string> edition_setting_keys() {
     std::vector<std::string> keys;
+    keys.reserve(std::size(kRiskCategories) + 1);
     for (const char* risk : kRiskCategories)
         keys.push_back(pg_key(risk));
     keys.emplace_back("W2");
